@@ -1,0 +1,4 @@
+export * from './errors';
+export * from './units/sample-rate';
+export * from './filters/biquad-design';
+export * from './filters/response';
