@@ -1,0 +1,65 @@
+import { existsSync } from 'node:fs';
+import path from 'node:path';
+import express, { type Express } from 'express';
+import helmet from 'helmet';
+import { authenticate } from './auth/authenticate';
+import { requestId } from './http/request-id';
+import { notFoundHandler, problemHandler } from './http/problem';
+import { getContract } from './http/validate';
+import { docsRouter } from './routes/docs';
+import { healthRouter } from './routes/health';
+import { v1Router } from './routes';
+import type { Services } from './services';
+
+/** JSON bodies above this size get 413; 128 channels with measured responses fit well inside it. */
+const JSON_BODY_LIMIT = '2mb';
+
+export function createApp(services: Services): Express {
+  const { config } = services;
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', config.trustProxyHops);
+  app.set('json spaces', 0);
+
+  app.use(requestId);
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          defaultSrc: ["'self'"],
+          scriptSrc: ["'self'"],
+          styleSrc: ["'self'", "'unsafe-inline'"],
+          imgSrc: ["'self'", 'data:', 'blob:'],
+          fontSrc: ["'self'", 'data:'],
+          connectSrc: ["'self'"],
+          objectSrc: ["'none'"],
+          frameAncestors: ["'none'"],
+        },
+      },
+    }),
+  );
+  app.use(express.json({ limit: JSON_BODY_LIMIT, strict: true }));
+
+  app.use(healthRouter(services.db));
+  app.use(docsRouter(getContract().document));
+
+  app.use('/v1', authenticate(services.keys, services.sessionPrincipal), v1Router(services));
+  app.use('/v1', notFoundHandler);
+
+  serveConsole(app, config.consoleDir);
+  app.use(notFoundHandler);
+  app.use(problemHandler(services.logger));
+  return app;
+}
+
+/** The built console, with its client-side routes answered by index.html. */
+function serveConsole(app: Express, consoleDir: string): void {
+  const index = path.join(consoleDir, 'index.html');
+  if (!existsSync(index)) return;
+  app.use(express.static(consoleDir, { index: false, maxAge: '1h' }));
+  app.get(/^\/(?!v1\/|auth\/|docs|openapi\.json|healthz|readyz).*/, (req, res, next) => {
+    if (!req.accepts('html')) return next();
+    res.setHeader('Cache-Control', 'no-cache');
+    res.sendFile(index);
+  });
+}

@@ -1,0 +1,107 @@
+import { randomBytes } from 'node:crypto';
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import path from 'node:path';
+
+export type Environment = 'development' | 'production' | 'test';
+
+export interface Config {
+  env: Environment;
+  port: number;
+  databaseUrl: string;
+  /** HMAC-SHA-256 secret for API key hashes; losing it invalidates every key. */
+  keyHashSecret: string;
+  sessionSecret: string;
+  /** Number of reverse-proxy hops to trust for the client address (never `true`). */
+  trustProxyHops: number;
+  /** Folder holding the built console (`index.html`). */
+  consoleDir: string;
+  /** Base URL used in e-mailed links. */
+  publicUrl: string;
+  /** Load the demo scenario into an empty database (never in production). */
+  seedDemoData: boolean;
+  /** Default per-key rate limit, requests per minute. */
+  defaultRateLimitPerMinute: number;
+  /** How often metered usage is written to the database, in milliseconds. */
+  usageFlushIntervalMs: number;
+  logLevel: string;
+}
+
+export class ConfigError extends Error {}
+
+export const projectRoot = findProjectRoot(__dirname);
+
+function findProjectRoot(start: string): string {
+  let dir = start;
+  while (!existsSync(path.join(dir, 'package.json'))) {
+    const parent = path.dirname(dir);
+    if (parent === dir) return process.cwd();
+    dir = parent;
+  }
+  return dir;
+}
+
+function integer(env: NodeJS.ProcessEnv, name: string, fallback: number, min: number, max: number): number {
+  const raw = env[name];
+  if (raw === undefined || raw === '') return fallback;
+  const value = Number(raw);
+  if (!Number.isInteger(value) || value < min || value > max) {
+    throw new ConfigError(`${name} must be an integer from ${min} to ${max}; got "${raw}"`);
+  }
+  return value;
+}
+
+/**
+ * Secrets come from the environment. Outside production a missing secret is generated once and kept
+ * next to the database so keys and sessions survive restarts; production refuses to start without them.
+ */
+function secret(env: NodeJS.ProcessEnv, name: string, environment: Environment, store: string | null): string {
+  const fromEnv = env[name];
+  if (fromEnv) {
+    if (fromEnv.length < 32) throw new ConfigError(`${name} must be at least 32 characters`);
+    return fromEnv;
+  }
+  if (environment === 'production') throw new ConfigError(`${name} is required in production`);
+  if (store === null) return randomBytes(32).toString('base64url');
+  const saved: Record<string, string> = existsSync(store) ? JSON.parse(readFileSync(store, 'utf8')) : {};
+  if (!saved[name]) {
+    saved[name] = randomBytes(32).toString('base64url');
+    mkdirSync(path.dirname(store), { recursive: true });
+    writeFileSync(store, JSON.stringify(saved, null, 2), { mode: 0o600 });
+  }
+  return saved[name];
+}
+
+/** Path of the SQLite file named by a `sqlite:` URL, or null for an in-memory database. */
+export function sqliteStorage(databaseUrl: string): string | null {
+  const match = /^sqlite:(.*)$/.exec(databaseUrl);
+  if (!match) throw new ConfigError(`DATABASE_URL must be a sqlite: URL; got "${databaseUrl}"`);
+  const rest = match[1].replace(/^\/\/(?=\/)/, '');
+  if (rest === ':memory:' || rest === '') return null;
+  return path.resolve(projectRoot, rest);
+}
+
+export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
+  const nodeEnv = env.NODE_ENV ?? 'development';
+  if (!['development', 'production', 'test'].includes(nodeEnv)) {
+    throw new ConfigError(`NODE_ENV must be development, production or test; got "${nodeEnv}"`);
+  }
+  const environment = nodeEnv as Environment;
+  const databaseUrl = env.DATABASE_URL || 'sqlite:data/isochron.sqlite';
+  const storage = sqliteStorage(databaseUrl);
+  const secretStore = storage ? path.join(path.dirname(storage), 'secrets.json') : null;
+  const port = integer(env, 'PORT', 8080, 0, 65535);
+  return {
+    env: environment,
+    port,
+    databaseUrl,
+    keyHashSecret: secret(env, 'ISOCHRON_KEY_HASH_SECRET', environment, secretStore),
+    sessionSecret: secret(env, 'ISOCHRON_SESSION_SECRET', environment, secretStore),
+    trustProxyHops: integer(env, 'TRUST_PROXY_HOPS', 0, 0, 10),
+    consoleDir: env.CONSOLE_DIR || path.join(projectRoot, 'dist/console/browser'),
+    publicUrl: env.PUBLIC_URL || `http://localhost:${port}`,
+    seedDemoData: environment !== 'production' && env.SEED_DEMO_DATA !== 'false',
+    defaultRateLimitPerMinute: integer(env, 'DEFAULT_RATE_LIMIT_PER_MINUTE', 600, 1, 1_000_000),
+    usageFlushIntervalMs: integer(env, 'USAGE_FLUSH_INTERVAL_MS', 5000, 100, 3_600_000),
+    logLevel: env.LOG_LEVEL || (environment === 'test' ? 'silent' : 'info'),
+  };
+}

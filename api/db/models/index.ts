@@ -1,0 +1,22 @@
+import type { Sequelize } from 'sequelize';
+import { initApiKey } from './api-key';
+import { initAuditEvent } from './audit-event';
+import { initInvitation } from './invitation';
+import { initSession } from './session';
+import { initUsageBucket } from './usage-bucket';
+import { initUser } from './user';
+
+/** Every model, initialised on one connection. Each resource adds its own line here. */
+export function defineModels(sequelize: Sequelize) {
+  const models = {
+    User: initUser(sequelize),
+    ApiKey: initApiKey(sequelize),
+    UsageBucket: initUsageBucket(sequelize),
+    AuditEvent: initAuditEvent(sequelize),
+    Invitation: initInvitation(sequelize),
+    Session: initSession(sequelize),
+  };
+  return models;
+}
+
+export type Models = ReturnType<typeof defineModels>;

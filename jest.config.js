@@ -1,0 +1,12 @@
+/** @type {import('jest').Config} */
+module.exports = {
+  testEnvironment: 'node',
+  roots: ['<rootDir>/shared', '<rootDir>/api', '<rootDir>/console/src', '<rootDir>/tests'],
+  testMatch: ['**/*.spec.ts', '**/*.test.ts'],
+  testPathIgnorePatterns: ['/node_modules/', '/dist/', '<rootDir>/tests/browser/'],
+  transform: {
+    '^.+\\.ts$': ['@swc/jest', { jsc: { target: 'es2022', parser: { syntax: 'typescript' } }, module: { type: 'commonjs' } }],
+  },
+  moduleFileExtensions: ['ts', 'js', 'json'],
+  testTimeout: 30000,
+};

@@ -1,0 +1,13 @@
+import type { Services } from '../api/services';
+import { seedDemoPlatform } from './demo-platform';
+
+/**
+ * Loads the invented demo scenario (Kestrel Yard Post, Stage 3) into an empty database only.
+ * Each part adds its own step here.
+ */
+export async function loadDemoData(services: Services): Promise<boolean> {
+  if ((await services.db.models.User.count()) > 0) return false;
+  await seedDemoPlatform(services);
+  services.logger.info('loaded the demo data (Kestrel Yard Post, demo only)');
+  return true;
+}
