@@ -1,0 +1,47 @@
+import type { Request } from 'express';
+import type { Transaction } from 'sequelize';
+import { newId } from '../db/ids';
+import type { Models } from '../db/models';
+
+export type AuditAction =
+  | 'key.created'
+  | 'key.updated'
+  | 'key.revoked'
+  | 'user.invited'
+  | 'user.updated'
+  | 'user.roleChanged'
+  | 'user.disabled'
+  | 'user.passwordSet'
+  | 'session.signedIn'
+  | 'session.signInFailed'
+  | 'session.signedOut';
+
+export interface AuditEntry {
+  action: AuditAction;
+  targetType?: string;
+  targetId?: string;
+  /** Never put secrets, passwords or tokens here. */
+  details?: Record<string, unknown>;
+}
+
+/** Records who did what, inside the caller's write transaction so the event and the change land together. */
+export async function recordAudit(
+  models: Models,
+  req: Request | null,
+  entry: AuditEntry,
+  transaction: Transaction,
+): Promise<void> {
+  await models.AuditEvent.create(
+    {
+      id: newId('evt'),
+      action: entry.action,
+      actorUserId: req?.principal?.userId ?? null,
+      actorKeyId: req?.principal?.keyId ?? null,
+      targetType: entry.targetType ?? null,
+      targetId: entry.targetId ?? null,
+      details: entry.details ? JSON.stringify(entry.details) : null,
+      ipAddress: req?.ip ?? null,
+    },
+    { transaction },
+  );
+}
