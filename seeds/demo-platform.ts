@@ -33,6 +33,11 @@ export async function seedDemoPlatform(services: Services): Promise<void> {
       ids.set(user.email, id);
       await User.create({ id, ...user, status: 'active', passwordHash, lastSignInAt: null }, { transaction });
     }
+    const idOf = (email: string): string => {
+      const id = ids.get(email);
+      if (!id) throw new Error(`demo key owner ${email} is not a demo user`);
+      return id;
+    };
     for (const key of DEMO_KEYS) {
       const { secret, prefix, lastFour } = generateKeySecret('live');
       await ApiKey.create(
@@ -43,8 +48,8 @@ export async function seedDemoPlatform(services: Services): Promise<void> {
           prefix,
           lastFour,
           secretHash: hashKeySecret(secret, services.config.keyHashSecret),
-          ownerId: ids.get(key.owner)!,
-          createdById: ids.get('admin@kestrel.example')!,
+          ownerId: idOf(key.owner),
+          createdById: idOf('admin@kestrel.example'),
           rateLimitPerMinute: null,
           expiresAt: null,
           revokedAt: null,

@@ -1,0 +1,67 @@
+import request from 'supertest';
+import { listOperations, loadOpenApiDocument, type OpenApiOperation } from '../../api/openapi/document';
+import { expectToMatchContract } from '../support/contract';
+import { createTestContext, type TestContext } from '../support/test-context';
+
+interface MediaType {
+  example?: unknown;
+  examples?: Record<string, { value?: unknown }>;
+}
+
+function requestExamples(operation: OpenApiOperation): Array<[string, unknown]> {
+  const media = operation.requestBody?.content?.['application/json'] as MediaType | undefined;
+  if (!media) return [];
+  if (media.examples) return Object.entries(media.examples).map(([name, e]) => [name, e.value]);
+  return media.example === undefined ? [] : [['example', media.example]];
+}
+
+const document = loadOpenApiDocument();
+/**
+ * Calls that can run on an empty database: `/v1` operations without path parameters whose request,
+ * if any, is JSON. Operations on stored resources are exercised with their ids in their own tests.
+ */
+const runnable = listOperations(document).filter(
+  ({ route, method, operation }) =>
+    route.startsWith('/v1/') &&
+    !route.includes('{') &&
+    (method === 'get' || requestExamples(operation).length > 0) &&
+    !(operation.parameters ?? []).some((p) => p.required),
+);
+const cases = runnable.flatMap(({ route, method, operation }) =>
+  method === 'get'
+    ? [[`${method.toUpperCase()} ${route}`, method, route, operation.operationId, undefined] as const]
+    : requestExamples(operation).map(
+        ([name, body]) =>
+          [`${method.toUpperCase()} ${route} (${name})`, method, route, operation.operationId, body] as const,
+      ),
+);
+
+let ctx: TestContext;
+beforeAll(async () => {
+  ctx = await createTestContext();
+});
+afterAll(async () => {
+  await ctx.close();
+});
+
+describe('every documented example is answered as documented', () => {
+  it('covers the calculation endpoints', () => {
+    const routes = new Set(runnable.map((r) => r.route));
+    for (const route of [
+      '/v1/delays',
+      '/v1/levels',
+      '/v1/biquads',
+      '/v1/crossovers',
+      '/v1/bass-management',
+    ]) {
+      expect(routes).toContain(route);
+    }
+  });
+
+  it.each(cases)('%s', async (_name, method, route, operationId, body) => {
+    const call = request(ctx.app)[method](route).set('Authorization', `Bearer ${ctx.keys.admin}`);
+    const res = body === undefined ? await call : await call.send(body as object);
+    if (res.status >= 300) throw new Error(`${res.status}: ${JSON.stringify(res.body)}`);
+    expectToMatchContract(operationId, res.status, res.body);
+  });
+});
