@@ -54,7 +54,12 @@ function integer(env: NodeJS.ProcessEnv, name: string, fallback: number, min: nu
  * Secrets come from the environment. Outside production a missing secret is generated once and kept
  * next to the database so keys and sessions survive restarts; production refuses to start without them.
  */
-function secret(env: NodeJS.ProcessEnv, name: string, environment: Environment, store: string | null): string {
+function secret(
+  env: NodeJS.ProcessEnv,
+  name: string,
+  environment: Environment,
+  store: string | null,
+): string {
   const fromEnv = env[name];
   if (fromEnv) {
     if (fromEnv.length < 32) throw new ConfigError(`${name} must be at least 32 characters`);

@@ -12,7 +12,12 @@ const REALM = 'Bearer realm="isochron"';
 export type SessionPrincipalResolver = (req: Request) => Promise<Principal | null>;
 
 function unauthorized(detail: string, challenge: string): ProblemError {
-  return new ProblemError({ status: 401, title: 'Unauthorized', detail, headers: { 'WWW-Authenticate': challenge } });
+  return new ProblemError({
+    status: 401,
+    title: 'Unauthorized',
+    detail,
+    headers: { 'WWW-Authenticate': challenge },
+  });
 }
 
 function tokenOutsideHeader(req: Request): boolean {
@@ -46,7 +51,8 @@ export function authenticate(keys: KeyStore, sessionPrincipal: SessionPrincipalR
       throw new ProblemError({
         status: 400,
         title: 'Key in the wrong place',
-        detail: 'Send API keys only in the Authorization header (Bearer); keys in URLs or bodies are refused.',
+        detail:
+          'Send API keys only in the Authorization header (Bearer); keys in URLs or bodies are refused.',
         type: 'key-outside-header',
         headers: { 'WWW-Authenticate': `${REALM}, error="invalid_request"` },
       });
@@ -54,12 +60,16 @@ export function authenticate(keys: KeyStore, sessionPrincipal: SessionPrincipalR
     const header = req.get('Authorization');
     if (header === undefined) {
       const principal = await sessionPrincipal(req);
-      if (!principal) throw unauthorized('Send an API key as `Authorization: Bearer <key>` or sign in.', REALM);
+      if (!principal)
+        throw unauthorized('Send an API key as `Authorization: Bearer <key>` or sign in.', REALM);
       req.principal = principal;
       return next();
     }
     if (!/^Bearer [^\s]+$/i.test(header)) {
-      throw unauthorized('The Authorization header must be `Bearer <key>`.', `${REALM}, error="invalid_request"`);
+      throw unauthorized(
+        'The Authorization header must be `Bearer <key>`.',
+        `${REALM}, error="invalid_request"`,
+      );
     }
     const key = await verifyBearer(req, res);
     if (!key) {

@@ -17,7 +17,9 @@ function derive(password: string, salt: Buffer, options: ScryptOptions): Promise
 export async function hashPassword(password: string): Promise<string> {
   const salt = randomBytes(16);
   const key = await derive(password, salt, PARAMS);
-  return ['scrypt', PARAMS.N, PARAMS.r, PARAMS.p, salt.toString('base64url'), key.toString('base64url')].join('$');
+  return ['scrypt', PARAMS.N, PARAMS.r, PARAMS.p, salt.toString('base64url'), key.toString('base64url')].join(
+    '$',
+  );
 }
 
 export async function verifyPassword(password: string, stored: string | null): Promise<boolean> {
@@ -25,6 +27,10 @@ export async function verifyPassword(password: string, stored: string | null): P
   const [scheme, n, r, p, salt, hash] = stored.split('$');
   if (scheme !== 'scrypt' || !salt || !hash) return false;
   const expected = Buffer.from(hash, 'base64url');
-  const actual = await derive(password, Buffer.from(salt, 'base64url'), { N: Number(n), r: Number(r), p: Number(p) });
+  const actual = await derive(password, Buffer.from(salt, 'base64url'), {
+    N: Number(n),
+    r: Number(r),
+    p: Number(p),
+  });
   return actual.length === expected.length && timingSafeEqual(actual, expected);
 }

@@ -3,7 +3,8 @@ import type { KeyRole } from '../db/models/api-key';
 import type { UserRole } from '../db/models/user';
 import { forbidden } from '../http/problem';
 
-export type Permission = 'calculate' | 'tuning' | 'keys:own' | 'keys:all' | 'usage:own' | 'usage:all' | 'users';
+export type Permission =
+  'calculate' | 'tuning' | 'keys:own' | 'keys:all' | 'usage:own' | 'usage:all' | 'users';
 
 /** Who is calling: an API key, or a user signed in to the console. */
 export interface Principal {

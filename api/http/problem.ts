@@ -61,7 +61,8 @@ function defaultType(status: number): string {
   return names[status] ?? 'error';
 }
 
-export const notFound = (detail: string): ProblemError => new ProblemError({ status: 404, title: 'Not found', detail });
+export const notFound = (detail: string): ProblemError =>
+  new ProblemError({ status: 404, title: 'Not found', detail });
 
 export const badRequest = (detail: string, errors?: FieldError[]): ProblemError =>
   new ProblemError({ status: 400, title: 'Invalid request', detail, type: 'validation', errors });
@@ -72,7 +73,11 @@ export const forbidden = (detail: string): ProblemError =>
 export const conflict = (detail: string, errors?: FieldError[]): ProblemError =>
   new ProblemError({ status: 409, title: 'Conflict', detail, errors });
 
-export function sendProblem(res: Parameters<RequestHandler>[1], problem: ProblemError, instance: string): void {
+export function sendProblem(
+  res: Parameters<RequestHandler>[1],
+  problem: ProblemError,
+  instance: string,
+): void {
   for (const [name, value] of Object.entries(problem.headers)) res.setHeader(name, value);
   const requestId = res.getHeader('Request-Id');
   res
@@ -109,14 +114,23 @@ function fromHttpError(err: HttpLikeError): ProblemError | null {
   if (!status || status < 400 || status >= 500) return null;
   switch (err.type) {
     case 'entity.parse.failed':
-      return new ProblemError({ status: 400, title: 'Malformed JSON', detail: 'The request body is not valid JSON.', type: 'malformed-json' });
+      return new ProblemError({
+        status: 400,
+        title: 'Malformed JSON',
+        detail: 'The request body is not valid JSON.',
+        type: 'malformed-json',
+      });
     case 'entity.too.large':
       return new ProblemError({ status: 413, title: 'Request body too large', detail: err.message });
     case 'encoding.unsupported':
     case 'charset.unsupported':
       return new ProblemError({ status: 415, title: 'Unsupported encoding', detail: err.message });
     default:
-      return new ProblemError({ status, title: 'Request refused', detail: err.expose ? err.message : undefined });
+      return new ProblemError({
+        status,
+        title: 'Request refused',
+        detail: err.expose ? err.message : undefined,
+      });
   }
 }
 
@@ -137,12 +151,21 @@ export function problemHandler(logger: ErrorLogger): ErrorRequestHandler {
         title: 'Value cannot be used',
         detail: err.message,
         type: 'calculation-input',
-        errors: [{ pointer: err.field.startsWith('/') ? `/body${err.field}` : `/body/${err.field}`, message: err.message }],
+        errors: [
+          {
+            pointer: err.field.startsWith('/') ? `/body${err.field}` : `/body/${err.field}`,
+            message: err.message,
+          },
+        ],
       });
     } else {
       problem =
         (typeof err === 'object' && err !== null && fromHttpError(err as HttpLikeError)) ||
-        new ProblemError({ status: 500, title: 'Internal error', detail: 'The server could not complete the request.' });
+        new ProblemError({
+          status: 500,
+          title: 'Internal error',
+          detail: 'The server could not complete the request.',
+        });
       if (problem.status === 500) {
         logger.error({ err, requestId: res.getHeader('Request-Id'), path: req.path }, 'unhandled error');
       }

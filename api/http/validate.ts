@@ -57,7 +57,10 @@ export function validate(operationId: string): RequestHandler {
     let body: unknown = undefined;
     if (validators.body) {
       if (!bodyPresent || req.body === undefined) {
-        if (validators.bodyRequired) throw badRequest('A JSON request body is required.', [{ pointer: '/body', message: 'is required' }]);
+        if (validators.bodyRequired)
+          throw badRequest('A JSON request body is required.', [
+            { pointer: '/body', message: 'is required' },
+          ]);
       } else {
         body = structuredClone(req.body);
         if (!validators.body(body)) errors.push(...toFieldErrors(validators.body.errors, '/body'));
@@ -68,7 +71,10 @@ export function validate(operationId: string): RequestHandler {
     const params: Record<string, unknown> = { ...req.params };
     if (!validators.params(params)) errors.push(...toFieldErrors(validators.params.errors, '/params'));
     if (errors.length > 0) {
-      throw badRequest(`The request has ${errors.length} invalid field${errors.length === 1 ? '' : 's'}.`, errors);
+      throw badRequest(
+        `The request has ${errors.length} invalid field${errors.length === 1 ? '' : 's'}.`,
+        errors,
+      );
     }
     req.valid = { body, query, params };
     next();

@@ -51,7 +51,8 @@ export function loadOpenApiDocument(dir: string = OPENAPI_DIR): OpenApiDocument 
     for (const [section, entries] of Object.entries(fragment.components ?? {})) {
       const target = (root.components[section] ??= {});
       for (const [key, value] of Object.entries(entries as Record<string, unknown>)) {
-        if (key in target) throw new Error(`openapi/paths/${name}: components.${section}.${key} is already defined`);
+        if (key in target)
+          throw new Error(`openapi/paths/${name}: components.${section}.${key} is already defined`);
         target[key] = value;
       }
     }

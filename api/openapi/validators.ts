@@ -57,7 +57,11 @@ function resolveParameter(document: OpenApiDocument, parameter: OpenApiParameter
   return resolved;
 }
 
-function parameterSchema(parameters: OpenApiParameter[], location: 'query' | 'path', closed: boolean): object {
+function parameterSchema(
+  parameters: OpenApiParameter[],
+  location: 'query' | 'path',
+  closed: boolean,
+): object {
   const selected = parameters.filter((p) => p.in === location);
   return {
     type: 'object',
@@ -77,7 +81,8 @@ export function compileValidators(document: OpenApiDocument): Map<string, Operat
   const result = new Map<string, OperationValidators>();
   for (const { method, route, operation } of listOperations(document)) {
     if (!operation.operationId) throw new Error(`${method.toUpperCase()} ${route} has no operationId`);
-    if (result.has(operation.operationId)) throw new Error(`operationId ${operation.operationId} is used twice`);
+    if (result.has(operation.operationId))
+      throw new Error(`operationId ${operation.operationId} is used twice`);
     const parameters = (operation.parameters ?? []).map((p) => resolveParameter(document, p));
     const content = operation.requestBody?.content ?? {};
     const json = content['application/json'];
@@ -100,7 +105,9 @@ export function toFieldErrors(errors: ErrorObject[] | null | undefined, prefix: 
   // Inside a oneOf every failed branch reports; keep only the summary at the oneOf itself.
   const oneOfPaths = errors.filter((e) => e.keyword === 'oneOf').map((e) => e.schemaPath);
   const kept = errors.filter(
-    (e) => e.keyword === 'oneOf' || !oneOfPaths.some((p) => e.schemaPath.startsWith(p.slice(0, -'/oneOf'.length) + '/oneOf/')),
+    (e) =>
+      e.keyword === 'oneOf' ||
+      !oneOfPaths.some((p) => e.schemaPath.startsWith(p.slice(0, -'/oneOf'.length) + '/oneOf/')),
   );
   const seen = new Set<string>();
   const fieldErrors: FieldError[] = [];

@@ -1,4 +1,11 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type Sequelize,
+} from 'sequelize';
 
 /** Calls counted per key (or signed-in user), route, status class and hour. */
 export class UsageBucket extends Model<InferAttributes<UsageBucket>, InferCreationAttributes<UsageBucket>> {
