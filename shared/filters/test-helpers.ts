@@ -1,0 +1,102 @@
+/**
+ * Helpers for the calculation tests: a float comparison with a stated tolerance, and a direct
+ * frequency-response evaluator written independently of response.ts (it multiplies the sections'
+ * complex values at z = e^(jω) instead of factoring them into roots).
+ */
+import { spawnSync } from 'node:child_process';
+import path from 'node:path';
+import type { BiquadSection } from './biquad-design';
+
+/** Fails with a readable message unless |actual − expected| ≤ tolerance. */
+export function expectWithin(actual: number, expected: number, tolerance: number, what = 'value'): void {
+  if (!Number.isFinite(actual) || !(Math.abs(actual - expected) <= tolerance)) {
+    throw new Error(
+      `${what}: expected ${expected} ± ${tolerance}, received ${actual} (off by ${actual - expected})`,
+    );
+  }
+}
+
+export interface Complex {
+  re: number;
+  im: number;
+}
+
+/** H(e^(jω)) of a cascade, evaluated directly. */
+export function referenceResponse(
+  sections: BiquadSection[],
+  frequencyHz: number,
+  sampleRateHz: number,
+): Complex {
+  const w = (2 * Math.PI * frequencyHz) / sampleRateHz;
+  let re = 1;
+  let im = 0;
+  for (const s of sections) {
+    const nRe = s.b0 + s.b1 * Math.cos(w) + s.b2 * Math.cos(2 * w);
+    const nIm = -s.b1 * Math.sin(w) - s.b2 * Math.sin(2 * w);
+    const dRe = 1 + s.a1 * Math.cos(w) + s.a2 * Math.cos(2 * w);
+    const dIm = -s.a1 * Math.sin(w) - s.a2 * Math.sin(2 * w);
+    const d = dRe * dRe + dIm * dIm;
+    const hRe = (nRe * dRe + nIm * dIm) / d;
+    const hIm = (nIm * dRe - nRe * dIm) / d;
+    [re, im] = [re * hRe - im * hIm, re * hIm + im * hRe];
+  }
+  return { re, im };
+}
+
+export function referenceDb(sections: BiquadSection[], frequencyHz: number, sampleRateHz: number): number {
+  const h = referenceResponse(sections, frequencyHz, sampleRateHz);
+  return 20 * Math.log10(Math.hypot(h.re, h.im));
+}
+
+/** Poles of 1 + a1 z^-1 + a2 z^-2 as complex numbers, by the quadratic formula. */
+export function polesOf(section: BiquadSection): Complex[] {
+  const { a1, a2 } = section;
+  const disc = a1 * a1 - 4 * a2;
+  if (disc >= 0) {
+    return [
+      { re: (-a1 + Math.sqrt(disc)) / 2, im: 0 },
+      { re: (-a1 - Math.sqrt(disc)) / 2, im: 0 },
+    ];
+  }
+  return [
+    { re: -a1 / 2, im: Math.sqrt(-disc) / 2 },
+    { re: -a1 / 2, im: -Math.sqrt(-disc) / 2 },
+  ];
+}
+
+/** Log-spaced frequencies from fromHz up to (not above) toHz, `perOctave` per octave. */
+export function logSweep(fromHz: number, toHz: number, perOctave: number): number[] {
+  const out: number[] = [];
+  for (let k = 0; fromHz * Math.pow(2, k / perOctave) <= toHz; k++)
+    out.push(fromHz * Math.pow(2, k / perOctave));
+  return out;
+}
+
+export type WebAudioJob = { sampleRateHz: number; frequenciesHz: number[] } & (
+  | { biquad: { type: WebAudioBiquadType; frequency: number; Q: number; gain: number } }
+  | { iir: { feedforward: number[]; feedback: number[] } }
+);
+
+export interface WebAudioAnswer {
+  /** The frequencies as the float32 API saw them. */
+  frequenciesHz: number[];
+  magnitude: number[];
+  phaseRad: number[];
+}
+
+/**
+ * Frequency responses from node-web-audio-api's BiquadFilterNode / IIRFilterNode, computed in a
+ * child process (see web-audio-reference.mjs).
+ */
+export function webAudioResponses(jobs: WebAudioJob[]): WebAudioAnswer[] {
+  const result = spawnSync(process.execPath, [path.join(__dirname, 'web-audio-reference.mjs')], {
+    input: JSON.stringify(jobs),
+    maxBuffer: 256 * 1024 * 1024,
+    encoding: 'utf8',
+  });
+  if (result.status !== 0) throw new Error(`web-audio-reference failed: ${result.stderr}`);
+  return JSON.parse(result.stdout);
+}
+
+export type WebAudioBiquadType =
+  'lowpass' | 'highpass' | 'bandpass' | 'lowshelf' | 'highshelf' | 'peaking' | 'notch' | 'allpass';
