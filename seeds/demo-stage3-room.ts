@@ -9,7 +9,8 @@
  * corner.
  */
 
-export const DEMO_ROOM_NOTE = 'Demo data: invented room, positions and readings (Kestrel Yard Post is fictional).';
+export const DEMO_ROOM_NOTE =
+  'Demo data: invented room, positions and readings (Kestrel Yard Post is fictional).';
 
 export const STAGE3_ROOM = {
   name: 'Stage 3',
@@ -30,7 +31,14 @@ export const STAGE3_ROOM = {
     { id: 'U+135', name: 'Left top back', x: 1.88, y: 4.47, z: 2.85 },
     { id: 'U-135', name: 'Right top back', x: 4.33, y: 4.34, z: 2.85 },
   ],
-  limits: { delayMaxMs: 75, trimMinDb: -12, trimMaxDb: 12, eqBandsPerChannel: 8, eqMaxBoostDb: 3, eqMaxCutDb: 12 },
+  limits: {
+    delayMaxMs: 75,
+    trimMinDb: -12,
+    trimMaxDb: 12,
+    eqBandsPerChannel: 8,
+    eqMaxBoostDb: 3,
+    eqMaxCutDb: 12,
+  },
   sampleRateHz: 48000,
   notes: `${DEMO_ROOM_NOTE} Rear surrounds on the machine-room partition; U-135 mounted 6° off nominal.`,
 };
