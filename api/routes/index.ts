@@ -1,5 +1,7 @@
 import { Router } from 'express';
 import type { Services } from '../services';
+import { geometryRouter } from './geometry';
+import { layoutsRouter } from './layouts';
 
 /**
  * Every `/v1` resource router, mounted after authentication, rate limiting and metering.
@@ -7,5 +9,7 @@ import type { Services } from '../services';
  */
 export function v1Router(_services: Services): Router {
   const router = Router();
+  router.use(layoutsRouter);
+  router.use(geometryRouter);
   return router;
 }
