@@ -1,0 +1,96 @@
+import { CalculationInputError, requireInRange } from '../errors';
+
+/**
+ * The response a channel should reach, in dB relative to its own level (the fitter matches levels first).
+ * - `flat`: 0 dB everywhere.
+ * - `tilt`: a straight line in dB per octave through 0 dB at `pivotHz` (default 1 kHz).
+ * - `lowFrequencyLift`: `gainDb` at low frequencies falling to 0 dB above `cornerHz`, shaped like a
+ *   second-order low shelf (Audio EQ Cookbook analogue prototype, S = 1) whose midpoint is at `cornerHz`.
+ */
+export type TargetCurve =
+  | { kind: 'flat' }
+  | { kind: 'tilt'; dbPerOctave: number; pivotHz?: number }
+  | { kind: 'lowFrequencyLift'; gainDb: number; cornerHz: number };
+
+export const TARGET_LIMITS = {
+  tiltMaxDbPerOctave: 6,
+  pivotMinHz: 10,
+  pivotMaxHz: 20000,
+  liftMaxDb: 20,
+  cornerMinHz: 10,
+  cornerMaxHz: 2000,
+} as const;
+
+/**
+ * Checks a target curve's parameters and returns it. Errors name the field under `field`
+ * (default `/target`).
+ */
+export function requireTargetCurve(curve: TargetCurve, field = '/target'): TargetCurve {
+  switch (curve.kind) {
+    case 'flat':
+      return curve;
+    case 'tilt':
+      requireInRange(
+        curve.dbPerOctave,
+        { min: -TARGET_LIMITS.tiltMaxDbPerOctave, max: TARGET_LIMITS.tiltMaxDbPerOctave, unit: 'dB/octave' },
+        'dbPerOctave',
+        `${field}/dbPerOctave`,
+      );
+      if (curve.pivotHz !== undefined) {
+        requireInRange(
+          curve.pivotHz,
+          { min: TARGET_LIMITS.pivotMinHz, max: TARGET_LIMITS.pivotMaxHz, unit: 'Hz' },
+          'pivotHz',
+          `${field}/pivotHz`,
+        );
+      }
+      return curve;
+    case 'lowFrequencyLift':
+      requireInRange(
+        curve.gainDb,
+        { min: -TARGET_LIMITS.liftMaxDb, max: TARGET_LIMITS.liftMaxDb, unit: 'dB' },
+        'gainDb',
+        `${field}/gainDb`,
+      );
+      requireInRange(
+        curve.cornerHz,
+        { min: TARGET_LIMITS.cornerMinHz, max: TARGET_LIMITS.cornerMaxHz, unit: 'Hz' },
+        'cornerHz',
+        `${field}/cornerHz`,
+      );
+      return curve;
+    default:
+      throw new CalculationInputError(
+        `kind must be flat, tilt or lowFrequencyLift; received ${String((curve as { kind: unknown }).kind)}`,
+        `${field}/kind`,
+      );
+  }
+}
+
+/**
+ * Target level at one frequency, dB.
+ * - tilt: `dbPerOctave · log2(f / pivotHz)`.
+ * - lowFrequencyLift: `20·log10|H(jΩ)|`, Ω = f/cornerHz, of the cookbook low-shelf prototype
+ *   `H(s) = A·(s² + (√A/Q)s + A)/(A·s² + (√A/Q)s + 1)` with A = 10^(gainDb/40) and Q = 1/√2 (S = 1):
+ *   `gainDb` at DC, `gainDb/2` at the corner, 0 dB far above.
+ * @param curve a checked target curve.
+ * @param frequencyHz frequency in hertz (> 0).
+ */
+export function targetDb(curve: TargetCurve, frequencyHz: number): number {
+  switch (curve.kind) {
+    case 'flat':
+      return 0;
+    case 'tilt':
+      return curve.dbPerOctave * Math.log2(frequencyHz / (curve.pivotHz ?? 1000));
+    case 'lowFrequencyLift': {
+      const A = Math.pow(10, curve.gainDb / 40);
+      const omega = frequencyHz / curve.cornerHz;
+      // (√A/Q)² with Q = 1/√2.
+      const damping = 2 * A;
+      const w2 = omega * omega;
+      const numerator = (A - w2) ** 2 + damping * w2;
+      const denominator = (1 - A * w2) ** 2 + damping * w2;
+      return 10 * Math.log10((A * A * numerator) / denominator);
+    }
+  }
+}
