@@ -1,7 +1,7 @@
-import { CalculationInputError } from '../errors';
 import { designBiquad, designBiquads, FILTER_TYPES, FilterSpec, FilterType } from './biquad-design';
 import { isStable } from './response';
 import {
+  catchInputError,
   expectWithin,
   logSweep,
   polesOf,
@@ -18,16 +18,6 @@ const BUTTERWORTH_Q = Math.SQRT1_2;
 const MINUS_3_DB = 20 * Math.log10(Math.SQRT1_2);
 /** Double-precision property checks: the formulas are exact, so only rounding remains. */
 const EXACT_DB = 1e-9;
-
-function catchInputError(fn: () => unknown): CalculationInputError {
-  try {
-    fn();
-  } catch (error) {
-    if (error instanceof CalculationInputError) return error;
-    throw error;
-  }
-  throw new Error('expected a CalculationInputError');
-}
 
 describe('designBiquad — Audio EQ Cookbook properties (W3C Working Group Note, 8 June 2021)', () => {
   const corners = [31.5, 80, 1000, 8000, 15000];

@@ -1,18 +1,14 @@
 import fc from 'fast-check';
-import { CalculationInputError } from '../errors';
 import { BiquadSection, designBiquad } from './biquad-design';
 import { cascadeResponse, isStable, parallelResponse, responseGrid } from './response';
-import { expectWithin, logSweep, polesOf, referenceResponse, webAudioResponses } from './test-helpers';
-
-function catchInputError(fn: () => unknown): CalculationInputError {
-  try {
-    fn();
-  } catch (error) {
-    if (error instanceof CalculationInputError) return error;
-    throw error;
-  }
-  throw new Error('expected a CalculationInputError');
-}
+import {
+  catchInputError,
+  expectWithin,
+  logSweep,
+  polesOf,
+  referenceResponse,
+  webAudioResponses,
+} from './test-helpers';
 
 function wrappedDifferenceDeg(a: number, b: number): number {
   const d = a - b;

@@ -5,6 +5,7 @@
  */
 import { spawnSync } from 'node:child_process';
 import path from 'node:path';
+import { CalculationInputError } from '../errors';
 import type { BiquadSection } from './biquad-design';
 
 /** Fails with a readable message unless |actual − expected| ≤ tolerance. */
@@ -100,3 +101,14 @@ export function webAudioResponses(jobs: WebAudioJob[]): WebAudioAnswer[] {
 
 export type WebAudioBiquadType =
   'lowpass' | 'highpass' | 'bandpass' | 'lowshelf' | 'highshelf' | 'peaking' | 'notch' | 'allpass';
+
+/** Runs fn and returns the CalculationInputError it throws; fails when it throws nothing or something else. */
+export function catchInputError(fn: () => unknown): CalculationInputError {
+  try {
+    fn();
+  } catch (error) {
+    if (error instanceof CalculationInputError) return error;
+    throw error;
+  }
+  throw new Error('expected a CalculationInputError');
+}

@@ -1,0 +1,127 @@
+import { catchInputError, expectWithin } from '../filters/test-helpers';
+import { computeLevelTrims, LevelInput } from './level-trims';
+
+describe('computeLevelTrims', () => {
+  // REFERENCES §5: trim = target − measured.
+  it('trims measured levels to a target', () => {
+    const plan = computeLevelTrims({
+      channels: [
+        { label: 'M+030', measuredDb: 80.0 },
+        { label: 'M+000', measuredDb: 82.5 },
+        { label: 'M-030', measuredDb: 78.2 },
+      ],
+      targetDb: 79,
+    });
+    expect(plan.alignedTo).toBe('target');
+    expectWithin(plan.channels[0].trimDb, -1, 1e-12, 'M+030');
+    expectWithin(plan.channels[1].trimDb, -3.5, 1e-12, 'M+000');
+    expectWithin(plan.channels[2].trimDb, 0.8, 1e-12, 'M-030 boost');
+    for (const c of plan.channels) expectWithin(c.expectedDb, 79, 1e-12, `${c.label} expected`);
+    expect(plan.cautions.map((c) => c.code)).toEqual(['testSignalLevel', 'levelBoost']);
+    expect(plan.cautions[1].message).toContain('M-030');
+    // Three uncorrelated channels at 79 dB: 79 + 10·log10(3) = 83.77 dB (REFERENCES §5).
+    expect(plan.cautions[0].message).toContain('83.77 dB');
+  });
+
+  it('without a target aligns to the quietest channel, so every trim is a cut', () => {
+    const plan = computeLevelTrims({
+      channels: [
+        { label: 'a', measuredDb: 80.0 },
+        { label: 'b', measuredDb: 77.4 },
+        { label: 'c', measuredDb: 84.1 },
+      ],
+    });
+    expect(plan.alignedTo).toBe('quietestChannel');
+    expect(plan.targetDb).toBe(77.4);
+    expect(plan.channels.map((c) => c.trimDb).every((t) => t <= 0)).toBe(true);
+    expectWithin(plan.channels[2].trimDb, 77.4 - 84.1, 1e-12, 'c');
+    expect(plan.channels[1].trimDb).toBe(0);
+    expect(plan.cautions.map((c) => c.code)).toEqual(['testSignalLevel']);
+  });
+
+  // ISO 21727 (excerpt, REFERENCES §5): LFE is set 10 dB above the other channels in band.
+  it('honours per-channel target offsets, e.g. LFE +10 dB in band', () => {
+    const plan = computeLevelTrims({
+      channels: [
+        { label: 'M+030', measuredDb: 85.6 },
+        { label: 'LFE1', measuredDb: 93.0, targetOffsetDb: 10 },
+      ],
+      targetDb: 85,
+    });
+    expectWithin(plan.channels[1].trimDb, 2, 1e-12, 'LFE trim');
+    expectWithin(plan.channels[1].expectedDb, 95, 1e-12, 'LFE level');
+  });
+
+  // REFERENCES §5: inverse-square estimate L(r) = L(r0) − 20·log10(r/r0).
+  it('estimates from distance by the inverse-square law and flags the estimate', () => {
+    const plan = computeLevelTrims({
+      channels: [
+        { label: 'near', distance: 2 },
+        { label: 'far', distance: '4 m' },
+      ],
+    });
+    expect(plan.channels.every((c) => c.estimated)).toBe(true);
+    expectWithin(plan.channels[0].trimDb, -20 * Math.log10(2), 1e-12, 'doubling distance is −6.02 dB');
+    expect(plan.channels[1].trimDb).toBe(0);
+    expect(plan.warnings.map((w) => w.code)).toContain('levelEstimated');
+  });
+
+  it('compares distance estimates with measurements through levelAt1mDb', () => {
+    const plan = computeLevelTrims({
+      channels: [
+        { label: 'measured', measuredDb: 80 },
+        { label: 'estimated', distance: 3 },
+      ],
+      levelAt1mDb: 90,
+      targetDb: 79,
+    });
+    expectWithin(plan.channels[1].levelDb, 90 - 20 * Math.log10(3), 1e-12, 'estimate');
+    expectWithin(plan.channels[1].trimDb, 79 - (90 - 20 * Math.log10(3)), 1e-12, 'trim');
+    expect(plan.channels.map((c) => c.estimated)).toEqual([false, true]);
+  });
+
+  it('clamps to limits.trimMinDb..trimMaxDb with a warning', () => {
+    const plan = computeLevelTrims({
+      channels: [
+        { label: 'loud', measuredDb: 96 },
+        { label: 'quiet', measuredDb: 64 },
+        { label: 'ok', measuredDb: 80 },
+      ],
+      targetDb: 79,
+      limits: { trimMinDb: -12, trimMaxDb: 12 },
+    });
+    expect(plan.channels[0]).toMatchObject({ trimDb: -12, expectedDb: 84, clamped: true });
+    expect(plan.channels[1]).toMatchObject({ trimDb: 12, expectedDb: 76, clamped: true });
+    expect(plan.channels[2]).toMatchObject({ trimDb: -1, clamped: false });
+    expect(plan.warnings.map((w) => [w.code, w.channel])).toEqual([
+      ['trimClamped', 'loud'],
+      ['trimClamped', 'quiet'],
+    ]);
+    expect(plan.warnings[0].message).toContain('5 dB loud');
+  });
+
+  it.each([
+    [{ channels: [] }, '/channels'],
+    [{ channels: [{ label: 'a', measuredDb: 80, distance: 2 }] }, '/channels/0/distance'],
+    [{ channels: [{ label: 'a' }] }, '/channels/0/measuredDb'],
+    [{ channels: [{ label: 'a', measuredDb: 151 }] }, '/channels/0/measuredDb'],
+    [{ channels: [{ label: 'a', measuredDb: NaN }] }, '/channels/0/measuredDb'],
+    [{ channels: [{ label: 'a', measuredDb: 80 }], targetDb: -151 }, '/targetDb'],
+    [{ channels: [{ label: 'a', measuredDb: 80, targetOffsetDb: 41 }] }, '/channels/0/targetOffsetDb'],
+    [{ channels: [{ label: 'a', distance: 2 }], targetDb: 79 }, '/levelAt1mDb'],
+    [
+      {
+        channels: [
+          { label: 'a', distance: 2 },
+          { label: 'b', measuredDb: 80 },
+        ],
+      },
+      '/levelAt1mDb',
+    ],
+    [{ channels: [{ label: 'a', distance: '2 s' }] }, '/channels/0/distance'],
+    [{ channels: [{ label: 'a', measuredDb: 80 }], limits: { trimMinDb: 1 } }, '/limits/trimMinDb'],
+    [{ channels: [{ label: 'a', measuredDb: 80 }], limits: { trimMaxDb: -1 } }, '/limits/trimMaxDb'],
+  ])('refuses %j, naming %s', (input, field) => {
+    expect(catchInputError(() => computeLevelTrims(input as LevelInput)).field).toBe(field);
+  });
+});
