@@ -1,3 +1,63 @@
 import { Routes } from '@angular/router';
+import { requireCapability, requireSession, redirectWhenSignedIn } from './auth/guards';
 
-export const routes: Routes = [];
+export const routes: Routes = [
+  {
+    path: 'sign-in',
+    title: 'Sign in · Isochron',
+    canActivate: [redirectWhenSignedIn],
+    loadComponent: () => import('./auth/sign-in-page/sign-in-page').then((m) => m.SignInPage),
+  },
+  {
+    path: 'accept-invitation',
+    title: 'Set your password · Isochron',
+    loadComponent: () =>
+      import('./auth/accept-invitation-page/accept-invitation-page').then((m) => m.AcceptInvitationPage),
+  },
+  {
+    path: '',
+    canActivate: [requireSession],
+    loadComponent: () => import('./shell/shell').then((m) => m.Shell),
+    children: [
+      {
+        path: '',
+        pathMatch: 'full',
+        title: 'Overview · Isochron',
+        loadComponent: () => import('./overview/overview-page/overview-page').then((m) => m.OverviewPage),
+      },
+      {
+        path: 'keys',
+        title: 'Keys · Isochron',
+        canActivate: [requireCapability('keys:view')],
+        loadComponent: () => import('./keys/keys-page/keys-page').then((m) => m.KeysPage),
+      },
+      {
+        path: 'usage',
+        title: 'Usage · Isochron',
+        loadComponent: () => import('./usage/usage-page/usage-page').then((m) => m.UsagePage),
+      },
+      {
+        path: 'users',
+        title: 'Users · Isochron',
+        canActivate: [requireCapability('users:manage')],
+        loadComponent: () => import('./users/users-page/users-page').then((m) => m.UsersPage),
+      },
+      {
+        path: 'playground',
+        title: 'Playground · Isochron',
+        loadComponent: () =>
+          import('./playground/playground-page/playground-page').then((m) => m.PlaygroundPage),
+      },
+      {
+        path: 'docs',
+        title: 'API docs · Isochron',
+        loadComponent: () => import('./docs/docs-page/docs-page').then((m) => m.DocsPage),
+      },
+      {
+        path: '**',
+        title: 'Not found · Isochron',
+        loadComponent: () => import('./shell/not-found-page/not-found-page').then((m) => m.NotFoundPage),
+      },
+    ],
+  },
+];

@@ -1,5 +1,6 @@
-import { ChangeDetectionStrategy, Component } from '@angular/core';
+import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { RouterOutlet } from '@angular/router';
+import { ThemeService } from './theme/theme.service';
 
 @Component({
   selector: 'iso-root',
@@ -7,4 +8,7 @@ import { RouterOutlet } from '@angular/router';
   template: '<router-outlet />',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
-export class App {}
+export class App {
+  // Created here so the stored colour scheme applies before any page renders.
+  protected readonly theme = inject(ThemeService);
+}

@@ -1,0 +1,84 @@
+import { HttpClient, HttpErrorResponse } from '@angular/common/http';
+import { Injectable, computed, inject, signal } from '@angular/core';
+import { Observable, catchError, map, of, shareReplay, tap } from 'rxjs';
+import { Capability, UserRole, can } from './roles';
+
+/** The signed-in console user, as `GET /auth/session` returns it. */
+export interface SessionUser {
+  id: string;
+  email: string;
+  role: UserRole;
+  name?: string | null;
+}
+
+interface SessionBody {
+  user: SessionUser;
+}
+
+/** Holds who is signed in; every page reads it through signals. */
+@Injectable({ providedIn: 'root' })
+export class SessionService {
+  private readonly http = inject(HttpClient);
+  private readonly current = signal<SessionUser | null>(null);
+  private readonly resolved = signal(false);
+  private pending?: Observable<SessionUser | null>;
+
+  readonly user = this.current.asReadonly();
+  readonly known = this.resolved.asReadonly();
+  readonly role = computed(() => this.current()?.role ?? null);
+  readonly signedIn = computed(() => this.current() !== null);
+
+  /** Asks the server once who is signed in; later calls reuse the answer until sign-in or sign-out. */
+  load(): Observable<SessionUser | null> {
+    if (this.resolved()) return of(this.current());
+    this.pending ??= this.http.get<SessionBody>('/auth/session').pipe(
+      map((body) => body.user),
+      catchError((error: unknown) => {
+        if (error instanceof HttpErrorResponse && error.status === 401) return of(null);
+        throw error;
+      }),
+      tap((user) => {
+        this.current.set(user);
+        this.resolved.set(true);
+        this.pending = undefined;
+      }),
+      shareReplay(1),
+    );
+    return this.pending;
+  }
+
+  signIn(email: string, password: string): Observable<SessionUser> {
+    return this.http.post<SessionBody>('/auth/session', { email, password }).pipe(
+      map((body) => body.user),
+      tap((user) => {
+        this.current.set(user);
+        this.resolved.set(true);
+      }),
+    );
+  }
+
+  signOut(): Observable<void> {
+    return this.http.delete('/auth/session').pipe(
+      catchError((error: unknown) => {
+        if (error instanceof HttpErrorResponse && error.status === 401) return of(undefined);
+        throw error;
+      }),
+      tap(() => this.forget()),
+      map(() => undefined),
+    );
+  }
+
+  acceptInvitation(token: string, password: string): Observable<unknown> {
+    return this.http.post('/auth/invitations/accept', { token, password });
+  }
+
+  /** Called when the server says the session has ended (a 401 on a console call). */
+  forget(): void {
+    this.current.set(null);
+    this.resolved.set(true);
+  }
+
+  can(capability: Capability): boolean {
+    return can(this.role(), capability);
+  }
+}

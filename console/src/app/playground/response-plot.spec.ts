@@ -1,0 +1,177 @@
+import Fili from 'fili';
+import type { Section } from './biquad-response';
+import { curvesFromResult, magnitudeChart, magnitudeRange, phaseChart } from './response-plot';
+
+// References: a Linkwitz-Riley crossover (two cascaded Butterworth filters of the same order) sums to
+// an all-pass, flat in magnitude, and each output is −6.02 dB at the crossover (Linkwitz, "Active
+// crossover networks for noncoincident drivers", JAES 1976). A 2nd-order LR sums flat only with the
+// high-pass inverted; with both in phase it cancels at the crossover. Sections come from fili.
+const fs = 48000;
+const fc = 80;
+
+function butterworth2(kind: 'lowpass' | 'highpass'): Section {
+  const [c] = new Fili.CalcCascades()[kind]({
+    order: 1,
+    characteristic: 'butterworth',
+    Fs: fs,
+    Fc: fc,
+  }) as Array<{
+    a: number[];
+    b: number[];
+  }>;
+  return { b0: c.b[0], b1: c.b[1], b2: c.b[2], a1: c.a[0], a2: c.a[1] };
+}
+
+function firstOrder(kind: 'lowPass' | 'highPass'): Section {
+  // Bilinear transform of s/(s+ω) and ω/(s+ω), pre-warped: K = tan(π·fc/fs).
+  const k = Math.tan((Math.PI * fc) / fs);
+  const a1 = (k - 1) / (k + 1);
+  return kind === 'lowPass'
+    ? { b0: k / (1 + k), b1: k / (1 + k), b2: 0, a1, a2: 0 }
+    : { b0: 1 / (1 + k), b1: -1 / (1 + k), b2: 0, a1, a2: 0 };
+}
+
+describe('curvesFromResult with reported responses', () => {
+  it('takes a biquad cascade’s reported response and does not recompute it', () => {
+    const body = {
+      sampleRateHz: fs,
+      sections: [{ b0: 1, b1: 0, b2: 0, a1: 0, a2: 0 }],
+      response: { frequenciesHz: [100, 1000], magnitudeDb: [-1, -4], phaseDeg: [10, -20] },
+    };
+    expect(curvesFromResult(body)).toEqual([
+      {
+        label: 'response',
+        frequenciesHz: [100, 1000],
+        magnitudeDb: [-1, -4],
+        phaseDeg: [10, -20],
+        source: 'reported',
+        isSum: false,
+      },
+    ]);
+  });
+
+  it('names crossover outputs and marks the sum, sharing the grid of the parent object', () => {
+    const body = {
+      response: {
+        frequenciesHz: [40, 80, 160],
+        lowPass: { magnitudeDb: [-0.3, -6.02, -24] },
+        highPass: { magnitudeDb: [-24, -6.02, -0.3] },
+        sum: { magnitudeDb: [0, 0, 0], phaseDeg: [-40, -180, 140] },
+      },
+    };
+    const curves = curvesFromResult(body);
+    expect(curves.map((curve) => [curve.label, curve.isSum, curve.frequenciesHz])).toEqual([
+      ['lowPass', false, [40, 80, 160]],
+      ['highPass', false, [40, 80, 160]],
+      ['sum', true, [40, 80, 160]],
+    ]);
+  });
+
+  it('skips magnitude arrays whose length does not match the grid', () => {
+    expect(curvesFromResult({ frequenciesHz: [1, 2, 3], magnitudeDb: [0, 0] })).toEqual([]);
+  });
+});
+
+describe('curvesFromResult computing from returned sections', () => {
+  const lr4 = {
+    family: 'linkwitzRiley',
+    order: 4,
+    frequencyHz: fc,
+    lowPass: { sections: [butterworth2('lowpass'), butterworth2('lowpass')] },
+    highPass: { sections: [butterworth2('highpass'), butterworth2('highpass')] },
+    highPassPolarity: 'normal',
+  };
+
+  it('draws a 4th-order Linkwitz-Riley crossover whose sum is flat and whose outputs are −6.02 dB at fc', () => {
+    const curves = curvesFromResult(lr4, { sampleRateHz: fs });
+    expect(curves.map((curve) => curve.label)).toEqual(['lowPass', 'highPass', 'sum']);
+    const sum = curves[2];
+    expect(sum.isSum).toBe(true);
+    expect(Math.max(...sum.magnitudeDb.map(Math.abs))).toBeLessThan(1e-9);
+    const { lowPassAtFc, highPassAtFc } = {
+      lowPassAtFc: curvesFromResult({ ...lr4, response: undefined }, { sampleRateHz: fs })[0],
+      highPassAtFc: curves[1],
+    };
+    const index = lowPassAtFc.frequenciesHz.findIndex((f) => Math.abs(f - fc) < 1e-9);
+    expect(index).toBeGreaterThan(0);
+    expect(lowPassAtFc.magnitudeDb[index]).toBeCloseTo(-6.0206, 3);
+    expect(highPassAtFc.magnitudeDb[index]).toBeCloseTo(-6.0206, 3);
+  });
+
+  it('applies the high-pass polarity: a 2nd-order Linkwitz-Riley sums flat only when inverted', () => {
+    const lr2 = (highPassPolarity: string) => ({
+      lowPass: { sections: [firstOrder('lowPass'), firstOrder('lowPass')] },
+      highPass: { sections: [firstOrder('highPass'), firstOrder('highPass')] },
+      highPassPolarity,
+      sampleRateHz: fs,
+    });
+    const inverted = curvesFromResult(lr2('inverted'))[2];
+    expect(Math.max(...inverted.magnitudeDb.map(Math.abs))).toBeLessThan(1e-9);
+    const normal = curvesFromResult(lr2('normal'))[2];
+    const index = normal.frequenciesHz.findIndex((f) => Math.abs(f - fc) < 1e-9);
+    expect(normal.magnitudeDb[index]).toBeLessThan(-100);
+  });
+
+  it('labels per-channel cascades by their channel and finds the sample rate in the request', () => {
+    const body = {
+      channels: [
+        { channel: 'M+030', highPass: { sections: [butterworth2('highpass')] } },
+        { channel: 'M-030', highPass: { sections: [butterworth2('highpass')] } },
+      ],
+      subwoofer: { lowPass: { sections: [butterworth2('lowpass')] } },
+    };
+    const labels = curvesFromResult(body, { crossover: { sampleRateHz: fs } }).map((curve) => curve.label);
+    expect(labels).toEqual([
+      'channels · M+030 · highPass',
+      'channels · M-030 · highPass',
+      'subwoofer · lowPass',
+    ]);
+  });
+
+  it('draws nothing when no sample rate is known or nothing is plottable', () => {
+    expect(curvesFromResult({ sections: [butterworth2('lowpass')] })).toEqual([]);
+    expect(curvesFromResult({ delayMs: 3 }, { sampleRateHz: fs })).toEqual([]);
+    expect(curvesFromResult(null)).toEqual([]);
+  });
+});
+
+describe('magnitudeRange', () => {
+  const curve = (magnitudeDb: number[]) => ({
+    label: 'x',
+    frequenciesHz: magnitudeDb.map((_, i) => i + 1),
+    magnitudeDb,
+    source: 'reported' as const,
+    isSum: false,
+  });
+
+  it('keeps at least 12 dB of view around a small EQ move, in 3 dB steps', () => {
+    expect(magnitudeRange([curve([0, -4.5, 0])])).toEqual({ min: -9, max: 3 });
+  });
+
+  it('shows at most 60 dB below the top so a stop band does not flatten the pass band', () => {
+    expect(magnitudeRange([curve([0, -300])])).toEqual({ min: -57, max: 3 });
+  });
+});
+
+describe('charts', () => {
+  it('puts frequencies on a log axis and draws sums dashed, with a readable summary', () => {
+    const curves = curvesFromResult({
+      response: {
+        frequenciesHz: [40, 80],
+        lowPass: { magnitudeDb: [0, -6], phaseDeg: [0, -90] },
+        sum: { magnitudeDb: [0, 0] },
+      },
+    });
+    const magnitude = magnitudeChart(curves);
+    expect(magnitude.xScale).toBe('log');
+    expect(magnitude.series.map((series) => series.dashed)).toEqual([false, true]);
+    expect(magnitude.series[0].points).toEqual([
+      { x: 40, y: 0 },
+      { x: 80, y: -6 },
+    ]);
+    expect(magnitude.summary).toContain('lowPass: highest 0.0 dB at 40 Hz');
+    const phase = phaseChart(curves);
+    expect(phase?.series.map((series) => series.label)).toEqual(['lowPass']);
+    expect(phaseChart([])).toBeNull();
+  });
+});

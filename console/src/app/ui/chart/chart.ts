@@ -1,0 +1,183 @@
+import {
+  ChangeDetectionStrategy,
+  Component,
+  DestroyRef,
+  ElementRef,
+  effect,
+  inject,
+  input,
+  viewChild,
+} from '@angular/core';
+import type { ChartConfiguration, ChartDataset } from 'chart.js';
+import { ThemeService } from '../../theme/theme.service';
+import { Chart } from './chart-registry';
+import { ChartSpec } from './chart-spec';
+import { frequencyTickLabel } from './frequency-ticks';
+
+interface Palette {
+  series: string[];
+  text: string;
+  muted: string;
+  grid: string;
+  surface: string;
+  font: string;
+}
+
+function readPalette(host: HTMLElement): Palette {
+  const style = getComputedStyle(host);
+  const get = (name: string, fallback: string) => style.getPropertyValue(name).trim() || fallback;
+  return {
+    series: [1, 2, 3, 4, 5, 6].map((n) => get(`--iso-series-${n}`, '#15696d')),
+    text: get('--mat-sys-on-surface', '#191c1c'),
+    muted: get('--mat-sys-on-surface-variant', '#3f4949'),
+    grid: get('--mat-sys-outline-variant', '#bec8c9'),
+    surface: get('--mat-sys-surface-container-highest', '#e0e3e3'),
+    font: style.fontFamily || 'Roboto, sans-serif',
+  };
+}
+
+function withAlpha(colour: string, alpha: number): string {
+  // Resolved custom properties come back as #rrggbb; anything else is used as is.
+  const match = /^#([0-9a-f]{6})$/i.exec(colour);
+  if (!match) return colour;
+  const value = Number.parseInt(match[1], 16);
+  return `rgba(${(value >> 16) & 255}, ${(value >> 8) & 255}, ${value & 255}, ${alpha})`;
+}
+
+function toConfig(spec: ChartSpec, palette: Palette): ChartConfiguration {
+  const datasets = spec.series.map((series) => {
+    const colour = palette.series[(series.colour - 1 + palette.series.length) % palette.series.length];
+    const kind = series.kind ?? spec.kind;
+    const dataset = {
+      type: kind,
+      label: series.label,
+      data: (series.points ?? series.values ?? []) as never,
+      borderColor: colour,
+      backgroundColor: kind === 'bar' ? withAlpha(colour, 0.75) : withAlpha(colour, 0.15),
+      borderWidth: kind === 'bar' ? 0 : 2,
+      borderDash: series.dashed ? [6, 4] : undefined,
+      fill: series.fill ?? false,
+      pointRadius: 0,
+      pointHoverRadius: 3,
+      tension: 0,
+      yAxisID: series.axis === 'right' ? 'right' : 'y',
+    };
+    return dataset as ChartDataset;
+  });
+  const hasRight = spec.series.some((series) => series.axis === 'right');
+  const axisTitle = (text: string | undefined) => ({
+    display: Boolean(text),
+    text: text ?? '',
+    color: palette.muted,
+  });
+  const ticks = { color: palette.muted };
+  const grid = { color: withAlpha(palette.grid, 0.7) };
+  const x =
+    spec.xScale === 'log'
+      ? {
+          type: 'logarithmic' as const,
+          title: axisTitle(spec.xTitle),
+          grid,
+          ticks: {
+            ...ticks,
+            autoSkip: false,
+            maxRotation: 0,
+            callback: (value: string | number) => frequencyTickLabel(Number(value)),
+          },
+        }
+      : spec.xScale === 'linear'
+        ? { type: 'linear' as const, title: axisTitle(spec.xTitle), grid, ticks }
+        : {
+            type: 'category' as const,
+            title: axisTitle(spec.xTitle),
+            grid,
+            ticks: { ...ticks, maxRotation: 0, autoSkipPadding: 12 },
+            stacked: spec.stacked,
+          };
+  const valueAxis = {
+    type: 'linear' as const,
+    grid,
+    ticks: { ...ticks, precision: spec.kind === 'bar' ? 0 : undefined },
+    min: spec.yMin,
+    max: spec.yMax,
+    stacked: spec.stacked,
+    beginAtZero: spec.kind === 'bar',
+  };
+  return {
+    type: spec.kind,
+    data: { labels: spec.labels, datasets },
+    options: {
+      responsive: true,
+      maintainAspectRatio: false,
+      animation: false,
+      parsing: spec.xScale === 'category' ? undefined : false,
+      normalized: true,
+      interaction: { mode: 'index', intersect: false },
+      color: palette.text,
+      font: { family: palette.font },
+      plugins: {
+        legend: { position: 'bottom', labels: { color: palette.text, boxWidth: 14, boxHeight: 3 } },
+        tooltip: { enabled: true },
+      },
+      indexAxis: spec.horizontal ? 'y' : 'x',
+      scales: {
+        x: spec.horizontal ? { ...valueAxis, title: axisTitle(spec.xTitle) } : x,
+        y: spec.horizontal
+          ? { ...x, title: axisTitle(spec.yTitle), ticks: { color: palette.text, autoSkip: false } }
+          : { ...valueAxis, title: axisTitle(spec.yTitle) },
+        ...(hasRight
+          ? {
+              right: {
+                type: 'linear',
+                position: 'right',
+                title: axisTitle(spec.rightTitle),
+                grid: { drawOnChartArea: false },
+                ticks,
+                min: -180,
+                max: 180,
+              },
+            }
+          : {}),
+      },
+    },
+  } as ChartConfiguration;
+}
+
+/** A chart.js canvas with the console's colours; the summary is what a screen reader hears. */
+@Component({
+  selector: 'iso-chart',
+  template: `<canvas #canvas role="img" [attr.aria-label]="spec().summary"></canvas>`,
+  styles: `
+    :host {
+      display: block;
+      position: relative;
+      height: 280px;
+      min-width: 0;
+    }
+    canvas {
+      max-width: 100%;
+    }
+  `,
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class ChartView {
+  readonly spec = input.required<ChartSpec>();
+
+  private readonly host = inject<ElementRef<HTMLElement>>(ElementRef);
+  private readonly canvas = viewChild.required<ElementRef<HTMLCanvasElement>>('canvas');
+  private readonly theme = inject(ThemeService);
+  private chart?: Chart;
+
+  constructor() {
+    effect(() => {
+      const spec = this.spec();
+      this.theme.revision();
+      const canvas = this.canvas().nativeElement;
+      // Colours resolve after the theme class changes, so read them at draw time.
+      const config = toConfig(spec, readPalette(this.host.nativeElement));
+      this.chart?.destroy();
+      this.chart = new Chart(canvas, config);
+    });
+    inject(DestroyRef).onDestroy(() => this.chart?.destroy());
+  }
+}

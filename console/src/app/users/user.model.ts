@@ -1,0 +1,37 @@
+import type { UserRole } from '../auth/roles';
+
+export type UserStatus = 'active' | 'invited' | 'disabled';
+
+/** A console user as `GET /v1/users` lists it. */
+export interface ConsoleUser {
+  id: string;
+  email: string;
+  name: string | null;
+  role: UserRole;
+  status: UserStatus;
+  lastSignInAt?: string | null;
+  createdAt?: string;
+}
+
+export interface InviteRequest {
+  email: string;
+  role: UserRole;
+  name?: string;
+}
+
+export interface UserChanges {
+  role?: UserRole;
+  status?: 'active' | 'disabled';
+}
+
+/** One message the development mail server received. */
+export interface OutboxMessage {
+  id: string;
+  to: string | string[];
+  from?: string;
+  subject: string;
+  text?: string;
+  html?: string;
+  sentAt?: string;
+  date?: string;
+}

@@ -1,0 +1,43 @@
+import { HttpClient, HttpParams } from '@angular/common/http';
+import { Injectable, inject } from '@angular/core';
+import { EMPTY, Observable, expand, map, reduce } from 'rxjs';
+import { ListPage } from '../keys/key.model';
+import { ConsoleUser, InviteRequest, OutboxMessage, UserChanges } from './user.model';
+
+@Injectable({ providedIn: 'root' })
+export class UsersService {
+  private readonly http = inject(HttpClient);
+
+  listAll(): Observable<ConsoleUser[]> {
+    const page = (startingAfter?: string) => {
+      let params = new HttpParams().set('limit', 100);
+      if (startingAfter) params = params.set('startingAfter', startingAfter);
+      return this.http.get<ListPage<ConsoleUser>>('/v1/users', { params });
+    };
+    return page().pipe(
+      expand((result) => {
+        const last = result.data.at(-1);
+        return result.hasMore && last ? page(last.id) : EMPTY;
+      }),
+      reduce((all, result) => all.concat(result.data), [] as ConsoleUser[]),
+    );
+  }
+
+  invite(request: InviteRequest): Observable<ConsoleUser> {
+    return this.http.post<ConsoleUser | { user: ConsoleUser }>('/v1/users', request).pipe(map(unwrapUser));
+  }
+
+  update(id: string, changes: UserChanges): Observable<ConsoleUser> {
+    return this.http
+      .patch<ConsoleUser | { user: ConsoleUser }>(`/v1/users/${encodeURIComponent(id)}`, changes)
+      .pipe(map(unwrapUser));
+  }
+
+  outbox(): Observable<OutboxMessage[]> {
+    return this.http.get<{ data: OutboxMessage[] }>('/v1/outbox').pipe(map((body) => body.data));
+  }
+}
+
+function unwrapUser(body: ConsoleUser | { user: ConsoleUser }): ConsoleUser {
+  return 'user' in body ? body.user : body;
+}
