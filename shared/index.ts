@@ -10,3 +10,4 @@ export * from './filters/biquad-design';
 export * from './filters/response';
 export * from './filters/crossover';
 export * from './bass-management/bass-management';
+export * from './filters/filter-set';

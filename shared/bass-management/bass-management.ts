@@ -56,9 +56,14 @@ export interface BassManagementChannelResult {
 
 export interface SubwooferInput {
   label: string;
-  /** Gain of this channel into the summed feed, dB. */
+  /** Gain of this channel into the subwoofer feed, dB. */
   gainDb: number;
-  /** Low-pass on this input, when it differs from the subwoofer's shared low-pass (per-channel crossover). */
+  /**
+   * How the input reaches the subwoofer: `sharedLowPass` — summed, then through `subwoofer.lowPass`;
+   * `ownLowPass` — through its own `lowPass` (a per-channel crossover), then added after the shared
+   * low-pass; `direct` — added without a low-pass (LFE, band-limited at the source).
+   */
+  route: 'sharedLowPass' | 'ownLowPass' | 'direct';
   lowPass?: FilterPath;
 }
 
@@ -67,7 +72,7 @@ export interface BassManagementPlan {
   channels: BassManagementChannelResult[];
   subwoofer: {
     count: number;
-    /** Low-pass on the summed feed (the request's crossover). */
+    /** Low-pass on the sum of the `sharedLowPass` inputs (the request's crossover). */
     lowPass: FilterPath;
     inputs: SubwooferInput[];
     /** Gain from the summed feed to each subwoofer, dB: −20·log10(count). */
@@ -81,8 +86,8 @@ export interface BassManagementPlan {
 
 /**
  * Bass management: every `bassManaged` channel gets the crossover's high-pass and feeds the
- * subwoofer through its low-pass at 0 dB; channels labelled `LFE`, `LFE1`, `LFE2`... feed it at
- * `lfeGainDb`. `headroomDb = 20·log10(Σ 10^(gain_i/20))` over all inputs is the level the summed
+ * subwoofer through the matching low-pass at 0 dB; channels labelled `LFE`, `LFE1`, `LFE2`... feed it
+ * directly (band-limited at the source) at `lfeGainDb`. `headroomDb = 20·log10(Σ 10^(gain_i/20))` over all inputs is the level the summed
  * feed can reach above a single full-scale channel when every input carries the same in-phase
  * signal (coherent worst case; e.g. 7 managed channels + LFE at +10 dB → 20.14 dB).
  *
@@ -128,7 +133,7 @@ export function planBassManagement(input: BassManagementInput): BassManagementPl
         );
       }
       results.push({ label: channel.label, role: 'lfe' });
-      inputs.push({ label: channel.label, gainDb: lfeGainDb });
+      inputs.push({ label: channel.label, gainDb: lfeGainDb, route: 'direct' });
       return;
     }
     if (!channel.bassManaged) {
@@ -154,7 +159,9 @@ export function planBassManagement(input: BassManagementInput): BassManagementPl
     inputs.push({
       label: channel.label,
       gainDb: 0,
-      ...(own ? { lowPass: { ...spec, sections: crossover.lowPass.sections } } : {}),
+      ...(own
+        ? { route: 'ownLowPass' as const, lowPass: { ...spec, sections: crossover.lowPass.sections } }
+        : { route: 'sharedLowPass' as const }),
     });
     if (crossover.frequencyHz > LOCALISATION_WARNING_HZ) {
       warnings.push({

@@ -1,8 +1,14 @@
-import { CalculationInputError, requireInRange, requireInteger } from '../errors';
+import { CalculationInputError, requireInRange, requireInteger, withFieldPrefix } from '../errors';
 import type { CalculationWarning } from '../notices';
-import { requireSampleRate } from '../units/sample-rate';
+import { DEFAULT_SAMPLE_RATE_HZ, requireSampleRate } from '../units/sample-rate';
 import { designBiquad, FILTER_LIMITS, type BiquadSection } from './biquad-design';
-import { cascadeResponse, parallelResponse, type CascadeResponse } from './response';
+import {
+  cascadeResponse,
+  parallelResponse,
+  responseGrid,
+  type CascadeResponse,
+  type ResponseGridSpec,
+} from './response';
 
 export type CrossoverFamily = 'linkwitzRiley' | 'butterworth';
 export type Polarity = 'normal' | 'inverted';
@@ -171,4 +177,35 @@ function requireCrossoverFrequency(frequencyHz: number, fs: number): number {
     'frequencyHz',
     '/frequencyHz',
   );
+}
+
+export interface CrossoverRequest extends CrossoverSpec {
+  sampleRateHz?: number;
+  response?: ResponseGridSpec;
+}
+
+export interface CrossoverPlan extends Crossover {
+  sampleRateHz: number;
+  response?: CrossoverResponse & { frequenciesHz: number[] };
+}
+
+/**
+ * designCrossover at `sampleRateHz` (48000 when absent), with the responses of both outputs and of
+ * their sum on the requested grid.
+ */
+export function planCrossover(input: CrossoverRequest): CrossoverPlan {
+  const fs = requireSampleRate(input.sampleRateHz ?? DEFAULT_SAMPLE_RATE_HZ);
+  const crossover = designCrossover(
+    { family: input.family, order: input.order, frequencyHz: input.frequencyHz },
+    fs,
+  );
+  if (input.response === undefined) return { ...crossover, sampleRateHz: fs };
+  const frequenciesHz = withFieldPrefix('/response', () =>
+    responseGrid(input.response as ResponseGridSpec, fs),
+  );
+  return {
+    ...crossover,
+    sampleRateHz: fs,
+    response: { frequenciesHz, ...crossoverResponse(crossover, frequenciesHz, fs) },
+  };
 }

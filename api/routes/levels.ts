@@ -1,0 +1,11 @@
+import { Router } from 'express';
+import { computeLevelTrims, type LevelInput } from '../../shared/level/level-trims';
+import { requirePermission } from '../auth/permissions';
+import { validate } from '../http/validate';
+
+/** POST /v1/levels: per-channel trims to a reference level. */
+export const levelsRouter = Router();
+
+levelsRouter.post('/levels', requirePermission('calculate'), validate('computeLevels'), (req, res) => {
+  res.json(computeLevelTrims(req.valid.body as LevelInput));
+});
