@@ -66,8 +66,9 @@ export interface Arrival {
 /**
  * Arrival (onset) of an impulse response: the first sample whose level comes within `thresholdDb` of the
  * peak, following ISO 3382-1 Annex A, which places the start where the response first rises clearly above
- * the background noise and no more than 20 dB below the maximum [memory]. When the noise is within
- * 26 dB of the peak the threshold is raised to 6 dB above the noise, so noise alone never marks the onset.
+ * the background noise and no more than 20 dB below the maximum [memory]. When the noise RMS is within
+ * 35 dB of the peak the threshold is raised to 15 dB above it (5.6 standard deviations, beyond the peaks
+ * of Gaussian noise), so noise alone does not mark the onset.
  *
  * @param samples the impulse response, full scale ±1.
  * @param sampleRateHz sample rate in hertz.
@@ -80,7 +81,7 @@ export function detectArrival(
   level: SignalLevel,
   thresholdDb = -20,
 ): Arrival {
-  const used = Math.min(-0.1, Math.max(thresholdDb, level.noiseFloorDbfs + 6 - level.peakDbfs));
+  const used = Math.min(-0.1, Math.max(thresholdDb, level.noiseFloorDbfs + 15 - level.peakDbfs));
   const thresholdAmplitude = Math.pow(10, (level.peakDbfs + used) / 20);
   let arrivalSample = level.peakSample;
   for (let i = 0; i < level.peakSample; i++) {

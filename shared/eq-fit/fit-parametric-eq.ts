@@ -46,12 +46,15 @@ export interface EqFitResult {
   /** The measured response with the sections applied, at the measured frequencies. */
   predicted: { frequenciesHz: number[]; magnitudeDb: number[] };
   /**
-   * RMS over the fit band's 1/48-octave grid of (response − target − offset), before and after the EQ, dB,
-   * where the offset is the mean of (response − target) over the band: the error left once the channel's
-   * level is matched. Nulls count.
+   * RMS over the fit band's 1/48-octave grid of (response − target − level), before and after the EQ, dB,
+   * with the level as the fit sets it (see `targetOffsetDb`) before and after. Nulls count.
    */
   residualRmsDb: { before: number; after: number };
-  /** Level of the corrected response relative to the target: mean of (measured + EQ − target), dB. */
+  /**
+   * Level at which the corrected response matches the target, dB: with boosts allowed, the median of
+   * (measured − target) over the band outside nulls; with cuts only, the mean of (measured + EQ − target)
+   * outside nulls, because cuts can only bring the response down to its lower parts.
+   */
   targetOffsetDb: number;
   fromHz: number;
   toHz: number;
@@ -81,15 +84,18 @@ interface Band {
 /**
  * Fits up to `maxBands` peaking filters that bring a measured response toward a target, cut first.
  *
- * 1. The measurement is resampled to a 1/48-octave grid over the fit band (power average over each
- *    1/48-octave window) and level-matched to the target by the mean of (measured − target).
- * 2. Narrow deep dips (≥ 6 dB below target, ≤ 1/3 octave wide at half depth) are taken as nulls: they are
- *    left out of the fit, any boost into them is penalised and then removed, and each one is reported
+ * 1. The measurement is resampled to a 1/48-octave grid over the fit band (power average where the
+ *    measurement is denser than the grid, log-frequency interpolation where it is sparser) and compared
+ *    with the target placed at the measurement's median level over the band.
+ * 2. Narrow deep dips (≥ 6 dB below that level, ≤ 1/3 octave wide at half depth) are taken as nulls: they
+ *    are left out of the fit, any boost into them is penalised and then removed, and each one is reported
  *    with a `nullNotBoosted` warning.
  * 3. Greedy: while bands remain, the largest remaining peak (≥ 1 dB) gets a cut band — f at the peak, gain
  *    = −height, Q from the width at half height `Q = √(2^N)/(2^N − 1)` for N octaves; boosts, when
  *    allowed, are used only when no peak is left. After each band all bands are refined together by
- *    bounded Levenberg–Marquardt on (log f, gain, log Q).
+ *    bounded Levenberg–Marquardt on (log f, gain, log Q). With cuts only, the target's level is left free
+ *    during refinement (the channel trim sets the level), so cuts flatten the response toward its lower
+ *    parts; with boosts allowed it stays at the median, and dips below it are filled up to `maxBoostDb`.
  * 4. Band values are rounded (0.1 Hz, 0.01 dB, 0.001 Q, never past a limit) before the sections are
  *    designed, so the sections match the values a person would type into a processor.
  *
@@ -132,27 +138,43 @@ export function fitParametricEq(input: EqFitInput): EqFitResult {
       '/toHz',
     );
   }
-  const power = magnitudeDb.map((db) => Math.pow(10, db / 10));
-  const measuredOnGrid = Array.from(
-    fractionalOctaveMean(frequenciesHz, power, 1 / GRID_POINTS_PER_OCTAVE, grid),
-    (p) => 10 * Math.log10(p),
-  );
+  const measuredOnGrid = resampleDb(frequenciesHz, magnitudeDb, grid);
   const targetOnGrid = grid.map((f) => targetDb(target, f));
-  const targetOffsetDb = mean(measuredOnGrid.map((m, i) => m - targetOnGrid[i]));
-  const errorDb = Float64Array.from(measuredOnGrid, (m, i) => m - targetOnGrid[i] - targetOffsetDb);
-
-  const nulls = findNulls(grid, errorDb);
+  const departure = measuredOnGrid.map((m, i) => m - targetOnGrid[i]);
+  // The median sets the level: peaks and dips then both count as departures from the typical level.
+  let targetOffsetDb = median(departure);
+  let nulls = findNulls(
+    grid,
+    Float64Array.from(departure, (d) => d - targetOffsetDb),
+  );
   const inNull = new Uint8Array(grid.length);
   for (const dip of nulls) inNull.fill(1, dip.first, dip.last + 1);
+  if (nulls.length > 0) {
+    targetOffsetDb = median(departure.filter((_, i) => !inNull[i]));
+    nulls = findNulls(
+      grid,
+      Float64Array.from(departure, (d) => d - targetOffsetDb),
+    );
+    inNull.fill(0);
+    for (const dip of nulls) inNull.fill(1, dip.first, dip.last + 1);
+  }
+  const errorDb = Float64Array.from(departure, (d) => d - targetOffsetDb);
 
-  const model = new BandModel(grid, fs, errorDb, inNull, {
-    lnFrom: Math.log(fromHz),
-    lnTo: Math.log(toHz),
-    minGain: -maxCutDb,
-    maxGain: maxBoostDb,
-    lnQMin: Math.log(qRange.min),
-    lnQMax: Math.log(qRange.max),
-  });
+  const model = new BandModel(
+    grid,
+    fs,
+    errorDb,
+    inNull,
+    {
+      lnFrom: Math.log(fromHz),
+      lnTo: Math.log(toHz),
+      minGain: -maxCutDb,
+      maxGain: maxBoostDb,
+      lnQMin: Math.log(qRange.min),
+      lnQMax: Math.log(qRange.max),
+    },
+    maxBoostDb === 0,
+  );
   let bands = model.greedyFit(maxBands);
   bands = withoutBoostIntoNulls(model, bands);
   bands = bands
@@ -167,7 +189,8 @@ export function fitParametricEq(input: EqFitInput): EqFitResult {
     sections.length > 0
       ? cascadeResponse(sections, frequenciesHz, fs).magnitudeDb
       : frequenciesHz.map(() => 0);
-  const levelAfter = mean(Array.from(errorDb, (e, i) => e + eqOnGrid[i]));
+  const levelBefore = model.levelOf(new Float64Array(grid.length));
+  const levelAfter = model.levelOf(eqOnGrid);
   const residualAfter = Array.from(errorDb, (e, i) => e + eqOnGrid[i] - levelAfter);
 
   warnings.push(...nullWarnings(nulls, maxBoostDb));
@@ -180,7 +203,7 @@ export function fitParametricEq(input: EqFitInput): EqFitResult {
       frequenciesHz: [...frequenciesHz],
       magnitudeDb: magnitudeDb.map((m, i) => m + eqOnMeasured[i]),
     },
-    residualRmsDb: { before: rms(errorDb), after: rms(residualAfter) },
+    residualRmsDb: { before: rms(errorDb.map((e) => e - levelBefore)), after: rms(residualAfter) },
     targetOffsetDb: targetOffsetDb + levelAfter,
     fromHz,
     toHz,
@@ -209,6 +232,8 @@ class BandModel {
     readonly errorDb: Float64Array,
     readonly inNull: Uint8Array,
     readonly bounds: Bounds,
+    /** When true the target's level follows the corrected response (cuts only); otherwise it is fixed. */
+    readonly freeLevel: boolean,
   ) {
     this.cos1 = Float64Array.from(grid, (f) => Math.cos((2 * Math.PI * f) / sampleRateHz));
     this.cos2 = Float64Array.from(grid, (f) => Math.cos((4 * Math.PI * f) / sampleRateHz));
@@ -316,12 +341,9 @@ class BandModel {
     return current;
   }
 
-  /**
-   * Residuals of a total EQ curve: on fitted points the level-free error (error + EQ minus its mean over
-   * the fitted points, so the overall level is left to the channel trim); on null points a penalty on any
-   * boost.
-   */
-  fillResiduals(eq: Float64Array, out: Float64Array): Float64Array {
+  /** Mean of (error + EQ) over the fitted points: the level a free-level fit matches the target at. */
+  levelOf(eq: ArrayLike<number>): number {
+    if (!this.freeLevel) return 0;
     let sum = 0;
     let count = 0;
     for (let i = 0; i < eq.length; i++) {
@@ -329,7 +351,12 @@ class BandModel {
       sum += this.errorDb[i] + eq[i];
       count++;
     }
-    const level = count > 0 ? sum / count : 0;
+    return count > 0 ? sum / count : 0;
+  }
+
+  /** Residuals of a total EQ curve: the remaining error on fitted points, a penalty on any boost into a null. */
+  fillResiduals(eq: Float64Array, out: Float64Array): Float64Array {
+    const level = this.levelOf(eq);
     for (let i = 0; i < eq.length; i++) {
       out[i] = this.inNull[i] ? NULL_PENALTY * Math.max(0, eq[i]) : this.errorDb[i] + eq[i] - level;
     }
@@ -552,11 +579,33 @@ function fitBand(
   return { fromHz, toHz };
 }
 
-const mean = (values: ArrayLike<number>): number => {
-  let s = 0;
-  for (let i = 0; i < values.length; i++) s += values[i];
-  return s / values.length;
+const median = (values: readonly number[]): number => {
+  const sorted = [...values].sort((a, b) => a - b);
+  const middle = sorted.length >> 1;
+  return sorted.length % 2 ? sorted[middle] : (sorted[middle - 1] + sorted[middle]) / 2;
 };
+
+/**
+ * The measurement on the fit grid: where at least two measured points fall inside a grid point's
+ * 1/48-octave window, their power average; elsewhere dB interpolated linearly in log frequency, which
+ * keeps the shape of resonances sampled more coarsely than the grid.
+ */
+function resampleDb(frequenciesHz: number[], magnitudeDb: number[], grid: number[]): number[] {
+  const power = magnitudeDb.map((db) => Math.pow(10, db / 10));
+  const averaged = fractionalOctaveMean(frequenciesHz, power, 1 / GRID_POINTS_PER_OCTAVE, grid);
+  const halfWindow = Math.pow(2, 1 / (2 * GRID_POINTS_PER_OCTAVE));
+  let k = 0;
+  return grid.map((f, i) => {
+    while (k < frequenciesHz.length - 2 && frequenciesHz[k + 1] <= f) k++;
+    let inside = 0;
+    for (let j = Math.max(0, k - 2); j < Math.min(frequenciesHz.length, k + 4); j++) {
+      if (frequenciesHz[j] >= f / halfWindow && frequenciesHz[j] <= f * halfWindow) inside++;
+    }
+    if (inside >= 2) return 10 * Math.log10(averaged[i]);
+    const t = Math.log(f / frequenciesHz[k]) / Math.log(frequenciesHz[k + 1] / frequenciesHz[k]);
+    return magnitudeDb[k] + t * (magnitudeDb[k + 1] - magnitudeDb[k]);
+  });
+}
 
 const rms = (values: ArrayLike<number>): number => {
   let s = 0;

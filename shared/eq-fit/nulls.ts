@@ -5,7 +5,7 @@ export interface ResponseNull {
   depthDb: number;
   /** Width where the dip is deeper than half its depth (in dB), octaves. */
   widthOctaves: number;
-  /** Grid indices [first, last] the dip covers. */
+  /** Grid indices [first, last] of the whole dip: where it lies more than 3 dB below the target. */
   first: number;
   last: number;
 }
@@ -53,13 +53,19 @@ export function findNulls(frequenciesHz: readonly number[], errorDb: ArrayLike<n
       last < n - 1 ? Math.sqrt(frequenciesHz[last] * frequenciesHz[last + 1]) : frequenciesHz[last];
     const widthOctaves = Math.log2(upperHz / lowerHz);
     if (widthOctaves <= NULL_MAX_WIDTH_OCTAVES) {
+      // The shoulders belong to the dip too: a boost there would still spend headroom on the cancellation.
+      let outerFirst = first;
+      while (outerFirst > 0 && errorDb[outerFirst - 1] < -NULL_MIN_DEPTH_DB / 2) outerFirst--;
+      let outerLast = last;
+      while (outerLast < n - 1 && errorDb[outerLast + 1] < -NULL_MIN_DEPTH_DB / 2) outerLast++;
       nulls.push({
         frequencyHz: frequenciesHz[bottom],
         depthDb: -errorDb[bottom],
         widthOctaves,
-        first,
-        last,
+        first: outerFirst,
+        last: outerLast,
       });
+      last = outerLast;
     }
     i = Math.max(i, last) + 1;
   }

@@ -1,0 +1,55 @@
+import { expectWithin } from '../filters/test-helpers';
+import { requireTargetCurve, targetDb } from './target-curve';
+
+/** Audio EQ Cookbook low shelf (W3C Note 2021), written here, evaluated digitally at 384 kHz. */
+function cookbookLowShelfDb(f0: number, gainDb: number, f: number, fs = 384000): number {
+  const A = Math.pow(10, gainDb / 40);
+  const w0 = (2 * Math.PI * f0) / fs;
+  const alpha = (Math.sin(w0) / 2) * Math.sqrt((A + 1 / A) * (1 / 1 - 1) + 2);
+  const c = Math.cos(w0);
+  const sq = 2 * Math.sqrt(A) * alpha;
+  const b = [A * (A + 1 - (A - 1) * c + sq), 2 * A * (A - 1 - (A + 1) * c), A * (A + 1 - (A - 1) * c - sq)];
+  const a = [A + 1 + (A - 1) * c + sq, -2 * (A - 1 + (A + 1) * c), A + 1 + (A - 1) * c - sq];
+  const w = (2 * Math.PI * f) / fs;
+  const mag = (k: number[]) =>
+    Math.hypot(
+      k[0] + k[1] * Math.cos(w) + k[2] * Math.cos(2 * w),
+      k[1] * Math.sin(w) + k[2] * Math.sin(2 * w),
+    );
+  return 20 * Math.log10(mag(b) / mag(a));
+}
+
+describe('target curves', () => {
+  it('flat is 0 dB everywhere', () => {
+    for (const f of [20, 1000, 20000]) expect(targetDb({ kind: 'flat' }, f)).toBe(0);
+  });
+
+  it('tilt is a straight line in dB per octave through 0 dB at the pivot (default 1 kHz)', () => {
+    const tilt = { kind: 'tilt', dbPerOctave: -1.5 } as const;
+    expectWithin(targetDb(tilt, 1000), 0, 1e-12, 'pivot');
+    expectWithin(targetDb(tilt, 2000), -1.5, 1e-12, 'one octave up');
+    expectWithin(targetDb(tilt, 31.25), 7.5, 1e-12, 'five octaves down');
+    expectWithin(targetDb({ kind: 'tilt', dbPerOctave: 1, pivotHz: 100 }, 400), 2, 1e-12, 'pivot 100 Hz');
+  });
+
+  it('lowFrequencyLift matches a cookbook low shelf (S = 1): full gain at DC, half at the corner, 0 dB far above', () => {
+    const lift = { kind: 'lowFrequencyLift', gainDb: 6, cornerHz: 120 } as const;
+    expectWithin(targetDb(lift, 0.001), 6, 1e-6, 'DC');
+    expectWithin(targetDb(lift, 120), 3, 1e-9, 'corner');
+    expectWithin(targetDb(lift, 20000), 0, 1e-3, 'far above');
+    for (const f of [10, 40, 80, 120, 200, 400, 1000]) {
+      // At 384 kHz the bilinear warping below 1 kHz is under 0.01 % in frequency.
+      expectWithin(targetDb(lift, f), cookbookLowShelfDb(120, 6, f), 0.005, `${f} Hz`);
+    }
+  });
+
+  it.each([
+    [{ kind: 'tilt', dbPerOctave: 7 }, '/target/dbPerOctave'],
+    [{ kind: 'tilt', dbPerOctave: 1, pivotHz: 5 }, '/target/pivotHz'],
+    [{ kind: 'lowFrequencyLift', gainDb: 30, cornerHz: 100 }, '/target/gainDb'],
+    [{ kind: 'lowFrequencyLift', gainDb: 3, cornerHz: 5000 }, '/target/cornerHz'],
+    [{ kind: 'bass' }, '/target/kind'],
+  ])('refuses %j, naming %s', (curve, field) => {
+    expect(() => requireTargetCurve(curve as never)).toThrow(expect.objectContaining({ field }));
+  });
+});
