@@ -8,6 +8,7 @@ import { notFoundHandler, problemHandler } from './http/problem';
 import { getContract } from './http/validate';
 import { docsRouter } from './routes/docs';
 import { healthRouter } from './routes/health';
+import { sessionRouter } from './routes/session';
 import { v1Router } from './routes';
 import type { Services } from './services';
 
@@ -42,6 +43,7 @@ export function createApp(services: Services): Express {
 
   app.use(healthRouter(services.db));
   app.use(docsRouter(getContract().document));
+  app.use('/auth', sessionRouter(services));
 
   app.use('/v1', authenticate(services.keys, services.sessionPrincipal), v1Router(services));
   app.use('/v1', notFoundHandler);

@@ -3,6 +3,8 @@ import { KeyStore } from './auth/key-store';
 import type { SessionPrincipalResolver } from './auth/authenticate';
 import { openDatabase, type Database } from './db/database';
 import { createLogger, type Logger } from './logger';
+import { createMailer, type Mailer } from './mail';
+import { createConsoleSessions, type ConsoleSessions } from './session';
 
 /** What the routers need, built once per process (or per test). */
 export interface Services {
@@ -12,19 +14,28 @@ export interface Services {
   keys: KeyStore;
   /** Resolves a console session to a principal; the session module replaces the default. */
   sessionPrincipal: SessionPrincipalResolver;
+  /** Outgoing mail (invitations, key notices); in development and tests also the outbox. */
+  mail: Mailer;
+  /** Console sign-in: express-session on SQLite and passport-local. */
+  sessions: ConsoleSessions;
   /** Work to run on shutdown, in order, before the database closes (flushing metered usage...). */
   onClose: Array<() => Promise<void>>;
 }
 
 export async function createServices(config: Config): Promise<Services> {
   const db = await openDatabase(config.databaseUrl);
+  const logger = createLogger(config.logLevel);
+  const mail = await createMailer(config, logger);
+  const sessions = createConsoleSessions({ config, db });
   return {
     config,
     db,
-    logger: createLogger(config.logLevel),
+    logger,
     keys: new KeyStore(db.models, config.keyHashSecret),
-    sessionPrincipal: async () => null,
-    onClose: [],
+    sessionPrincipal: sessions.principal,
+    mail,
+    sessions,
+    onClose: [async () => sessions.close(), () => mail.close()],
   };
 }
 

@@ -1,0 +1,81 @@
+import { Router } from 'express';
+import { ProblemError } from '../http/problem';
+import { validate } from '../http/validate';
+import type { Services } from '../services';
+import { consoleRequestGuard, createSignInThrottles, toConsoleUser, type ConsoleUser } from '../session';
+import { normalizeEmail } from '../session/credentials';
+import { recordSignedIn, recordSignedOut, recordSignInFailed } from '../session/sign-in-audit';
+import { acceptInvitation } from '../users';
+
+// One answer for an unknown address, a wrong password, an account not yet activated and a disabled one.
+const signInRefused = (): ProblemError =>
+  new ProblemError({
+    status: 401,
+    title: 'Sign-in failed',
+    detail: 'The e-mail address or the password is wrong.',
+    type: 'sign-in-failed',
+  });
+
+const notSignedIn = (): ProblemError =>
+  new ProblemError({
+    status: 401,
+    title: 'Not signed in',
+    detail: 'Sign in with POST /auth/session.',
+    type: 'not-signed-in',
+  });
+
+/** Console sign-in under `/auth` (outside `/v1`): sign in, who am I, sign out, take up an invitation. */
+export function sessionRouter(services: Services): Router {
+  const { db, sessions } = services;
+  const throttles = createSignInThrottles();
+  const router = Router();
+  router.use(consoleRequestGuard(services.config.publicUrl));
+  router.use(sessions.middleware);
+
+  router.get('/session', validate('getSession'), (req, res) => {
+    if (!req.user) throw notSignedIn();
+    res.json({ user: req.user });
+  });
+
+  router.post(
+    '/session',
+    validate('signIn'),
+    throttles.perAddress,
+    throttles.perAccount,
+    async (req, res) => {
+      const check = await sessions.checkPassword(req, res);
+      if ('failure' in check) {
+        const { email } = req.valid.body as { email: string };
+        await recordSignInFailed(db, req, check.failure, normalizeEmail(email));
+        throw signInRefused();
+      }
+      await sessions.signIn(req, check.user);
+      await recordSignedIn(db, req, check.user.id);
+      res.json({ user: check.user });
+    },
+  );
+
+  router.delete('/session', validate('signOut'), async (req, res) => {
+    const user = req.user as ConsoleUser | undefined;
+    if (user) {
+      await recordSignedOut(db, req, user.id);
+      await sessions.signOut(req, res);
+    }
+    res.status(204).end();
+  });
+
+  router.post(
+    '/invitations/accept',
+    validate('acceptInvitation'),
+    throttles.invitationPerAddress,
+    async (req, res) => {
+      const { token, password } = req.valid.body as { token: string; password: string };
+      const user = toConsoleUser(await acceptInvitation(services, req, token, password));
+      await sessions.signIn(req, user);
+      await recordSignedIn(db, req, user.id);
+      res.json({ user });
+    },
+  );
+
+  return router;
+}
