@@ -2,9 +2,16 @@ import { Router } from 'express';
 import { ProblemError } from '../http/problem';
 import { validate } from '../http/validate';
 import type { Services } from '../services';
-import { consoleRequestGuard, createSignInThrottles, toConsoleUser, type ConsoleUser } from '../session';
-import { normalizeEmail } from '../session/credentials';
-import { recordSignedIn, recordSignedOut, recordSignInFailed } from '../session/sign-in-audit';
+import {
+  consoleRequestGuard,
+  createSignInThrottles,
+  normalizeEmail,
+  recordSignedIn,
+  recordSignedOut,
+  recordSignInFailed,
+  toConsoleUser,
+  type ConsoleUser,
+} from '../session';
 import { acceptInvitation } from '../users';
 
 // One answer for an unknown address, a wrong password, an account not yet activated and a disabled one.

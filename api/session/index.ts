@@ -10,3 +10,4 @@ export {
 export { consoleRequestGuard, CONSOLE_HEADER, CONSOLE_HEADER_VALUE } from './console-request-guard';
 export { createSignInThrottles, DEFAULT_THROTTLE_LIMITS, type ThrottleLimits } from './sign-in-throttle';
 export { normalizeEmail } from './credentials';
+export { recordSignedIn, recordSignedOut, recordSignInFailed } from './sign-in-audit';
