@@ -26,6 +26,7 @@ export async function createServices(config: Config): Promise<Services> {
   const db = await openDatabase(config.databaseUrl);
   const logger = createLogger(config.logLevel);
   const mail = await createMailer(config, logger);
+  logger.info(`mail goes to ${mail.description}`);
   const sessions = createConsoleSessions({ config, db });
   return {
     config,
