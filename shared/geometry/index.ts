@@ -12,3 +12,4 @@ export {
   type RoomDimensions,
   type SpeakerGeometry,
 } from './analyse-geometry';
+export { checkRoomDefinition, roomGeometry, type RoomDefinition, type RoomLoudspeaker } from './room';

@@ -2,7 +2,10 @@ import type { Sequelize } from 'sequelize';
 import { initApiKey } from './api-key';
 import { initAuditEvent } from './audit-event';
 import { initInvitation } from './invitation';
+import { initRoom } from './room';
 import { initSession } from './session';
+import { initTuning } from './tuning';
+import { initTuningVersion } from './tuning-version';
 import { initUsageBucket } from './usage-bucket';
 import { initUser } from './user';
 
@@ -15,6 +18,9 @@ export function defineModels(sequelize: Sequelize) {
     AuditEvent: initAuditEvent(sequelize),
     Invitation: initInvitation(sequelize),
     Session: initSession(sequelize),
+    Room: initRoom(sequelize),
+    Tuning: initTuning(sequelize),
+    TuningVersion: initTuningVersion(sequelize),
   };
   return models;
 }

@@ -1,0 +1,62 @@
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type Sequelize,
+} from 'sequelize';
+
+export interface StoredLoudspeaker {
+  id: string;
+  name?: string;
+  x: number;
+  y: number;
+  z: number;
+}
+
+export interface StoredLimits {
+  delayMaxMs?: number;
+  trimMinDb?: number;
+  trimMaxDb?: number;
+  eqBandsPerChannel?: number;
+  eqMaxBoostDb?: number;
+  eqMaxCutDb?: number;
+}
+
+/** A listening room: dimensions, listening position, loudspeakers and the processor's limits. */
+export class Room extends Model<InferAttributes<Room>, InferCreationAttributes<Room>> {
+  declare id: string;
+  declare ownerId: string;
+  declare name: string;
+  declare layoutId: string;
+  declare dimensions: { widthM: number; lengthM: number; heightM: number };
+  declare listener: { x: number; y: number; z: number };
+  declare loudspeakers: StoredLoudspeaker[];
+  declare limits: StoredLimits | null;
+  declare sampleRateHz: number;
+  declare notes: string | null;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+}
+
+export function initRoom(sequelize: Sequelize): typeof Room {
+  Room.init(
+    {
+      id: { type: DataTypes.STRING(40), primaryKey: true },
+      ownerId: { type: DataTypes.STRING(40), allowNull: false },
+      name: { type: DataTypes.STRING(120), allowNull: false },
+      layoutId: { type: DataTypes.STRING(32), allowNull: false },
+      dimensions: { type: DataTypes.JSON, allowNull: false },
+      listener: { type: DataTypes.JSON, allowNull: false },
+      loudspeakers: { type: DataTypes.JSON, allowNull: false },
+      limits: { type: DataTypes.JSON, allowNull: true },
+      sampleRateHz: { type: DataTypes.INTEGER, allowNull: false },
+      notes: { type: DataTypes.TEXT, allowNull: true },
+      createdAt: DataTypes.DATE,
+      updatedAt: DataTypes.DATE,
+    },
+    { sequelize, tableName: 'rooms' },
+  );
+  return Room;
+}

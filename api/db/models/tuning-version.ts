@@ -1,0 +1,53 @@
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type Sequelize,
+} from 'sequelize';
+import type { TuningChannel, TuningSubwoofer } from '../../../shared/plan/tuning';
+
+export type TuningOrigin = 'settings' | 'plan' | 'edit' | 'restore' | 'duplicate';
+
+/** One immutable version of a tuning: written once, never updated. */
+export class TuningVersion extends Model<
+  InferAttributes<TuningVersion>,
+  InferCreationAttributes<TuningVersion>
+> {
+  declare id: string;
+  declare tuningId: string;
+  declare version: number;
+  declare name: string;
+  declare notes: string | null;
+  declare sampleRateHz: number;
+  declare channels: TuningChannel[];
+  declare subwoofer: TuningSubwoofer | null;
+  declare origin: TuningOrigin;
+  declare restoredFromVersion: number | null;
+  declare createdByUserId: string | null;
+  declare createdByKeyId: string | null;
+  declare createdAt: CreationOptional<Date>;
+}
+
+export function initTuningVersion(sequelize: Sequelize): typeof TuningVersion {
+  TuningVersion.init(
+    {
+      id: { type: DataTypes.STRING(40), primaryKey: true },
+      tuningId: { type: DataTypes.STRING(40), allowNull: false },
+      version: { type: DataTypes.INTEGER, allowNull: false },
+      name: { type: DataTypes.STRING(120), allowNull: false },
+      notes: { type: DataTypes.TEXT, allowNull: true },
+      sampleRateHz: { type: DataTypes.INTEGER, allowNull: false },
+      channels: { type: DataTypes.JSON, allowNull: false },
+      subwoofer: { type: DataTypes.JSON, allowNull: true },
+      origin: { type: DataTypes.STRING(16), allowNull: false },
+      restoredFromVersion: { type: DataTypes.INTEGER, allowNull: true },
+      createdByUserId: { type: DataTypes.STRING(40), allowNull: true },
+      createdByKeyId: { type: DataTypes.STRING(40), allowNull: true },
+      createdAt: DataTypes.DATE,
+    },
+    { sequelize, tableName: 'tuning_versions', updatedAt: false },
+  );
+  return TuningVersion;
+}
