@@ -3,6 +3,7 @@ import type { Services } from '../services';
 import { geometryRouter } from './geometry';
 import { layoutsRouter } from './layouts';
 import { outboxRouter } from './outbox';
+import { roomsRouter } from './rooms';
 import { usersRouter } from './users';
 
 /**
@@ -15,5 +16,6 @@ export function v1Router(services: Services): Router {
   router.use(geometryRouter);
   router.use(usersRouter(services));
   router.use(outboxRouter(services));
+  router.use(roomsRouter(services));
   return router;
 }
