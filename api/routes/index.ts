@@ -1,6 +1,11 @@
 import { Router } from 'express';
 import type { Services } from '../services';
+import { bassManagementRouter } from './bass-management';
+import { biquadsRouter } from './biquads';
+import { crossoversRouter } from './crossovers';
+import { delaysRouter } from './delays';
 import { geometryRouter } from './geometry';
+import { levelsRouter } from './levels';
 import { layoutsRouter } from './layouts';
 import { outboxRouter } from './outbox';
 import { roomsRouter } from './rooms';
@@ -14,6 +19,11 @@ export function v1Router(services: Services): Router {
   const router = Router();
   router.use(layoutsRouter);
   router.use(geometryRouter);
+  router.use(delaysRouter);
+  router.use(levelsRouter);
+  router.use(biquadsRouter);
+  router.use(crossoversRouter);
+  router.use(bassManagementRouter);
   router.use(usersRouter(services));
   router.use(outboxRouter(services));
   router.use(roomsRouter(services));
