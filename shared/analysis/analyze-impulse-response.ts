@@ -60,6 +60,8 @@ const GRID_POINTS_PER_OCTAVE = 48;
 const SILENCE_DBFS = -120;
 /** Octave bands 63 Hz..8 kHz (band numbers −4..3), the extended range of ISO 3382-1 [memory]. */
 const OCTAVE_BAND_INDICES = [-4, -3, -2, -1, 0, 1, 2, 3];
+/** Longest stretch transformed for the frequency response: 2^20 samples (21.8 s at 48 kHz, 5.5 s at 192 kHz). */
+const MAX_RESPONSE_SAMPLES = 1 << 20;
 /** Modes are listed up to the Schroeder frequency, or this when it is unknown. */
 const DEFAULT_MODES_UP_TO_HZ = 300;
 
@@ -118,13 +120,17 @@ export function analyzeImpulseResponse(
       message: `Impulse-to-noise ratio ${broadband.impulseToNoiseDb.toFixed(1)} dB is too small for ${broadband.insufficientRange.join(', ')} (EDT needs 20 dB, T20 35 dB, T30 45 dB).`,
     });
   }
-  const bands = octaveBandDecays(samples, sampleRateHz, arrival.arrivalSample, warnings);
+  // Bands decay into the noise near where the broadband decay does; twice that span (at least a second
+  // more) keeps enough noise tail for each band's own noise estimate and bounds the work on long files.
+  const crossing = Math.round(broadband.truncationS * sampleRateHz);
+  const bandEnd = Math.min(
+    samples.length,
+    arrival.arrivalSample + Math.max(2 * crossing, crossing + sampleRateHz),
+  );
+  const bands = octaveBandDecays(samples.subarray(0, bandEnd), sampleRateHz, arrival.arrivalSample, warnings);
 
   // The response is taken up to where the decay meets the noise, so the noise tail does not fill it in.
-  const end = Math.min(
-    samples.length,
-    arrival.arrivalSample + Math.round(broadband.truncationS * sampleRateHz),
-  );
+  const end = Math.min(samples.length, arrival.arrivalSample + crossing, MAX_RESPONSE_SAMPLES);
   const spectrum = realSpectrum(fadeOut(samples, end, sampleRateHz), sampleRateHz);
   const grid = logFrequencyGrid(20, Math.min(20000, sampleRateHz / 2), GRID_POINTS_PER_OCTAVE);
   const frequencyResponse = {

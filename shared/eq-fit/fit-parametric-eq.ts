@@ -70,6 +70,8 @@ const GRID_POINTS_PER_OCTAVE = 48;
 const MIN_CORRECTION_DB = 1;
 /** Peaks left this high when the bands run out earn a warning, dB. */
 const REMAINING_PEAK_WARNING_DB = 3;
+/** A dip must be this many times deeper than the highest peak is high before it gets a boost band. */
+const BOOST_PREFERENCE = 2;
 /** Weight of the penalty on any boost the EQ puts into a null. */
 const NULL_PENALTY = 10;
 /** Joint refinement of every band at once up to this many bands; beyond it, band by band. */
@@ -91,8 +93,9 @@ interface Band {
  *    are left out of the fit, any boost into them is penalised and then removed, and each one is reported
  *    with a `nullNotBoosted` warning.
  * 3. Greedy: while bands remain, the largest remaining peak (≥ 1 dB) gets a cut band — f at the peak, gain
- *    = −height, Q from the width at half height `Q = √(2^N)/(2^N − 1)` for N octaves; boosts, when
- *    allowed, are used only when no peak is left. After each band all bands are refined together by
+ *    = −height, Q from the width at half height `Q = √(2^N)/(2^N − 1)` for N octaves; when boosts are
+ *    allowed, a dip gets a boost band instead only when it is twice as deep as the highest peak is high
+ *    (cut first). Q is capped where the measurement is too coarse to show narrower bands. After each band all bands are refined together by
  *    bounded Levenberg–Marquardt on (log f, gain, log Q). With cuts only, the target's level is left free
  *    during refinement (the channel trim sets the level), so cuts flatten the response toward its lower
  *    parts; with boosts allowed it stays at the median, and dips below it are filled up to `maxBoostDb`.
@@ -130,6 +133,7 @@ export function fitParametricEq(input: EqFitInput): EqFitResult {
   const qRange = requireQRange(input.qRange);
   const warnings: EqFitWarning[] = [];
   const { fromHz, toHz } = fitBand(input, frequenciesHz, fs, warnings);
+  const qMax = resolutionLimitedQ(frequenciesHz, fromHz, toHz, qRange, warnings);
 
   const grid = logFrequencyGrid(fromHz, toHz, GRID_POINTS_PER_OCTAVE);
   if (grid.length < 8) {
@@ -171,14 +175,14 @@ export function fitParametricEq(input: EqFitInput): EqFitResult {
       minGain: -maxCutDb,
       maxGain: maxBoostDb,
       lnQMin: Math.log(qRange.min),
-      lnQMax: Math.log(qRange.max),
+      lnQMax: Math.log(qMax),
     },
     maxBoostDb === 0,
   );
   let bands = model.greedyFit(maxBands);
   bands = withoutBoostIntoNulls(model, bands);
   bands = bands
-    .map((b) => roundBand(b, fromHz, toHz, maxCutDb, maxBoostDb, qRange))
+    .map((b) => roundBand(b, fromHz, toHz, maxCutDb, maxBoostDb, { min: qRange.min, max: qMax }))
     .filter((b) => Math.abs(b.gainDb) >= 0.1)
     .sort((a, b) => a.frequencyHz - b.frequencyHz);
 
@@ -289,10 +293,12 @@ class BandModel {
       if (dip < 0 || residual[i] < residual[dip]) dip = i;
     }
     if (peak < 0) return null;
-    let centre: number;
-    if (residual[peak] >= MIN_CORRECTION_DB && this.bounds.minGain < 0) centre = peak;
-    else if (-residual[dip] >= MIN_CORRECTION_DB && this.bounds.maxGain > 0) centre = dip;
-    else return null;
+    const peakWorth = this.bounds.minGain < 0 && residual[peak] >= MIN_CORRECTION_DB ? residual[peak] : 0;
+    // Cut first: a dip earns a boost band only when it is twice as deep as the highest peak is high.
+    const dipWorth =
+      this.bounds.maxGain > 0 && -residual[dip] >= MIN_CORRECTION_DB ? -residual[dip] / BOOST_PREFERENCE : 0;
+    if (peakWorth === 0 && dipWorth === 0) return null;
+    const centre = peakWorth >= dipWorth ? peak : dip;
 
     const height = residual[centre];
     let lo = centre;
@@ -577,6 +583,35 @@ function fitBand(
     });
   }
   return { fromHz, toHz };
+}
+
+/**
+ * The highest Q the measurement can support: a band narrower than two of its point spacings cannot be told
+ * from the measurement's own sampling. Q of a bandwidth of N octaves is `√(2^N)/(2^N − 1)` (Audio EQ
+ * Cookbook). Returns qRange.max unless the data is coarser, then warns `qLimitedByResolution`.
+ */
+function resolutionLimitedQ(
+  frequenciesHz: number[],
+  fromHz: number,
+  toHz: number,
+  qRange: { min: number; max: number },
+  warnings: EqFitWarning[],
+): number {
+  const spacings: number[] = [];
+  for (let i = 1; i < frequenciesHz.length; i++) {
+    if (frequenciesHz[i] > fromHz && frequenciesHz[i - 1] < toHz) {
+      spacings.push(Math.log2(frequenciesHz[i] / frequenciesHz[i - 1]));
+    }
+  }
+  const ratio = Math.pow(2, 2 * median(spacings));
+  const supported = Math.sqrt(ratio) / (ratio - 1);
+  if (supported >= qRange.max) return qRange.max;
+  const limited = Math.max(qRange.min, Math.floor(supported * 100) / 100);
+  warnings.push({
+    code: 'qLimitedByResolution',
+    message: `The measurement has about ${(1 / median(spacings)).toFixed(1)} points per octave, so Q is limited to ${limited} (a band narrower than two point spacings cannot be resolved).`,
+  });
+  return limited;
 }
 
 const median = (values: readonly number[]): number => {

@@ -1,0 +1,192 @@
+import request from 'supertest';
+import { expectToMatchContract } from '../support/contract';
+import { createTestContext, type TestContext } from '../support/test-context';
+import { expectProblem, poster } from './calculation-helpers';
+
+let ctx: TestContext;
+beforeAll(async () => {
+  ctx = await createTestContext();
+});
+afterAll(async () => {
+  await ctx.close();
+});
+
+const post = poster(() => ctx, '/v1/eq/fit');
+
+/** Peaking-section magnitude from the Audio EQ Cookbook (W3C Note 2021), written here. */
+function cookbookPeakDb(f0: number, gainDb: number, q: number, f: number, fs: number): number {
+  const A = Math.pow(10, gainDb / 40);
+  const w0 = (2 * Math.PI * f0) / fs;
+  const alpha = Math.sin(w0) / (2 * q);
+  const w = (2 * Math.PI * f) / fs;
+  const mag = (c: number[]) =>
+    Math.hypot(
+      c[0] + c[1] * Math.cos(w) + c[2] * Math.cos(2 * w),
+      c[1] * Math.sin(w) + c[2] * Math.sin(2 * w),
+    );
+  return (
+    20 *
+    Math.log10(
+      mag([1 + alpha * A, -2 * Math.cos(w0), 1 - alpha * A]) /
+        mag([1 + alpha / A, -2 * Math.cos(w0), 1 - alpha / A]),
+    )
+  );
+}
+
+/** |H| in dB of one returned section, from its coefficients. */
+function sectionDb(
+  s: { b0: number; b1: number; b2: number; a1: number; a2: number },
+  f: number,
+  fs: number,
+): number {
+  const w = (2 * Math.PI * f) / fs;
+  const n = Math.hypot(
+    s.b0 + s.b1 * Math.cos(w) + s.b2 * Math.cos(2 * w),
+    s.b1 * Math.sin(w) + s.b2 * Math.sin(2 * w),
+  );
+  const d = Math.hypot(
+    1 + s.a1 * Math.cos(w) + s.a2 * Math.cos(2 * w),
+    s.a1 * Math.sin(w) + s.a2 * Math.sin(2 * w),
+  );
+  return 20 * Math.log10(n / d);
+}
+
+const freqs = Array.from({ length: 113 }, (_, k) => 20 * Math.pow(25, k / 112));
+const measured = (peaks: Array<[number, number, number]>, fs: number) =>
+  freqs.map((f) => 80 + peaks.reduce((db, [f0, g, q]) => db + cookbookPeakDb(f0, g, q, f, fs), 0));
+
+describe('POST /v1/eq/fit', () => {
+  it('flattens known resonances with cut bands whose sections are the cookbook design of the bands', async () => {
+    const fs = 96000;
+    const res = await post({
+      sampleRateHz: fs,
+      measured: {
+        frequenciesHz: freqs,
+        magnitudeDb: measured(
+          [
+            [45, 8, 6],
+            [88, 6, 4],
+            [300, 5, 5],
+          ],
+          fs,
+        ),
+      },
+      maxBands: 4,
+      fromHz: 20,
+      toHz: 500,
+    });
+    expect(res.status).toBe(200);
+    expectToMatchContract('fitEq', 200, res.body);
+    expect(res.body.residualRmsDb.after).toBeLessThan(0.3);
+    expect(res.body.cautions).toEqual([]);
+    res.body.bands.forEach((band: { frequencyHz: number; gainDb: number; q: number }, i: number) => {
+      expect(band.gainDb).toBeLessThan(0);
+      expect(band.gainDb).toBeGreaterThanOrEqual(-12);
+      for (const f of [band.frequencyHz, 100, 1000]) {
+        expect(sectionDb(res.body.sections[i], f, fs)).toBeCloseTo(
+          cookbookPeakDb(band.frequencyHz, band.gainDb, band.q, f, fs),
+          9,
+        );
+      }
+    });
+  });
+
+  it('adds a boost caution when it boosts', async () => {
+    const res = await post({
+      measured: {
+        frequenciesHz: freqs,
+        magnitudeDb: measured(
+          [
+            [60, 7, 5],
+            [150, -6, 1.5],
+          ],
+          48000,
+        ),
+      },
+      maxBands: 4,
+      maxBoostDb: 6,
+    });
+    expect(res.status).toBe(200);
+    expect(res.body.sampleRateHz).toBe(48000);
+    expect(res.body.bands.some((b: { gainDb: number }) => b.gainDb > 0)).toBe(true);
+    expect(res.body.cautions.map((c: { code: string }) => c.code)).toEqual(['eqBoost']);
+  });
+
+  it('warns instead of boosting into a deep narrow null', async () => {
+    const res = await post({
+      measured: {
+        frequenciesHz: freqs,
+        magnitudeDb: measured(
+          [
+            [60, 7, 5],
+            [110, -16, 10],
+          ],
+          48000,
+        ),
+      },
+      maxBands: 4,
+      maxBoostDb: 6,
+    });
+    expect(res.status).toBe(200);
+    expect(res.body.warnings.map((w: { code: string }) => w.code)).toContain('nullNotBoosted');
+  });
+
+  it.each([
+    ['no maxBands', { measured: { frequenciesHz: [20, 40], magnitudeDb: [0, 0] } }, 400, '/body/maxBands'],
+    [
+      'too many bands',
+      { measured: { frequenciesHz: [20, 40], magnitudeDb: [0, 0] }, maxBands: 65 },
+      400,
+      '/body/maxBands',
+    ],
+    [
+      'an unknown target',
+      { measured: { frequenciesHz: [20, 40], magnitudeDb: [0, 0] }, maxBands: 2, target: { kind: 'smile' } },
+      400,
+      '/body/target',
+    ],
+    [
+      'an extra field',
+      { measured: { frequenciesHz: [20, 40], magnitudeDb: [0, 0] }, maxBands: 2, boost: true },
+      400,
+      '/body/boost',
+    ],
+    [
+      'mismatched arrays',
+      { measured: { frequenciesHz: [20, 40, 80], magnitudeDb: [0, 0] }, maxBands: 2 },
+      422,
+      '/body/measured/magnitudeDb',
+    ],
+    [
+      'descending frequencies',
+      { measured: { frequenciesHz: [40, 20], magnitudeDb: [0, 0] }, maxBands: 2 },
+      422,
+      '/body/measured/frequenciesHz/1',
+    ],
+    [
+      'qRange min above max',
+      {
+        measured: { frequenciesHz: [20, 400], magnitudeDb: [0, 0] },
+        maxBands: 2,
+        qRange: { min: 5, max: 2 },
+      },
+      422,
+      '/body/qRange/max',
+    ],
+    [
+      'a fit band outside the measurement',
+      { measured: { frequenciesHz: [20, 400], magnitudeDb: [0, 0] }, maxBands: 2, fromHz: 1000, toHz: 2000 },
+      422,
+      '/body/fromHz',
+    ],
+  ])('refuses %s', async (_name, body, status, pointer) => {
+    expectProblem(await post(body), status, pointer);
+  });
+
+  it('requires a key', async () => {
+    const res = await request(ctx.app)
+      .post('/v1/eq/fit')
+      .send({ measured: { frequenciesHz: [20, 40], magnitudeDb: [0, 0] }, maxBands: 1 });
+    expect(res.status).toBe(401);
+  });
+});
