@@ -68,8 +68,15 @@ export class SessionService {
     );
   }
 
-  acceptInvitation(token: string, password: string): Observable<unknown> {
-    return this.http.post('/auth/invitations/accept', { token, password });
+  /** Sets the password from an invitation; the server signs the new user in at once. */
+  acceptInvitation(token: string, password: string): Observable<SessionUser> {
+    return this.http.post<SessionBody>('/auth/invitations/accept', { token, password }).pipe(
+      map((body) => body.user),
+      tap((user) => {
+        this.current.set(user);
+        this.resolved.set(true);
+      }),
+    );
   }
 
   /** Called when the server says the session has ended (a 401 on a console call). */

@@ -32,22 +32,33 @@ function firstOrder(kind: 'lowPass' | 'highPass'): Section {
 }
 
 describe('curvesFromResult with reported responses', () => {
-  it('takes a biquad cascade’s reported response and does not recompute it', () => {
+  const dense = Array.from({ length: 60 }, (_, i) => 20 * 2 ** (i / 6));
+
+  it('takes a dense reported response as the API computed it', () => {
     const body = {
       sampleRateHz: fs,
       sections: [{ b0: 1, b1: 0, b2: 0, a1: 0, a2: 0 }],
-      response: { frequenciesHz: [100, 1000], magnitudeDb: [-1, -4], phaseDeg: [10, -20] },
+      response: { frequenciesHz: dense, magnitudeDb: dense.map(() => -1), phaseDeg: dense.map(() => 10) },
     };
-    expect(curvesFromResult(body)).toEqual([
-      {
-        label: 'response',
-        frequenciesHz: [100, 1000],
-        magnitudeDb: [-1, -4],
-        phaseDeg: [10, -20],
-        source: 'reported',
-        isSum: false,
-      },
-    ]);
+    const curves = curvesFromResult(body);
+    expect(curves).toHaveLength(1);
+    expect(curves[0]).toMatchObject({ label: 'response', source: 'reported', isSum: false });
+    expect(curves[0].magnitudeDb[0]).toBe(-1);
+  });
+
+  it('redraws a response reported at a few spot frequencies from its sections, densely', () => {
+    const body = {
+      sampleRateHz: fs,
+      sections: [butterworth2('lowpass')],
+      response: { frequenciesHz: [40, 80], magnitudeDb: [0, -3], phaseDeg: [0, -90] },
+    };
+    const [curve] = curvesFromResult(body);
+    expect(curve.source).toBe('computed');
+    expect(curve.frequenciesHz.length).toBeGreaterThan(200);
+    expect(curve.magnitudeDb[curve.frequenciesHz.findIndex((f) => Math.abs(f - fc) < 1e-9)]).toBeCloseTo(
+      -3.0103,
+      3,
+    );
   });
 
   it('names crossover outputs and marks the sum, sharing the grid of the parent object', () => {
@@ -88,14 +99,11 @@ describe('curvesFromResult computing from returned sections', () => {
     const sum = curves[2];
     expect(sum.isSum).toBe(true);
     expect(Math.max(...sum.magnitudeDb.map(Math.abs))).toBeLessThan(1e-9);
-    const { lowPassAtFc, highPassAtFc } = {
-      lowPassAtFc: curvesFromResult({ ...lr4, response: undefined }, { sampleRateHz: fs })[0],
-      highPassAtFc: curves[1],
-    };
-    const index = lowPassAtFc.frequenciesHz.findIndex((f) => Math.abs(f - fc) < 1e-9);
+    const [lowPass, highPass] = curves;
+    const index = lowPass.frequenciesHz.findIndex((f) => Math.abs(f - fc) < 1e-9);
     expect(index).toBeGreaterThan(0);
-    expect(lowPassAtFc.magnitudeDb[index]).toBeCloseTo(-6.0206, 3);
-    expect(highPassAtFc.magnitudeDb[index]).toBeCloseTo(-6.0206, 3);
+    expect(lowPass.magnitudeDb[index]).toBeCloseTo(-6.0206, 3);
+    expect(highPass.magnitudeDb[index]).toBeCloseTo(-6.0206, 3);
   });
 
   it('applies the high-pass polarity: a 2nd-order Linkwitz-Riley sums flat only when inverted', () => {
@@ -112,20 +120,25 @@ describe('curvesFromResult computing from returned sections', () => {
     expect(normal.magnitudeDb[index]).toBeLessThan(-100);
   });
 
-  it('labels per-channel cascades by their channel and finds the sample rate in the request', () => {
+  it('draws identical channel high-passes once, the subwoofer low-pass, and their flat LR4 sum', () => {
+    const highPass = { sections: [butterworth2('highpass'), butterworth2('highpass')], polarity: 'normal' };
     const body = {
       channels: [
-        { channel: 'M+030', highPass: { sections: [butterworth2('highpass')] } },
-        { channel: 'M-030', highPass: { sections: [butterworth2('highpass')] } },
+        { label: 'M+030', highPass },
+        { label: 'M-030', highPass },
+        { label: 'LFE1', role: 'lfe' },
+        { label: 'M+110', highPass: { sections: [butterworth2('highpass')] } },
       ],
-      subwoofer: { lowPass: { sections: [butterworth2('lowpass')] } },
+      subwoofer: { lowPass: { sections: [butterworth2('lowpass'), butterworth2('lowpass')] } },
     };
-    const labels = curvesFromResult(body, { crossover: { sampleRateHz: fs } }).map((curve) => curve.label);
-    expect(labels).toEqual([
-      'channels · M+030 · highPass',
-      'channels · M-030 · highPass',
+    const curves = curvesFromResult(body, { crossover: { sampleRateHz: fs } });
+    expect(curves.map((curve) => curve.label)).toEqual([
+      'highPass: M+030, M-030',
+      'channels · M+110 · highPass',
       'subwoofer · lowPass',
+      'sum: managed channel + subwoofer',
     ]);
+    expect(Math.max(...curves[3].magnitudeDb.map(Math.abs))).toBeLessThan(1e-9);
   });
 
   it('draws nothing when no sample rate is known or nothing is plottable', () => {
@@ -149,7 +162,7 @@ describe('magnitudeRange', () => {
   });
 
   it('shows at most 60 dB below the top so a stop band does not flatten the pass band', () => {
-    expect(magnitudeRange([curve([0, -300])])).toEqual({ min: -57, max: 3 });
+    expect(magnitudeRange([curve([0, -300])])).toEqual({ min: -50, max: 10 });
   });
 });
 
@@ -170,6 +183,19 @@ describe('charts', () => {
       { x: 80, y: -6 },
     ]);
     expect(magnitude.summary).toContain('lowPass: highest 0.0 dB at 40 Hz');
+    const wrapped = curvesFromResult({
+      response: {
+        frequenciesHz: [40, 60, 80, 100],
+        sum: { magnitudeDb: [0, 0, 0, 0], phaseDeg: [-120, -170, 175, 120] },
+      },
+    });
+    expect(phaseChart(wrapped)?.series[0].points).toEqual([
+      { x: 40, y: -120 },
+      { x: 60, y: -170 },
+      { x: 80, y: null },
+      { x: 80, y: 175 },
+      { x: 100, y: 120 },
+    ]);
     const phase = phaseChart(curves);
     expect(phase?.series.map((series) => series.label)).toEqual(['lowPass']);
     expect(phaseChart([])).toBeNull();

@@ -23,6 +23,8 @@ export interface PlotCurve {
 }
 
 const MAX_CURVES = 12;
+/** A reported grid this dense is drawn as is; a sparser one (a few spot frequencies) is redrawn from the sections. */
+const DENSE_GRID_POINTS = 48;
 const GENERIC_SEGMENTS = new Set(['response', 'data', 'result', 'sections', 'cascade', 'filters']);
 const NAME_FIELDS = ['label', 'channel', 'id', 'name'];
 
@@ -160,41 +162,113 @@ function sampleRateOf(...sources: unknown[]): number | null {
   return null;
 }
 
+/** Curves with identical values are drawn once, labelled with every name they stand for. */
+function mergeIdentical(curves: PlotCurve[]): PlotCurve[] {
+  const merged: Array<PlotCurve & { names: string[] }> = [];
+  for (const curve of curves) {
+    const twin = merged.find(
+      (other) =>
+        other.isSum === curve.isSum &&
+        other.frequenciesHz.length === curve.frequenciesHz.length &&
+        other.magnitudeDb.every((value, i) => value === curve.magnitudeDb[i]) &&
+        (other.phaseDeg ?? []).every((value, i) => value === curve.phaseDeg?.[i]),
+    );
+    if (twin) twin.names.push(curve.label);
+    else merged.push({ ...curve, names: [curve.label] });
+  }
+  return merged.map(({ names, ...curve }) => ({ ...curve, label: combineLabels(names) }));
+}
+
+/** "channels · M+030 · highPass" ×3 → "highPass: M+030, M-030, M+000". */
+function combineLabels(names: string[]): string {
+  if (names.length === 1) return names[0];
+  const parts = names.map((name) => name.split(' · '));
+  const last = parts[0][parts[0].length - 1];
+  const sameEnd = parts.every((segments) => segments[segments.length - 1] === last);
+  const distinct = parts.map(
+    (segments) => segments[segments.length - (sameEnd ? 2 : 1)] ?? segments.join(' · '),
+  );
+  const shown = distinct.length > 4 ? [...distinct.slice(0, 3), `+${distinct.length - 3} more`] : distinct;
+  return sameEnd ? `${last}: ${shown.join(', ')}` : shown.join(', ');
+}
+
 /**
- * The curves worth plotting in an API answer: every magnitude the API reported on its frequency grid
- * (biquad cascades, crossover outputs and their sum); when it reported none, the response of every
- * section cascade it returned, computed at the request's sample rate, with the sum of each crossover.
+ * Bass management: a managed channel's high-pass and the subwoofer's low-pass add acoustically at the
+ * listening position; their sum (polarity applied, level and delay not) shows how the crossover joins.
+ */
+function bassManagementSum(body: unknown, grid: number[], fs: number): PlotCurve | null {
+  if (!isRecord(body) || !Array.isArray(body['channels']) || !isRecord(body['subwoofer'])) return null;
+  const low = sectionsOf(body['subwoofer']['lowPass']);
+  const managed = body['channels'].find((channel) => isRecord(channel) && sectionsOf(channel['highPass']));
+  if (!low || !isRecord(managed) || !isRecord(managed['highPass'])) return null;
+  const high = sectionsOf(managed['highPass']) as Section[];
+  const sign = managed['highPass']['polarity'] === 'inverted' ? -1 : 1;
+  const values = grid.map((f): Complex => {
+    const a = cascadeAt(low, f, fs);
+    const b = cascadeAt(high, f, fs);
+    return [a[0] + sign * b[0], a[1] + sign * b[1]];
+  });
+  return curveFromComplex('sum: managed channel + subwoofer', grid, values, true);
+}
+
+/**
+ * The curves worth plotting in an API answer. A dense reported grid (biquad cascades, crossover outputs
+ * and their sum) is drawn as the API computed it. When the answer has only a few spot frequencies, or
+ * none, the returned section cascades are evaluated in the browser at the answer's sample rate, with
+ * the sum of each crossover and of a bass-managed channel with the subwoofer. Identical curves (the
+ * same high-pass on eleven channels) are drawn once.
  */
 export function curvesFromResult(body: unknown, requestBody?: unknown): PlotCurve[] {
   const reported: PlotCurve[] = [];
   reportedCurves(body, [], undefined, reported);
-  if (reported.length) return reported;
+  if (
+    reported.length &&
+    Math.min(...reported.map((curve) => curve.frequenciesHz.length)) >= DENSE_GRID_POINTS
+  ) {
+    return mergeIdentical(reported);
+  }
   const fs = sampleRateOf(body, requestBody, isRecord(requestBody) ? requestBody['crossover'] : undefined);
-  if (!fs) return [];
+  if (!fs) return mergeIdentical(reported);
   const grid = logFrequencies(10, Math.min(20000, fs * 0.49), 24);
   const computed: PlotCurve[] = [];
   computedCurves(body, [], grid, fs, computed);
-  return computed;
+  const sum = bassManagementSum(body, grid, fs);
+  if (sum) computed.push(sum);
+  return computed.length ? mergeIdentical(computed) : mergeIdentical(reported);
 }
 
-/** A y range that shows the interesting part: the top of the curves and up to 60 dB below it. */
+/**
+ * A y range that shows the interesting part: the top of the curves and at most 60 dB below it, on
+ * 10 dB steps for deep responses (crossovers) and 3 dB steps for small EQ moves, never under 12 dB.
+ */
 export function magnitudeRange(curves: readonly PlotCurve[]): { min: number; max: number } {
   const values = curves.flatMap((curve) => curve.magnitudeDb).filter((value) => Number.isFinite(value));
   if (!values.length) return { min: -12, max: 12 };
   const top = Math.max(...values);
-  const bottom = Math.min(...values);
-  let max = Math.ceil((top + 1.5) / 3) * 3;
-  let min = Math.max(Math.floor((bottom - 1.5) / 3) * 3, max - 60);
-  // Small moves get at least 12 dB of view, widened downward first because EQ mostly cuts.
-  while (max - min < 12) {
-    min -= 3;
-    if (max - min < 12) max += 3;
-  }
+  const bottom = Math.max(Math.min(...values), top - 60);
+  const step = top - bottom > 24 ? 10 : 3;
+  const max = Math.ceil((top + 1) / step) * step;
+  let min = Math.max(Math.floor((bottom - 1) / step) * step, max - 60);
+  // Small moves get at least 12 dB of view, widened downward because EQ mostly cuts.
+  while (max - min < 12) min -= step;
   return { min, max };
 }
 
-function points(frequencies: number[], values: number[]): Array<{ x: number; y: number }> {
+function points(frequencies: number[], values: number[]): Array<{ x: number; y: number | null }> {
   return frequencies.flatMap((x, i) => (x > 0 && Number.isFinite(values[i]) ? [{ x, y: values[i] }] : []));
+}
+
+/** Phase points with a gap wherever the wrapped phase jumps, so no false vertical line is drawn. */
+function phasePoints(frequencies: number[], values: number[]): Array<{ x: number; y: number | null }> {
+  const result: Array<{ x: number; y: number | null }> = [];
+  let previous: number | null = null;
+  for (const point of points(frequencies, values)) {
+    if (previous !== null && point.y !== null && Math.abs(point.y - previous) > 180)
+      result.push({ x: point.x, y: null });
+    result.push(point);
+    previous = point.y;
+  }
+  return result;
 }
 
 function describeCurves(curves: readonly PlotCurve[]): string {
@@ -240,7 +314,7 @@ export function phaseChart(curves: readonly PlotCurve[]): ChartSpec | null {
     yMax: 180,
     series: withPhase.map((curve) => ({
       label: curve.label,
-      points: points(curve.frequenciesHz, curve.phaseDeg ?? []),
+      points: phasePoints(curve.frequenciesHz, curve.phaseDeg ?? []),
       colour: curve.isSum ? 5 : (curves.indexOf(curve) % 6) + 1,
       dashed: curve.isSum,
     })),

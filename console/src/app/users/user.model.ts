@@ -19,6 +19,12 @@ export interface InviteRequest {
   name?: string;
 }
 
+/** The answer to an invitation: the user and the one-time link (also e-mailed when possible). */
+export interface InvitationResult {
+  user: ConsoleUser;
+  invitation: { url: string; expiresAt: string; emailSent: boolean };
+}
+
 export interface UserChanges {
   role?: UserRole;
   status?: 'active' | 'disabled';

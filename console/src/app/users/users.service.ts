@@ -2,7 +2,7 @@ import { HttpClient, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { EMPTY, Observable, expand, map, reduce } from 'rxjs';
 import { ListPage } from '../keys/key.model';
-import { ConsoleUser, InviteRequest, OutboxMessage, UserChanges } from './user.model';
+import { ConsoleUser, InvitationResult, InviteRequest, OutboxMessage, UserChanges } from './user.model';
 
 @Injectable({ providedIn: 'root' })
 export class UsersService {
@@ -23,8 +23,16 @@ export class UsersService {
     );
   }
 
-  invite(request: InviteRequest): Observable<ConsoleUser> {
-    return this.http.post<ConsoleUser | { user: ConsoleUser }>('/v1/users', request).pipe(map(unwrapUser));
+  invite(request: InviteRequest): Observable<InvitationResult> {
+    return this.http.post<InvitationResult>('/v1/users', request);
+  }
+
+  /** A fresh one-time link for someone who has not accepted yet; the old link stops working. */
+  reissueInvitation(id: string): Observable<InvitationResult['invitation']> {
+    return this.http.post<InvitationResult['invitation']>(
+      `/v1/users/${encodeURIComponent(id)}/invitations`,
+      {},
+    );
   }
 
   update(id: string, changes: UserChanges): Observable<ConsoleUser> {

@@ -5,7 +5,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
-import { RouterLink } from '@angular/router';
+import { Router, RouterLink } from '@angular/router';
 import { errorMessage } from '../../problem/http-problem';
 import { AuthFrame } from '../auth-frame/auth-frame';
 import { SessionService } from '../session.service';
@@ -27,6 +27,7 @@ import { passwordProblems } from './password-rules';
 })
 export class AcceptInvitationPage {
   private readonly session = inject(SessionService);
+  private readonly router = inject(Router);
 
   readonly token = input<string>();
 
@@ -51,6 +52,7 @@ export class AcceptInvitationPage {
       next: () => {
         this.busy.set(false);
         this.done.set(true);
+        void this.router.navigate(['/']);
       },
       error: (error: unknown) => {
         this.busy.set(false);

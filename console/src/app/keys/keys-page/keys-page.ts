@@ -8,7 +8,7 @@ import {
   signal,
   viewChild,
 } from '@angular/core';
-import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { rxResource, takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -21,7 +21,8 @@ import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatSort, MatSortModule } from '@angular/material/sort';
 import { MatTableDataSource, MatTableModule } from '@angular/material/table';
 import { MatTooltipModule } from '@angular/material/tooltip';
-import { filter } from 'rxjs';
+import { catchError, filter, of } from 'rxjs';
+import { UsersService } from '../../users/users.service';
 import { can, roleLabel } from '../../auth/roles';
 import { SessionService } from '../../auth/session.service';
 import { formatDate, formatDateTime, formatRelative } from '../../format/format';
@@ -53,6 +54,7 @@ import { KeysService } from '../keys.service';
 })
 export class KeysPage {
   private readonly keysService = inject(KeysService);
+  private readonly usersService = inject(UsersService);
   private readonly session = inject(SessionService);
   private readonly dialog = inject(MatDialog);
   private readonly snackBar = inject(MatSnackBar);
@@ -84,6 +86,16 @@ export class KeysPage {
     () => this.keys().filter((key) => keyStatus(key, this.now()) === 'active').length,
   );
 
+  /** Admins see other people's keys; their e-mail reads better than a user id. */
+  private readonly owners = rxResource({
+    params: () => this.showOwner(),
+    stream: ({ params }) => (params ? this.usersService.listAll().pipe(catchError(() => of([]))) : of([])),
+  });
+  protected readonly ownerEmail = computed(() => {
+    const users = this.owners.hasValue() ? this.owners.value() : [];
+    return new Map(users.map((user) => [user.id, user.email]));
+  });
+
   protected readonly dataSource = new MatTableDataSource<ApiKey>([]);
   protected readonly roleLabel = roleLabel;
   protected readonly maskedKey = maskedKey;
@@ -94,7 +106,8 @@ export class KeysPage {
   protected readonly keyStatus = keyStatus;
 
   constructor() {
-    this.dataSource.filterPredicate = (key, text) => keyMatchesFilter(key, text, this.now());
+    this.dataSource.filterPredicate = (key, text) =>
+      keyMatchesFilter({ ...key, ownerEmail: this.ownerEmail().get(key.ownerId ?? '') }, text, this.now());
     this.dataSource.sortingDataAccessor = (key, column) => keySortValue(key, column, this.now());
     effect(() => {
       this.dataSource.data = this.keys();

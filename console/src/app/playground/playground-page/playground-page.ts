@@ -26,12 +26,13 @@ import { PlaygroundOperation, groupByTag, listOperations } from '../openapi-oper
 import { PlaygroundCredentials } from '../playground-credentials.service';
 import { PlaygroundAuth, PlaygroundResponse, PlaygroundService } from '../playground.service';
 import { buildDraft } from '../request-draft';
+import { RichText } from '../../ui/rich-text/rich-text';
 import { ResponsePanel } from '../response-panel/response-panel';
 import { checkAgainstSchema } from '../schema-check';
 import { SnippetTabs } from '../snippet-tabs/snippet-tabs';
 
 /** The operation a first visit opens: a single peaking filter shows the whole loop, plot included. */
-const PREFERRED_FIRST = ['computeBiquads', 'designBiquads', 'biquads'];
+const PREFERRED_FIRST = ['designBiquads'];
 
 function firstParagraph(text: string): string {
   return (
@@ -53,6 +54,7 @@ function firstParagraph(text: string): string {
     MatRadioModule,
     MatSelectModule,
     ResponsePanel,
+    RichText,
     SnippetTabs,
   ],
   templateUrl: './playground-page.html',

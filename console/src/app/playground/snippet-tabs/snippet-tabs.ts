@@ -15,17 +15,20 @@ import { DEFAULT_KEY_VARIABLE, curlSnippet, fetchSnippet, pythonSnippet } from '
       @for (snippet of snippets(); track snippet.id) {
         <mat-tab [label]="snippet.label">
           <div class="snippet">
-            <button
-              mat-stroked-button
-              type="button"
-              class="copy"
-              (click)="copy(snippet.id, snippet.code)"
-              [attr.data-testid]="'copy-' + snippet.id"
-              [attr.aria-label]="'Copy the ' + snippet.label + ' snippet'"
-            >
-              <mat-icon>{{ copied() === snippet.id ? 'check' : 'content_copy' }}</mat-icon>
-              {{ copied() === snippet.id ? 'Copied' : 'Copy' }}
-            </button>
+            <div class="snippet-head">
+              <span class="snippet-hint">{{ snippet.hint }}</span>
+              <button
+                mat-stroked-button
+                type="button"
+                class="copy"
+                (click)="copy(snippet.id, snippet.code)"
+                [attr.data-testid]="'copy-' + snippet.id"
+                [attr.aria-label]="'Copy the ' + snippet.label + ' snippet'"
+              >
+                <mat-icon>{{ copied() === snippet.id ? 'check' : 'content_copy' }}</mat-icon>
+                {{ copied() === snippet.id ? 'Copied' : 'Copy' }}
+              </button>
+            </div>
             <pre
               class="code"
               tabindex="0"
@@ -45,18 +48,22 @@ import { DEFAULT_KEY_VARIABLE, curlSnippet, fetchSnippet, pythonSnippet } from '
   `,
   styles: `
     .snippet {
-      position: relative;
-      padding-top: 12px;
+      padding-top: 8px;
     }
-    .copy {
-      position: absolute;
-      top: 20px;
-      right: 8px;
+    .snippet-head {
+      display: flex;
+      align-items: center;
+      justify-content: space-between;
+      gap: 12px;
+      margin-bottom: 8px;
+    }
+    .snippet-hint {
+      color: var(--mat-sys-on-surface-variant);
+      font: var(--mat-sys-body-small);
     }
     .code {
       margin: 0;
       padding: 14px 16px;
-      padding-right: 120px;
       min-height: 60px;
       max-height: 360px;
       overflow: auto;
@@ -87,9 +94,19 @@ export class SnippetTabs {
     const options = { origin: this.origin(), keyVariable: this.keyVariable() };
     const draft = this.draft();
     return [
-      { id: 'curl', label: 'curl', code: curlSnippet(draft, options) },
-      { id: 'fetch', label: 'JavaScript fetch', code: fetchSnippet(draft, options) },
-      { id: 'python', label: 'Python requests', code: pythonSnippet(draft, options) },
+      { id: 'curl', label: 'curl', hint: 'POSIX shell', code: curlSnippet(draft, options) },
+      {
+        id: 'fetch',
+        label: 'JavaScript fetch',
+        hint: 'Node 18+ (ES module) or a browser',
+        code: fetchSnippet(draft, options),
+      },
+      {
+        id: 'python',
+        label: 'Python requests',
+        hint: 'Python 3 with the requests package',
+        code: pythonSnippet(draft, options),
+      },
     ];
   });
 

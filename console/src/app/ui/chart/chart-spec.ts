@@ -22,7 +22,8 @@ export interface ChartSeries {
   label: string;
   /** Numbers for category charts; points for numeric x axes. */
   values?: Array<number | null>;
-  points?: Array<{ x: number; y: number }>;
+  /** Points for numeric x axes; a null y leaves a gap in the line. */
+  points?: Array<{ x: number; y: number | null }>;
   /** Index into the console's series colours (1-6). */
   colour: number;
   axis?: 'left' | 'right';

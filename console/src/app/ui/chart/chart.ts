@@ -23,25 +23,35 @@ interface Palette {
   font: string;
 }
 
+/**
+ * Canvas needs concrete colours, but the theme's custom properties hold light-dark() pairs. A hidden
+ * probe element resolves each one through the cascade into the rgb() the current scheme picks.
+ */
 function readPalette(host: HTMLElement): Palette {
-  const style = getComputedStyle(host);
-  const get = (name: string, fallback: string) => style.getPropertyValue(name).trim() || fallback;
-  return {
-    series: [1, 2, 3, 4, 5, 6].map((n) => get(`--iso-series-${n}`, '#15696d')),
-    text: get('--mat-sys-on-surface', '#191c1c'),
-    muted: get('--mat-sys-on-surface-variant', '#3f4949'),
-    grid: get('--mat-sys-outline-variant', '#bec8c9'),
-    surface: get('--mat-sys-surface-container-highest', '#e0e3e3'),
-    font: style.fontFamily || 'Roboto, sans-serif',
+  const probe = document.createElement('span');
+  probe.style.display = 'none';
+  host.appendChild(probe);
+  const resolve = (name: string, fallback: string) => {
+    probe.style.color = fallback;
+    probe.style.color = `var(${name}, ${fallback})`;
+    return getComputedStyle(probe).color || fallback;
   };
+  const palette: Palette = {
+    series: [1, 2, 3, 4, 5, 6].map((n) => resolve(`--iso-series-${n}`, '#15696d')),
+    text: resolve('--mat-sys-on-surface', '#191c1c'),
+    muted: resolve('--mat-sys-on-surface-variant', '#3f4949'),
+    grid: resolve('--mat-sys-outline-variant', '#bec8c9'),
+    surface: resolve('--mat-sys-surface-container-highest', '#e0e3e3'),
+    font: getComputedStyle(host).fontFamily || 'Roboto, sans-serif',
+  };
+  probe.remove();
+  return palette;
 }
 
 function withAlpha(colour: string, alpha: number): string {
-  // Resolved custom properties come back as #rrggbb; anything else is used as is.
-  const match = /^#([0-9a-f]{6})$/i.exec(colour);
-  if (!match) return colour;
-  const value = Number.parseInt(match[1], 16);
-  return `rgba(${(value >> 16) & 255}, ${(value >> 8) & 255}, ${value & 255}, ${alpha})`;
+  // Resolved colours come back as rgb(r, g, b); anything else is used as is.
+  const match = /^rgba?\((\d+),\s*(\d+),\s*(\d+)/.exec(colour);
+  return match ? `rgba(${match[1]}, ${match[2]}, ${match[3]}, ${alpha})` : colour;
 }
 
 function toConfig(spec: ChartSpec, palette: Palette): ChartConfiguration {

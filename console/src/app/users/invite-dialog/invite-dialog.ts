@@ -8,7 +8,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { UserRole, roleLabel } from '../../auth/roles';
 import { errorMessage } from '../../problem/http-problem';
-import { ConsoleUser } from '../user.model';
+import { InvitationResult } from '../user.model';
 import { UsersService } from '../users.service';
 
 const ROLE_HINTS: Record<UserRole, string> = {
@@ -81,7 +81,7 @@ const ROLE_HINTS: Record<UserRole, string> = {
 })
 export class InviteDialog {
   private readonly users = inject(UsersService);
-  private readonly dialogRef = inject<MatDialogRef<InviteDialog, ConsoleUser>>(MatDialogRef);
+  private readonly dialogRef = inject<MatDialogRef<InviteDialog, InvitationResult>>(MatDialogRef);
   protected readonly roles: UserRole[] = ['viewer', 'developer', 'admin'];
   protected readonly hints = ROLE_HINTS;
   protected readonly roleLabel = roleLabel;
@@ -104,7 +104,7 @@ export class InviteDialog {
     this.users
       .invite({ email: email.trim(), role, ...(name.trim() ? { name: name.trim() } : {}) })
       .subscribe({
-        next: (user) => this.dialogRef.close(user),
+        next: (result) => this.dialogRef.close(result),
         error: (error: unknown) => {
           this.busy.set(false);
           this.error.set(errorMessage(error));

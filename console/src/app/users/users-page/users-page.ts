@@ -1,3 +1,4 @@
+import { Clipboard } from '@angular/cdk/clipboard';
 import { HttpErrorResponse } from '@angular/common/http';
 import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
@@ -18,7 +19,7 @@ import { errorMessage } from '../../problem/http-problem';
 import { ConfirmDialog, ConfirmDialogData } from '../../ui/confirm-dialog/confirm-dialog';
 import { InviteDialog } from '../invite-dialog/invite-dialog';
 import { OutboxPanel } from '../outbox/outbox-panel';
-import { ConsoleUser, OutboxMessage, UserChanges } from '../user.model';
+import { ConsoleUser, InvitationResult, OutboxMessage, UserChanges } from '../user.model';
 import { UsersService } from '../users.service';
 
 @Component({
@@ -78,6 +79,8 @@ export class UsersPage {
   protected readonly formatRelative = formatRelative;
   protected readonly formatDateTime = formatDateTime;
   protected readonly now = new Date();
+  protected readonly unsentLink = signal<{ email: string; url: string } | null>(null);
+  private readonly clipboard = inject(Clipboard);
 
   protected reload(): void {
     this.list.set(null);
@@ -89,12 +92,30 @@ export class UsersPage {
     this.dialog
       .open(InviteDialog, { width: '480px', maxWidth: '94vw' })
       .afterClosed()
-      .pipe(filter((user): user is ConsoleUser => Boolean(user)))
-      .subscribe((user) => {
-        this.replace(user, true);
-        this.snackBar.open(`Invitation sent to ${user.email}.`, undefined, { duration: 4000 });
-        this.outboxResource.reload();
-      });
+      .pipe(filter((result): result is InvitationResult => Boolean(result)))
+      .subscribe((result) => this.invited(result.user, result.invitation));
+  }
+
+  protected reissue(user: ConsoleUser): void {
+    this.users.reissueInvitation(user.id).subscribe({
+      next: (invitation) => this.invited(user, invitation),
+      error: (error: unknown) => this.snackBar.open(errorMessage(error), 'Dismiss', { duration: 10000 }),
+    });
+  }
+
+  protected copyLink(url: string): void {
+    if (this.clipboard.copy(url)) this.snackBar.open('Link copied.', undefined, { duration: 2500 });
+  }
+
+  private invited(user: ConsoleUser, invitation: InvitationResult['invitation']): void {
+    this.replace(user, true);
+    // When the mail could not go out, the admin hands the link over another way.
+    this.unsentLink.set(invitation.emailSent ? null : { email: user.email, url: invitation.url });
+    const text = invitation.emailSent
+      ? `Invitation sent to ${user.email}.`
+      : `The e-mail to ${user.email} could not be sent; copy the link below.`;
+    this.snackBar.open(text, undefined, { duration: 5000 });
+    this.outboxResource.reload();
   }
 
   protected changeRole(user: ConsoleUser, role: UserRole): void {
