@@ -4,6 +4,8 @@ import { bassManagementRouter } from './bass-management';
 import { biquadsRouter } from './biquads';
 import { crossoversRouter } from './crossovers';
 import { delaysRouter } from './delays';
+import { analysisRouter } from './analysis';
+import { eqFitRouter } from './eq-fit';
 import { geometryRouter } from './geometry';
 import { levelsRouter } from './levels';
 import { layoutsRouter } from './layouts';
@@ -24,6 +26,8 @@ export function v1Router(services: Services): Router {
   router.use(biquadsRouter);
   router.use(crossoversRouter);
   router.use(bassManagementRouter);
+  router.use(eqFitRouter);
+  router.use(analysisRouter);
   router.use(usersRouter(services));
   router.use(outboxRouter(services));
   router.use(roomsRouter(services));
