@@ -13,18 +13,16 @@ declare module 'fili' {
     BW?: number;
     preGain?: boolean;
   }
-  class CalcCascades {
+  interface FiliCascadeCalculator {
     lowpass(options: FiliCascadeOptions): FiliCoefficients[];
     highpass(options: FiliCascadeOptions): FiliCoefficients[];
   }
-  class IirFilter {
-    constructor(coefficients: FiliCoefficients[]);
-    responsePoint(options: { Fs: number; Fr: number }): {
-      magnitude: number;
-      dBmagnitude: number;
-      phase: number;
-    };
+  interface FiliIirFilter {
+    responsePoint(options: { Fs: number; Fr: number }): { magnitude: number; dBmagnitude: number; phase: number };
   }
-  const Fili: { CalcCascades: typeof CalcCascades; IirFilter: typeof IirFilter };
+  const Fili: {
+    CalcCascades: new () => FiliCascadeCalculator;
+    IirFilter: new (coefficients: FiliCoefficients[]) => FiliIirFilter;
+  };
   export default Fili;
 }
