@@ -51,7 +51,7 @@ export const STAGE3_SPL_DB: Record<string, number> = {
   'M+030': 80.6,
   'M-030': 80.9,
   'M+000': 81.8,
-  LFE1: 87.4,
+  LFE1: 90.2,
   'M+090': 82.3,
   'M-090': 82.0,
   'M+135': 83.1,
