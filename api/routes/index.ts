@@ -9,6 +9,7 @@ import { eqFitRouter } from './eq-fit';
 import { geometryRouter } from './geometry';
 import { levelsRouter } from './levels';
 import { layoutsRouter } from './layouts';
+import { plansRouter } from './plans';
 import { outboxRouter } from './outbox';
 import { roomsRouter } from './rooms';
 import { usersRouter } from './users';
@@ -21,6 +22,7 @@ export function v1Router(services: Services): Router {
   const router = Router();
   router.use(layoutsRouter);
   router.use(geometryRouter);
+  router.use(plansRouter);
   router.use(delaysRouter);
   router.use(levelsRouter);
   router.use(biquadsRouter);
