@@ -7,10 +7,8 @@ import {
   polesOf,
   referenceDb,
   referenceResponse,
-  WebAudioBiquadType,
-  WebAudioJob,
-  webAudioResponses,
 } from './test-helpers';
+import { WebAudioBiquadType, WebAudioJob, webAudioResponses } from '../../tests/reference/web-audio';
 
 const SAMPLE_RATES = [44100, 48000, 96000];
 const BUTTERWORTH_Q = Math.SQRT1_2;

@@ -13,7 +13,6 @@ import {
 export type CrossoverFamily = 'linkwitzRiley' | 'butterworth';
 export type Polarity = 'normal' | 'inverted';
 
-export const BUTTERWORTH_ORDERS = [1, 2, 3, 4, 5, 6, 7, 8] as const;
 export const LINKWITZ_RILEY_ORDERS = [2, 4, 8] as const;
 
 export interface CrossoverSpec {

@@ -1,14 +1,8 @@
 import fc from 'fast-check';
 import { BiquadSection, designBiquad } from './biquad-design';
 import { cascadeResponse, isStable, parallelResponse, responseGrid } from './response';
-import {
-  catchInputError,
-  expectWithin,
-  logSweep,
-  polesOf,
-  referenceResponse,
-  webAudioResponses,
-} from './test-helpers';
+import { catchInputError, expectWithin, logSweep, polesOf, referenceResponse } from './test-helpers';
+import { webAudioResponses } from '../../tests/reference/web-audio';
 
 function wrappedDifferenceDeg(a: number, b: number): number {
   const d = a - b;

@@ -3,8 +3,6 @@
  * frequency-response evaluator written independently of response.ts (it multiplies the sections'
  * complex values at z = e^(jω) instead of factoring them into roots).
  */
-import { spawnSync } from 'node:child_process';
-import path from 'node:path';
 import { CalculationInputError } from '../errors';
 import type { BiquadSection } from './biquad-design';
 
@@ -72,35 +70,6 @@ export function logSweep(fromHz: number, toHz: number, perOctave: number): numbe
     out.push(fromHz * Math.pow(2, k / perOctave));
   return out;
 }
-
-export type WebAudioJob = { sampleRateHz: number; frequenciesHz: number[] } & (
-  | { biquad: { type: WebAudioBiquadType; frequency: number; Q: number; gain: number } }
-  | { iir: { feedforward: number[]; feedback: number[] } }
-);
-
-export interface WebAudioAnswer {
-  /** The frequencies as the float32 API saw them. */
-  frequenciesHz: number[];
-  magnitude: number[];
-  phaseRad: number[];
-}
-
-/**
- * Frequency responses from node-web-audio-api's BiquadFilterNode / IIRFilterNode, computed in a
- * child process (see web-audio-reference.mjs).
- */
-export function webAudioResponses(jobs: WebAudioJob[]): WebAudioAnswer[] {
-  const result = spawnSync(process.execPath, [path.join(__dirname, 'web-audio-reference.mjs')], {
-    input: JSON.stringify(jobs),
-    maxBuffer: 256 * 1024 * 1024,
-    encoding: 'utf8',
-  });
-  if (result.status !== 0) throw new Error(`web-audio-reference failed: ${result.stderr}`);
-  return JSON.parse(result.stdout);
-}
-
-export type WebAudioBiquadType =
-  'lowpass' | 'highpass' | 'bandpass' | 'lowshelf' | 'highshelf' | 'peaking' | 'notch' | 'allpass';
 
 /** Runs fn and returns the CalculationInputError it throws; fails when it throws nothing or something else. */
 export function catchInputError(fn: () => unknown): CalculationInputError {
