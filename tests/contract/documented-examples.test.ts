@@ -27,14 +27,24 @@ const runnable = listOperations(document).filter(
     (method === 'get' || requestExamples(operation).length > 0) &&
     !(operation.parameters ?? []).some((p) => p.required),
 );
-const cases = runnable.flatMap(({ route, method, operation }) =>
-  method === 'get'
-    ? [[`${method.toUpperCase()} ${route}`, method, route, operation.operationId, undefined] as const]
-    : requestExamples(operation).map(
-        ([name, body]) =>
-          [`${method.toUpperCase()} ${route} (${name})`, method, route, operation.operationId, body] as const,
-      ),
-);
+type Case = [
+  name: string,
+  method: 'get' | 'post' | 'put' | 'patch' | 'delete',
+  route: string,
+  operationId: string,
+  body: unknown,
+];
+const cases: Case[] = runnable.flatMap(({ route, method, operation }): Case[] => {
+  const verb = method as Case[1];
+  if (method === 'get') return [[`GET ${route}`, verb, route, operation.operationId, undefined]];
+  return requestExamples(operation).map(([name, body]): Case => [
+    `${method.toUpperCase()} ${route} (${name})`,
+    verb,
+    route,
+    operation.operationId,
+    body,
+  ]);
+});
 
 let ctx: TestContext;
 beforeAll(async () => {
