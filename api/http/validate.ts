@@ -32,6 +32,21 @@ export function getContract(): Contract {
   return contract;
 }
 
+/** Deeper than any request the contract describes; also keeps cloning and validation off the stack limit. */
+const MAX_BODY_DEPTH = 32;
+
+/** Depth of a parsed JSON value, measured without recursion so hostile nesting cannot overflow the stack. */
+export function jsonDepthExceeds(value: unknown, limit: number): boolean {
+  const stack: Array<[unknown, number]> = [[value, 1]];
+  while (stack.length > 0) {
+    const [node, depth] = stack.pop() as [unknown, number];
+    if (typeof node !== 'object' || node === null) continue;
+    if (depth > limit) return true;
+    for (const child of Object.values(node)) stack.push([child, depth + 1]);
+  }
+  return false;
+}
+
 function hasBody(headers: Record<string, unknown>): boolean {
   return headers['transfer-encoding'] !== undefined || Number(headers['content-length'] ?? 0) > 0;
 }
@@ -61,6 +76,10 @@ export function validate(operationId: string): RequestHandler {
           throw badRequest('A JSON request body is required.', [
             { pointer: '/body', message: 'is required' },
           ]);
+      } else if (jsonDepthExceeds(req.body, MAX_BODY_DEPTH)) {
+        throw badRequest(`The request body is nested more than ${MAX_BODY_DEPTH} levels deep.`, [
+          { pointer: '/body', message: `is nested more than ${MAX_BODY_DEPTH} levels deep` },
+        ]);
       } else {
         body = structuredClone(req.body);
         if (!validators.body(body)) errors.push(...toFieldErrors(validators.body.errors, '/body'));
