@@ -53,22 +53,6 @@ function fitLine(xs: ArrayLike<number>, ys: ArrayLike<number>, from: number, to:
   return { slope, intercept: (sy - slope * sx) / count };
 }
 
-/** Least-squares line through (i, ys[i]) for i in [from, to), with the sums over i in closed form. */
-function fitLineOverIndex(ys: Float64Array, from: number, to: number): Line | null {
-  const count = to - from;
-  if (count < 2) return null;
-  let sy = 0;
-  let sxy = 0;
-  for (let i = from; i < to; i++) {
-    sy += ys[i];
-    sxy += i * ys[i];
-  }
-  const sx = ((from + to - 1) * count) / 2;
-  const sxx = ((to - 1) * to * (2 * to - 1) - (from - 1) * from * (2 * from - 1)) / 6;
-  const slope = (count * sxy - sx * sy) / (count * sxx - sx * sx);
-  return { slope, intercept: (sy - slope * sx) / count };
-}
-
 /**
  * Block means of the energy, as (centre sample, dB) pairs. `remaining[i]` is the energy from sample i to the
  * end: summed from the end, it keeps late, quiet blocks exact where a forward sum would cancel.
@@ -121,10 +105,8 @@ interface Crossing {
  * about five per 10 dB of decay, the noise read from 10 dB of decay past the crossing, and the decay fitted
  * over the 20 dB ending 5 dB above the noise.
  */
-function lundebyCrossing(energy: Float64Array, sampleRateHz: number): Crossing | null {
-  const n = energy.length;
-  const remaining = new Float64Array(n + 1);
-  for (let i = n - 1; i >= 0; i--) remaining[i] = remaining[i + 1] + energy[i];
+function lundebyCrossing(remaining: Float64Array, sampleRateHz: number): Crossing | null {
+  const n = remaining.length - 1;
   let blockLength = Math.max(1, Math.round(0.01 * sampleRateHz));
   let noiseDb = meanEnergyDb(remaining, n * 0.9);
   let line = fitDecay(blockLevels(remaining, blockLength), Infinity, noiseDb + 10);
@@ -164,34 +146,36 @@ export function decayTimes(
   sampleRateHz: number,
   startSample: number,
 ): DecayAnalysis {
-  const energy = new Float64Array(Math.max(0, samples.length - startSample));
-  for (let i = 0; i < energy.length; i++) energy[i] = samples[startSample + i] * samples[startSample + i];
+  const n = Math.max(0, samples.length - startSample);
+  // Energy from each sample to the end, summed from the end so late, quiet stretches stay exact.
+  const remaining = new Float64Array(n + 1);
+  for (let i = n - 1; i >= 0; i--) {
+    const v = samples[startSample + i];
+    remaining[i] = remaining[i + 1] + v * v;
+  }
   const empty: DecayAnalysis = {
     edtS: null,
     t20S: null,
     t30S: null,
     impulseToNoiseDb: 0,
-    truncationS: energy.length / sampleRateHz,
+    truncationS: n / sampleRateHz,
     insufficientRange: EVALUATIONS.map((e) => e.key),
   };
-  const crossing = energy.length >= 16 ? lundebyCrossing(energy, sampleRateHz) : null;
+  const crossing = n >= 16 ? lundebyCrossing(remaining, sampleRateHz) : null;
   if (!crossing) return empty;
 
   const { crossingSample, noiseDb, line } = crossing;
   const tailEnergy =
-    crossingSample < energy.length
+    crossingSample < n
       ? Math.pow(10, (line.slope * crossingSample + line.intercept) / 10) /
         (1 - Math.pow(10, line.slope / 10))
       : 0;
-  const schroederDb = new Float64Array(crossingSample);
-  let running = tailEnergy;
-  for (let i = crossingSample - 1; i >= 0; i--) {
-    running += energy[i];
-    schroederDb[i] = running;
-  }
-  const total = schroederDb[0];
+  // Schroeder's integral to the crossing, plus the fitted decay's energy beyond it.
+  const schroeder = new Float64Array(crossingSample);
+  const beyond = remaining[crossingSample] - tailEnergy;
+  for (let i = 0; i < crossingSample; i++) schroeder[i] = remaining[i] - beyond;
+  const total = schroeder[0];
   if (!(total > 0)) return empty;
-  for (let i = 0; i < crossingSample; i++) schroederDb[i] = 10 * Math.log10(schroederDb[i] / total);
 
   const impulseToNoiseDb = line.intercept - noiseDb;
   const result: DecayAnalysis = {
@@ -203,10 +187,10 @@ export function decayTimes(
     insufficientRange: [],
   };
   for (const evaluation of EVALUATIONS) {
-    const range = evaluationRange(schroederDb, evaluation);
+    const range = evaluationRange(schroeder, total, evaluation);
     const fitted =
       impulseToNoiseDb >= evaluation.requiredDb && range
-        ? fitLineOverIndex(schroederDb, range[0], range[1])
+        ? fitDecayCurve(schroeder, total, range[0], range[1])
         : null;
     if (fitted && fitted.slope < 0) result[evaluation.key] = -60 / fitted.slope / sampleRateHz;
     else result.insufficientRange.push(evaluation.key);
@@ -214,11 +198,51 @@ export function decayTimes(
   return result;
 }
 
-/** Sample range [first, last) where the decay curve lies between the evaluation's top and bottom. */
-function evaluationRange(decayDb: Float64Array, { topDb, bottomDb }: Evaluation): [number, number] | null {
-  let first = 0;
-  while (first < decayDb.length && decayDb[first] > topDb) first++;
-  let last = first;
-  while (last < decayDb.length && decayDb[last] >= bottomDb) last++;
-  return last < decayDb.length && last - first >= 2 ? [first, last] : null;
+/**
+ * Sample range [first, last) where the decay curve 10·log10(E/total) lies between the evaluation's top and
+ * bottom. E never rises, so both ends are found by bisection on the energies themselves.
+ */
+function evaluationRange(
+  energy: Float64Array,
+  total: number,
+  { topDb, bottomDb }: Evaluation,
+): [number, number] | null {
+  const firstAtOrBelow = (level: number, strict: boolean): number => {
+    let lo = 0;
+    let hi = energy.length;
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if (strict ? energy[mid] < level : energy[mid] <= level) hi = mid;
+      else lo = mid + 1;
+    }
+    return lo;
+  };
+  const first = firstAtOrBelow(total * Math.pow(10, topDb / 10), false);
+  const last = firstAtOrBelow(total * Math.pow(10, bottomDb / 10), true);
+  return last < energy.length && last - first >= 2 ? [first, last] : null;
+}
+
+/** Points per regression: the Schroeder curve is smooth, so a strided fit loses nothing and bounds the work. */
+const MAX_FIT_POINTS = 4096;
+
+/** Least-squares line through (i, 10·log10(energy[i]/total)) for i in [from, to). */
+function fitDecayCurve(energy: Float64Array, total: number, from: number, to: number): Line | null {
+  const stride = Math.max(1, Math.floor((to - from) / MAX_FIT_POINTS));
+  let n = 0;
+  let sx = 0;
+  let sy = 0;
+  let sxx = 0;
+  let sxy = 0;
+  for (let i = from; i < to; i += stride) {
+    const y = 10 * Math.log10(energy[i] / total);
+    n++;
+    sx += i;
+    sy += y;
+    sxx += i * i;
+    sxy += i * y;
+  }
+  const denominator = n * sxx - sx * sx;
+  if (n < 2 || denominator === 0) return null;
+  const slope = (n * sxy - sx * sy) / denominator;
+  return { slope, intercept: (sy - slope * sx) / n };
 }

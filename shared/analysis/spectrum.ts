@@ -13,6 +13,18 @@ export interface RealSpectrum {
 /** Largest transform used, so that a 30 s file at 192 kHz still fits (2^23 points). */
 const MAX_FFT_SIZE = 1 << 23;
 
+/** fft.js plans by size: building one computes its twiddle table, which costs as much as a transform. */
+const plans = new Map<number, FFT>();
+function planFor(size: number): FFT {
+  let plan = plans.get(size);
+  if (!plan) {
+    if (plans.size >= 4) plans.clear();
+    plan = new FFT(size);
+    plans.set(size, plan);
+  }
+  return plan;
+}
+
 /**
  * Discrete Fourier transform `X[k] = Σ x[n]·e^(−j2πkn/N)` of a real signal, zero-padded to the next
  * power of two, computed with the `fft.js` package.
@@ -38,7 +50,7 @@ export function realSpectrum(samples: ArrayLike<number>, sampleRateHz: number): 
   }
   const input = new Float64Array(fftSize);
   input.set(samples as ArrayLike<number>);
-  const fft = new FFT(fftSize);
+  const fft = planFor(fftSize);
   const out: number[] = fft.createComplexArray();
   fft.realTransform(out, input);
   const bins = fftSize / 2 + 1;

@@ -422,7 +422,7 @@ class BandModel {
     const start = Float64Array.from(
       free.flatMap((i) => [Math.log(bands[i].frequencyHz), bands[i].gainDb, Math.log(bands[i].q)]),
     );
-    const { p } = levenbergMarquardt(problem, start, { maxIterations, relativeTolerance: 1e-5 });
+    const { p } = levenbergMarquardt(problem, start, { maxIterations, relativeTolerance: 1e-4 });
     return bands.map((band, i) => (free.includes(i) ? bandAt(p, free.indexOf(i)) : band));
   }
 }

@@ -1,0 +1,151 @@
+/**
+ * Speed of the measurement analysis: impulse-response analysis and EQ fitting on synthetic data.
+ * `npm run bench` calls {@link runAnalysisBench}; `npx tsx bench/analysis.bench.ts` runs it alone.
+ */
+import { WaveFile } from 'wavefile';
+import { analyzeImpulseResponse } from '../shared/analysis/analyze-impulse-response';
+import { noisyDecay } from '../shared/analysis/test-signals';
+import { decodeWav } from '../shared/analysis/wav-decode';
+import { fitParametricEq } from '../shared/eq-fit/fit-parametric-eq';
+
+export interface BenchResult {
+  name: string;
+  targetMs: number | null;
+  runs: number;
+  /** Wall-clock times. */
+  medianMs: number;
+  p95Ms: number;
+  minMs: number;
+  /** Median CPU time (user + system) of the process per run: steadier than wall time on a shared machine. */
+  medianCpuMs: number;
+  /** True when the median is under the target (null target: informational). */
+  passed: boolean | null;
+}
+
+function measure(name: string, targetMs: number | null, runs: number, fn: () => unknown): BenchResult {
+  for (let i = 0; i < 3; i++) fn();
+  const times: number[] = [];
+  const cpuTimes: number[] = [];
+  for (let i = 0; i < runs; i++) {
+    const cpu = process.cpuUsage();
+    const start = performance.now();
+    fn();
+    times.push(performance.now() - start);
+    const used = process.cpuUsage(cpu);
+    cpuTimes.push((used.user + used.system) / 1000);
+  }
+  times.sort((a, b) => a - b);
+  cpuTimes.sort((a, b) => a - b);
+  const medianMs = times[Math.floor(runs / 2)];
+  return {
+    name,
+    targetMs,
+    runs,
+    medianMs,
+    p95Ms: times[Math.min(runs - 1, Math.ceil(runs * 0.95) - 1)],
+    minMs: times[0],
+    medianCpuMs: cpuTimes[Math.floor(runs / 2)],
+    passed: targetMs === null ? null : medianMs < targetMs,
+  };
+}
+
+/** A room-like 2 s impulse response at 48 kHz: direct sound, then a T60 = 0.5 s decay over −80 dB noise. */
+function roomImpulseResponse(): Float64Array {
+  const h = noisyDecay({
+    sampleRateHz: 48000,
+    durationS: 2,
+    t60S: 0.5,
+    startSample: 720,
+    startRms: 0.05,
+    noiseDb: -80,
+    seed: 1,
+  });
+  h[700] = 0.7;
+  return h;
+}
+
+/** Cookbook peaking magnitude (W3C Audio EQ Cookbook), for the synthetic measurement. */
+function peakDb(f0: number, gainDb: number, q: number, f: number, fs: number): number {
+  const A = Math.pow(10, gainDb / 40);
+  const w0 = (2 * Math.PI * f0) / fs;
+  const alpha = Math.sin(w0) / (2 * q);
+  const w = (2 * Math.PI * f) / fs;
+  const mag = (c: number[]) =>
+    Math.hypot(
+      c[0] + c[1] * Math.cos(w) + c[2] * Math.cos(2 * w),
+      c[1] * Math.sin(w) + c[2] * Math.sin(2 * w),
+    );
+  return (
+    20 *
+    Math.log10(
+      mag([1 + alpha * A, -2 * Math.cos(w0), 1 - alpha * A]) /
+        mag([1 + alpha / A, -2 * Math.cos(w0), 1 - alpha / A]),
+    )
+  );
+}
+
+/** 1/24-octave measurement 20–500 Hz with eight resonances and one floor-bounce null. */
+function lowFrequencyMeasurement() {
+  const steps = Math.round(Math.log2(500 / 20) * 24);
+  const frequenciesHz = Array.from({ length: steps + 1 }, (_, k) => 20 * Math.pow(500 / 20, k / steps));
+  const resonances: Array<[number, number, number]> = [
+    [23, 7, 6],
+    [28, 4, 5],
+    [37, 5, 4],
+    [46, 6, 6],
+    [56, 8, 7],
+    [140, 3, 2],
+    [230, 4, 5],
+    [380, 3, 4],
+    [96, -14, 9],
+  ];
+  const magnitudeDb = frequenciesHz.map(
+    (f) => 84 + resonances.reduce((db, [f0, g, q]) => db + peakDb(f0, g, q, f, 48000), 0),
+  );
+  return { frequenciesHz, magnitudeDb };
+}
+
+export async function runAnalysisBench(options: { runs?: number } = {}): Promise<BenchResult[]> {
+  const runs = options.runs ?? 21;
+  const ir = roomImpulseResponse();
+  const stage3 = { widthM: 6.1, lengthM: 7.4, heightM: 3.05 };
+  const file = new WaveFile();
+  file.fromScratch(
+    1,
+    48000,
+    '24',
+    Array.from(ir, (v) => Math.round(v * 8388607)),
+  );
+  const wavBytes = file.toBuffer();
+  const measured = lowFrequencyMeasurement();
+  return [
+    measure('impulse-response analysis, 2 s at 48 kHz (with room modes)', 50, runs, () =>
+      analyzeImpulseResponse(ir, 48000, { room: stage3 }),
+    ),
+    measure('WAV decode (24-bit mono, 2 s at 48 kHz) + analysis', null, runs, () => {
+      const wav = decodeWav(wavBytes);
+      analyzeImpulseResponse(wav.samples, wav.sampleRateHz);
+    }),
+    measure('8-band EQ fit, 1/24-octave data 20–500 Hz, cuts only', 250, runs, () =>
+      fitParametricEq({ sampleRateHz: 48000, measured, maxBands: 8, fromHz: 20, toHz: 500 }),
+    ),
+    measure('8-band EQ fit, 1/24-octave data 20–500 Hz, boosts up to 6 dB', 250, runs, () =>
+      fitParametricEq({ sampleRateHz: 48000, measured, maxBands: 8, maxBoostDb: 6, fromHz: 20, toHz: 500 }),
+    ),
+  ];
+}
+
+export default runAnalysisBench;
+
+if (require.main === module) {
+  void runAnalysisBench().then((results) => {
+    for (const r of results) {
+      const verdict = r.passed === null ? 'info' : r.passed ? 'ok' : 'SLOW';
+      const target = r.targetMs === null ? '' : ` (target < ${r.targetMs} ms)`;
+      console.log(
+        `${verdict.padEnd(4)} ${r.name}: median ${r.medianMs.toFixed(1)} ms (CPU ${r.medianCpuMs.toFixed(1)} ms), p95 ${r.p95Ms.toFixed(1)} ms, min ${r.minMs.toFixed(1)} ms over ${r.runs} runs${target}`,
+      );
+    }
+    if (results.some((r) => r.passed === false)) process.exitCode = 1;
+  });
+}
