@@ -49,8 +49,9 @@ export const routes: Routes = [
           import('./playground/playground-page/playground-page').then((m) => m.PlaygroundPage),
       },
       {
-        path: 'docs',
-        title: 'API docs · Isochron',
+        // Not `docs`: the API process serves its reference at /docs itself.
+        path: 'reference',
+        title: 'API reference · Isochron',
         loadComponent: () => import('./docs/docs-page/docs-page').then((m) => m.DocsPage),
       },
       {

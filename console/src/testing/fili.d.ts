@@ -18,7 +18,11 @@ declare module 'fili' {
     highpass(options: FiliCascadeOptions): FiliCoefficients[];
   }
   interface FiliIirFilter {
-    responsePoint(options: { Fs: number; Fr: number }): { magnitude: number; dBmagnitude: number; phase: number };
+    responsePoint(options: { Fs: number; Fr: number }): {
+      magnitude: number;
+      dBmagnitude: number;
+      phase: number;
+    };
   }
   const Fili: {
     CalcCascades: new () => FiliCascadeCalculator;

@@ -158,11 +158,11 @@ describe('magnitudeRange', () => {
   });
 
   it('keeps at least 12 dB of view around a small EQ move, in 3 dB steps', () => {
-    expect(magnitudeRange([curve([0, -4.5, 0])])).toEqual({ min: -9, max: 3 });
+    expect(magnitudeRange([curve([0, -4.5, 0])])).toEqual({ min: -9, max: 3, step: 3 });
   });
 
   it('shows at most 60 dB below the top so a stop band does not flatten the pass band', () => {
-    expect(magnitudeRange([curve([0, -300])])).toEqual({ min: -50, max: 10 });
+    expect(magnitudeRange([curve([0, -300])])).toEqual({ min: -50, max: 10, step: 10 });
   });
 });
 

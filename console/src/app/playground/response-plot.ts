@@ -241,9 +241,9 @@ export function curvesFromResult(body: unknown, requestBody?: unknown): PlotCurv
  * A y range that shows the interesting part: the top of the curves and at most 60 dB below it, on
  * 10 dB steps for deep responses (crossovers) and 3 dB steps for small EQ moves, never under 12 dB.
  */
-export function magnitudeRange(curves: readonly PlotCurve[]): { min: number; max: number } {
+export function magnitudeRange(curves: readonly PlotCurve[]): { min: number; max: number; step: number } {
   const values = curves.flatMap((curve) => curve.magnitudeDb).filter((value) => Number.isFinite(value));
-  if (!values.length) return { min: -12, max: 12 };
+  if (!values.length) return { min: -12, max: 12, step: 3 };
   const top = Math.max(...values);
   const bottom = Math.max(Math.min(...values), top - 60);
   const step = top - bottom > 24 ? 10 : 3;
@@ -251,7 +251,7 @@ export function magnitudeRange(curves: readonly PlotCurve[]): { min: number; max
   let min = Math.max(Math.floor((bottom - 1) / step) * step, max - 60);
   // Small moves get at least 12 dB of view, widened downward because EQ mostly cuts.
   while (max - min < 12) min -= step;
-  return { min, max };
+  return { min, max, step };
 }
 
 function points(frequencies: number[], values: number[]): Array<{ x: number; y: number | null }> {
@@ -291,6 +291,7 @@ export function magnitudeChart(curves: readonly PlotCurve[]): ChartSpec {
     yTitle: 'Magnitude (dB)',
     yMin: range.min,
     yMax: range.max,
+    yStep: range.step,
     series: curves.map((curve, i) => ({
       label: curve.label,
       points: points(curve.frequenciesHz, curve.magnitudeDb),
@@ -312,6 +313,7 @@ export function phaseChart(curves: readonly PlotCurve[]): ChartSpec | null {
     yTitle: 'Phase (degrees)',
     yMin: -180,
     yMax: 180,
+    yStep: 45,
     series: withPhase.map((curve) => ({
       label: curve.label,
       points: phasePoints(curve.frequenciesHz, curve.phaseDeg ?? []),

@@ -16,5 +16,5 @@ export const NAV_ITEMS: readonly NavItem[] = [
   { path: '/usage', label: 'Usage', icon: 'monitoring' },
   { path: '/playground', label: 'Playground', icon: 'science' },
   { path: '/users', label: 'Users', icon: 'group', needs: 'users:manage' },
-  { path: '/docs', label: 'API docs', icon: 'menu_book' },
+  { path: '/reference', label: 'API reference', icon: 'menu_book' },
 ];

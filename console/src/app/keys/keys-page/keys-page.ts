@@ -74,7 +74,6 @@ export class KeysPage {
     'name',
     'role',
     'key',
-    ...(this.showOwner() ? ['owner'] : []),
     'created',
     'lastUsed',
     'expires',

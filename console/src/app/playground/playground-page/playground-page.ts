@@ -135,7 +135,10 @@ export class PlaygroundPage {
     const operation = this.operation();
     if (operation?.unsupported) list.push(operation.unsupported);
     if (this.parsed().error) list.push(`The body is not valid JSON. ${this.parsed().error}`);
-    for (const problem of this.built()?.problems ?? []) list.push(problem.message);
+    for (const problem of this.built()?.problems ?? []) {
+      // An unreadable body is already reported above; "needs a body" would only repeat it.
+      if (!(problem.field === 'body' && this.parsed().error)) list.push(problem.message);
+    }
     if (this.authKind() === 'key' && !operation?.open && !this.keySecret().trim())
       list.push('Paste an API key, or send with your session.');
     return list;

@@ -10,6 +10,8 @@ export interface ChartSpec {
   rightTitle?: string;
   yMin?: number;
   yMax?: number;
+  /** Distance between labelled y ticks, so the bounds land on labels. */
+  yStep?: number;
   stacked?: boolean;
   /** Bars run left to right with the categories down the side (long labels such as routes). */
   horizontal?: boolean;

@@ -107,7 +107,7 @@ function toConfig(spec: ChartSpec, palette: Palette): ChartConfiguration {
   const valueAxis = {
     type: 'linear' as const,
     grid,
-    ticks: { ...ticks, precision: spec.kind === 'bar' ? 0 : undefined },
+    ticks: { ...ticks, precision: spec.kind === 'bar' ? 0 : undefined, stepSize: spec.yStep },
     min: spec.yMin,
     max: spec.yMax,
     stacked: spec.stacked,

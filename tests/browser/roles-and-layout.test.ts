@@ -1,0 +1,159 @@
+import type { Page } from 'playwright-core';
+import { type ConsoleBrowser, PHONE, horizontalOverflow, launchBrowser, screenshot } from './support/browser';
+import { ADMIN_PAGES, openPage, signIn } from './support/console-pages';
+import { type RunningService, startService } from './support/service';
+
+// What each role sees, and whether every page holds together on a 390 px phone and in the dark scheme.
+let service: RunningService;
+
+beforeAll(async () => {
+  service = await startService();
+});
+
+afterAll(async () => {
+  await service?.stop();
+});
+
+async function withBrowser(
+  colorScheme: 'light' | 'dark',
+  run: (browser: ConsoleBrowser, page: Page) => Promise<void>,
+): Promise<void> {
+  const browser = await launchBrowser(service.origin, colorScheme);
+  browser.allowFailure('/auth/session', 401);
+  try {
+    await run(browser, await browser.newPage());
+    expect(browser.faults()).toEqual([]);
+  } finally {
+    await browser.close();
+  }
+}
+
+describe('the demo viewer', () => {
+  it('finds no create, revoke or invite controls and cannot open admin pages', async () => {
+    await withBrowser('light', async (_browser, page) => {
+      await signIn(page, service.origin, 'viewer@kestrel.example');
+      const nav = page.getByRole('navigation', { name: 'Main' });
+      expect(await nav.getByRole('link').allTextContents()).toEqual([
+        expect.stringContaining('Overview'),
+        expect.stringContaining('Usage'),
+        expect.stringContaining('Playground'),
+        expect.stringContaining('API reference'),
+      ]);
+      await page.getByTestId('cautions').waitFor();
+      expect(await page.getByRole('link', { name: /Create an API key|Invite a colleague/ }).count()).toBe(0);
+      await screenshot(page, 'overview-viewer');
+
+      for (const path of ['/keys', '/users']) {
+        await page.goto(`${service.origin}${path}`);
+        await page.waitForURL(`${service.origin}/`);
+      }
+      for (const testId of ['create-key', 'revoke-key', 'invite-user']) {
+        expect(await page.getByTestId(testId).count()).toBe(0);
+      }
+
+      await openPage(page, service.origin, '/usage', 'Usage');
+      await page.getByTestId('download-csv').waitFor();
+      await screenshot(page, 'usage-viewer');
+
+      await openPage(page, service.origin, '/playground', 'Playground');
+      expect(await page.getByTestId('playground-key').count()).toBe(1);
+      await page.getByText('Paste an API key, or send with your session.').waitFor();
+      await screenshot(page, 'playground-viewer');
+    });
+  });
+});
+
+describe('the demo developer', () => {
+  it('manages own keys but sees neither users nor other owners', async () => {
+    await withBrowser('light', async (_browser, page) => {
+      await signIn(page, service.origin, 'dev@kestrel.example');
+      await openPage(page, service.origin, '/keys', 'API keys');
+      await page.getByTestId('create-key').waitFor();
+      await page.getByRole('row', { name: /Sweep rig/ }).waitFor();
+      expect(await page.locator('.key-owner').count()).toBe(0);
+      expect(await page.getByRole('link', { name: /Users/ }).count()).toBe(0);
+      await page.getByTestId('create-key').click();
+      await page.getByRole('dialog').getByTestId('key-role').click();
+      expect(await page.getByRole('option').allTextContents()).toEqual([
+        expect.stringContaining('Calculate'),
+        expect.stringContaining('Tuning'),
+      ]);
+      await page.keyboard.press('Escape');
+      await screenshot(page, 'keys-developer-create');
+    });
+  });
+});
+
+describe('on a 390 px phone', () => {
+  it('shows every admin page without sideways scrolling', async () => {
+    await withBrowser('light', async (_browser, page) => {
+      await signIn(page, service.origin, 'admin@kestrel.example');
+      await page.setViewportSize(PHONE);
+      const overflowing: Record<string, string[]> = {};
+      for (const { path, heading, name } of ADMIN_PAGES) {
+        await openPage(page, service.origin, path, heading);
+        const problems = await horizontalOverflow(page);
+        if (problems.length) overflowing[path] = problems;
+        await screenshot(page, `phone-${name}`);
+      }
+      expect(overflowing).toEqual({});
+
+      await page.getByRole('button', { name: 'Open navigation' }).click();
+      await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: /Usage/ }).waitFor();
+      await screenshot(page, 'phone-navigation');
+      await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: /Usage/ }).click();
+      await page.waitForURL(`${service.origin}/usage`);
+
+      await openPage(page, service.origin, '/playground?op=designCrossover', 'Playground');
+      await page.getByTestId('send-request').click();
+      await page.getByTestId('response-plot').waitFor();
+      expect(await horizontalOverflow(page)).toEqual([]);
+      await screenshot(page, 'phone-playground-crossover');
+    });
+  });
+
+  it('shows the sign-in and invitation pages without sideways scrolling', async () => {
+    await withBrowser('light', async (_browser, page) => {
+      await page.setViewportSize(PHONE);
+      await page.goto(`${service.origin}/sign-in`);
+      await page.getByRole('button', { name: 'Sign in' }).waitFor();
+      expect(await horizontalOverflow(page)).toEqual([]);
+      await screenshot(page, 'phone-sign-in');
+      await page.goto(`${service.origin}/accept-invitation`);
+      await page.getByText('This link has no invitation token.').waitFor();
+      expect(await horizontalOverflow(page)).toEqual([]);
+      await screenshot(page, 'phone-accept-invitation-without-token');
+    });
+  });
+});
+
+describe('in the dark scheme', () => {
+  it('draws the pages and the filter plot with the dark palette', async () => {
+    await withBrowser('dark', async (_browser, page) => {
+      await signIn(page, service.origin, 'admin@kestrel.example');
+      const background = await page.evaluate('getComputedStyle(document.body).backgroundColor');
+      const [r, g, b] = String(background).match(/\d+/g)!.map(Number);
+      expect(r + g + b).toBeLessThan(3 * 60);
+      await openPage(page, service.origin, '/', 'Overview');
+      await screenshot(page, 'dark-overview');
+      await openPage(page, service.origin, '/playground?op=planBassManagement', 'Playground');
+      await page.getByTestId('send-request').click();
+      await page.getByTestId('response-plot').waitFor();
+      await page.waitForTimeout(300);
+      await screenshot(page, 'dark-playground-bass-management');
+      await openPage(page, service.origin, '/keys', 'API keys');
+      await screenshot(page, 'dark-keys');
+    });
+  });
+
+  it('lets the person pick a scheme that outlives a reload', async () => {
+    await withBrowser('light', async (_browser, page) => {
+      await signIn(page, service.origin, 'admin@kestrel.example');
+      await page.getByRole('button', { name: 'Colour scheme' }).click();
+      await page.getByRole('menuitem', { name: 'Dark' }).click();
+      await page.reload();
+      await page.getByRole('heading', { name: 'Overview' }).waitFor();
+      expect(await page.evaluate('document.documentElement.classList.contains("iso-dark")')).toBe(true);
+    });
+  });
+});
