@@ -1,5 +1,6 @@
 import type { Services } from '../api/services';
 import { seedDemoPlatform } from './demo-platform';
+import { seedDemoStage3 } from './demo-stage3';
 
 /**
  * Loads the invented demo scenario (Kestrel Yard Post, Stage 3) into an empty database only.
@@ -8,6 +9,7 @@ import { seedDemoPlatform } from './demo-platform';
 export async function loadDemoData(services: Services): Promise<boolean> {
   if ((await services.db.models.User.count()) > 0) return false;
   await seedDemoPlatform(services);
+  await seedDemoStage3(services);
   services.logger.info('loaded the demo data (Kestrel Yard Post, demo only)');
   return true;
 }

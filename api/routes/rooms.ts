@@ -10,6 +10,7 @@ import { callerId, findRoomFor, ownerScope } from '../rooms/access';
 import { pageById } from '../rooms/pagination';
 import { roomDto } from '../rooms/room-dto';
 import type { Services } from '../services';
+import { roomReportRouter } from './room-report';
 
 interface RoomInput extends RoomDefinition {
   name: string;
@@ -19,7 +20,8 @@ interface RoomInput extends RoomDefinition {
 }
 
 /** /v1/rooms: a caller's rooms (all rooms for admins). Every write goes through the write queue. */
-export function roomsRouter({ db }: Services): Router {
+export function roomsRouter(services: Services): Router {
+  const { db } = services;
   const router = Router();
   const { Room, Tuning, TuningVersion } = db.models;
   const tuning = requirePermission('tuning');
@@ -107,5 +109,6 @@ export function roomsRouter({ db }: Services): Router {
     res.status(204).end();
   });
 
+  router.use(roomReportRouter(services));
   return router;
 }

@@ -1,14 +1,10 @@
 import { CalculationInputError, requireInRange, withFieldPrefix } from '../errors';
 import { designBiquads, type FilterSpec } from '../filters/biquad-design';
+import { designCrossover, type CrossoverSpec, type Polarity } from '../filters/crossover';
 import { requireUniqueIds } from '../geometry/analyse-geometry';
 import { requireSampleRate } from '../units/sample-rate';
 
-/** A crossover filter as a person describes it; its sections are designed at the rate asked for. */
-export interface CrossoverSpec {
-  family: 'linkwitzRiley' | 'butterworth';
-  order: number;
-  frequencyHz: number;
-}
+export type { CrossoverSpec } from '../filters/crossover';
 
 /** One output channel's stored settings. Filters are kept as parameters, never as coefficients. */
 export interface TuningChannel {
@@ -17,7 +13,7 @@ export interface TuningChannel {
   name?: string;
   delayMs: number;
   trimDb: number;
-  polarity: 'normal' | 'inverted';
+  polarity: Polarity;
   /** Parametric EQ, in processing order. */
   eq: FilterSpec[];
   /** High-pass of a bass-managed channel, or null for full range. */
@@ -53,31 +49,8 @@ export const TUNING_LIMITS = {
   lfeGainMaxDb: 20,
 } as const;
 
-const CROSSOVER_ORDERS: Record<CrossoverSpec['family'], readonly number[]> = {
-  linkwitzRiley: [2, 4, 8],
-  butterworth: [1, 2, 3, 4, 5, 6, 7, 8],
-};
-
 function checkCrossover(spec: CrossoverSpec, sampleRateHz: number, field: string): void {
-  const orders = CROSSOVER_ORDERS[spec.family];
-  if (!orders) {
-    throw new CalculationInputError(
-      `family must be linkwitzRiley or butterworth; received ${String(spec.family)}`,
-      `${field}/family`,
-    );
-  }
-  if (!orders.includes(spec.order)) {
-    throw new CalculationInputError(
-      `order of a ${spec.family} crossover must be one of ${orders.join(', ')}; received ${spec.order}`,
-      `${field}/order`,
-    );
-  }
-  requireInRange(
-    spec.frequencyHz,
-    { min: 1, max: sampleRateHz / 2, exclusiveMax: true, unit: 'Hz' },
-    'frequencyHz',
-    `${field}/frequencyHz`,
-  );
+  withFieldPrefix(field, () => designCrossover(spec, sampleRateHz));
 }
 
 /**

@@ -158,3 +158,76 @@ describe('rooms', () => {
     expect((await as(ctx.keys.tuning).get(`/v1/rooms/${created.body.id}`)).status).toBe(404);
   });
 });
+
+describe('GET /v1/rooms/{roomId}/report', () => {
+  let reportRoomId: string;
+
+  beforeAll(async () => {
+    const created = await as(ctx.keys.tuning).post('/v1/rooms', {
+      ...stage3(),
+      name: 'Stage 3 <script>alert(1)</script>',
+      notes: 'Demo & test "notes"',
+    });
+    reportRoomId = created.body.id;
+  });
+
+  it('without a tuning: the room, its top view and positions, no settings', async () => {
+    const res = await as(ctx.keys.tuning).get(`/v1/rooms/${reportRoomId}/report`);
+    expect(res.status).toBe(200);
+    expect(res.headers['content-type']).toMatch(/^text\/html/);
+    expect(res.text).toContain('<svg');
+    expect(res.text).toContain('No tuning is stored for this room yet.');
+    // Every stored string is escaped: no markup from a room name reaches the page.
+    expect(res.text).not.toContain('<script>');
+    expect(res.text).toContain('Stage 3 &lt;script&gt;alert(1)&lt;/script&gt;');
+    expect(res.text).toContain('Demo &amp; test &quot;notes&quot;');
+    // Self-contained: no external scripts, stylesheets, images or fonts.
+    expect(res.text).not.toMatch(/<script|<link|src=|url\(/i);
+    expect(res.text).toContain('qualified installers under local codes');
+  });
+
+  it('with a tuning: settings, correction plots, cautions, who tuned it and when', async () => {
+    const tuning = await as(ctx.keys.tuning).post(`/v1/rooms/${reportRoomId}/tunings`, {
+      name: 'Report check',
+      channels: [
+        {
+          id: 'M+030',
+          delayMs: 1.5636,
+          trimDb: -1.6,
+          eq: [{ type: 'peaking', frequencyHz: 209.7, gainDb: -3.5, q: 2.3 }],
+          highPass: { family: 'linkwitzRiley', order: 4, frequencyHz: 80 },
+        },
+        { id: 'LFE1', trimDb: 1.5 },
+      ],
+      subwoofer: {
+        channel: 'LFE1',
+        lowPass: { family: 'linkwitzRiley', order: 4, frequencyHz: 80 },
+        lfeGainDb: 10,
+      },
+    });
+    expect(tuning.status).toBe(201);
+    const res = await as(ctx.keys.tuning).get(`/v1/rooms/${reportRoomId}/report?tuningId=${tuning.body.id}`);
+    expect(res.status).toBe(200);
+    expect(res.text).toContain('Report check (version 1)');
+    expect(res.text).toContain('dev@test.example');
+    expect(res.text).toContain('LR4 80 Hz');
+    expect(res.text).toContain('peaking 209.7 Hz −3.5 dB Q 2.30');
+    expect(res.text).toContain('low-pass LR4 80 Hz');
+    expect((res.text.match(/<svg/g) ?? []).length).toBe(1 + 2);
+    expect(res.text).toContain('positive trim or EQ boost');
+    expect(res.text).toContain('Correction responses');
+  });
+
+  it('owner isolation: 404 for another owner, 403 for a calculate key; a tuning of another room is refused', async () => {
+    expect((await as(ctx.keys.otherTuning).get(`/v1/rooms/${reportRoomId}/report`)).status).toBe(404);
+    expect((await as(ctx.keys.calculate).get(`/v1/rooms/${reportRoomId}/report`)).status).toBe(403);
+    const other = await as(ctx.keys.tuning).post('/v1/rooms', { ...stage3(), name: 'Another' });
+    const foreign = await as(ctx.keys.tuning).post(`/v1/rooms/${other.body.id}/tunings`, {
+      name: 'x',
+      channels: [{ id: 'M+030' }],
+    });
+    expect(
+      (await as(ctx.keys.tuning).get(`/v1/rooms/${reportRoomId}/report?tuningId=${foreign.body.id}`)).status,
+    ).toBe(404);
+  });
+});

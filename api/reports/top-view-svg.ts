@@ -1,0 +1,89 @@
+import type { Layout } from '../../shared/layouts';
+import type { SpeakerGeometry } from '../../shared/geometry';
+import { esc, num } from './html';
+
+export interface TopViewInput {
+  dimensions: { widthM: number; lengthM: number; heightM: number };
+  listener: { x: number; y: number; z: number };
+  loudspeakers: ReadonlyArray<{ id: string; x: number; y: number; z: number }>;
+  geometry: readonly SpeakerGeometry[];
+  layout: Layout | undefined;
+}
+
+const WIDTH_PX = 520;
+const PAD_PX = 44;
+const COLOURS = { middle: '#1d5a85', upper: '#a4551b', lfe: '#4b4b4b', other: '#6a4c93' } as const;
+
+function colourOf(id: string, layout: Layout | undefined): string {
+  const layer = layout?.channels.find((c) => c.label === id)?.layer;
+  if (layer === 'lfe' || id.startsWith('LFE')) return COLOURS.lfe;
+  if (layer === 'upper' || layer === 'upperHigh' || layer === 'top') return COLOURS.upper;
+  if (layer === 'middle' || layer === 'bottom') return COLOURS.middle;
+  return COLOURS.other;
+}
+
+/**
+ * The room seen from above as inline SVG: front wall at the top, the listening position, every
+ * loudspeaker at its measured x/y (upper-layer loudspeakers as diamonds, subwoofers as squares), a thin
+ * line from the listener to each, and a dashed ray along each loudspeaker's nominal azimuth so the
+ * deviation shows. Scale 1 m = `scale` px; no external assets.
+ */
+export function topViewSvg(input: TopViewInput): string {
+  const { widthM, lengthM } = input.dimensions;
+  const scale = (WIDTH_PX - 2 * PAD_PX) / Math.max(widthM, lengthM * 0.8);
+  const w = widthM * scale + 2 * PAD_PX;
+  const h = lengthM * scale + 2 * PAD_PX;
+  const px = (x: number) => PAD_PX + x * scale;
+  const py = (y: number) => PAD_PX + y * scale;
+  const lx = px(input.listener.x);
+  const ly = py(input.listener.y);
+  const parts: string[] = [];
+  parts.push(
+    `<rect x="${PAD_PX}" y="${PAD_PX}" width="${num(widthM * scale, 1)}" height="${num(lengthM * scale, 1)}" class="room"/>`,
+  );
+  parts.push(`<text x="${num(w / 2, 1)}" y="${PAD_PX - 10}" class="wall">front</text>`);
+  parts.push(`<text x="${num(w / 2, 1)}" y="${num(h - PAD_PX + 22, 1)}" class="wall">back</text>`);
+  parts.push(
+    `<text x="${PAD_PX}" y="${num(h - 8, 1)}" class="scale">${num(widthM, 2)} m × ${num(lengthM, 2)} m</text>`,
+  );
+  for (const g of input.geometry) {
+    const speaker = input.loudspeakers.find((s) => s.id === g.id);
+    if (!speaker) continue;
+    const sx = px(speaker.x);
+    const sy = py(speaker.y);
+    parts.push(
+      `<line x1="${num(lx, 1)}" y1="${num(ly, 1)}" x2="${num(sx, 1)}" y2="${num(sy, 1)}" class="ray"/>`,
+    );
+    if (g.nominal && !g.id.startsWith('LFE')) {
+      const reach = Math.hypot(sx - lx, sy - ly);
+      const az = (g.nominal.azimuthDeg * Math.PI) / 180;
+      parts.push(
+        `<line x1="${num(lx, 1)}" y1="${num(ly, 1)}" x2="${num(lx - reach * Math.sin(az), 1)}" y2="${num(ly - reach * Math.cos(az), 1)}" class="nominal"/>`,
+      );
+    }
+  }
+  for (const speaker of input.loudspeakers) {
+    const sx = px(speaker.x);
+    const sy = py(speaker.y);
+    const colour = colourOf(speaker.id, input.layout);
+    const shape =
+      colour === COLOURS.lfe
+        ? `<rect x="${num(sx - 7, 1)}" y="${num(sy - 7, 1)}" width="14" height="14" fill="${colour}"/>`
+        : colour === COLOURS.upper
+          ? `<path d="M${num(sx, 1)} ${num(sy - 8, 1)} l8 8 l-8 8 l-8 -8 z" fill="${colour}"/>`
+          : `<circle cx="${num(sx, 1)}" cy="${num(sy, 1)}" r="7" fill="${colour}"/>`;
+    const labelY = sy < ly ? sy - 11 : sy + 20;
+    parts.push(
+      `<g>${shape}<text x="${num(sx, 1)}" y="${num(labelY, 1)}" class="label">${esc(speaker.id)}</text></g>`,
+    );
+  }
+  parts.push(
+    `<g class="listener"><circle cx="${num(lx, 1)}" cy="${num(ly, 1)}" r="9"/><path d="M${num(lx - 5, 1)} ${num(ly - 7, 1)} L${num(lx, 1)} ${num(ly - 15, 1)} L${num(lx + 5, 1)} ${num(ly - 7, 1)} z"/></g>`,
+  );
+  return [
+    `<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 ${num(w, 1)} ${num(h, 1)}" width="${num(w, 0)}" height="${num(h, 0)}" role="img" aria-label="Top view of the room with the listening position and every loudspeaker">`,
+    '<style>.room{fill:#fafaf7;stroke:#222;stroke-width:2}.wall{font:600 11px sans-serif;text-anchor:middle;fill:#444;text-transform:uppercase;letter-spacing:.1em}.scale{font:10px sans-serif;fill:#555}.ray{stroke:#9aa;stroke-width:1}.nominal{stroke:#c33;stroke-width:1;stroke-dasharray:4 3}.label{font:600 10px sans-serif;text-anchor:middle;fill:#111}.listener circle,.listener path{fill:#111}</style>',
+    ...parts,
+    '</svg>',
+  ].join('');
+}

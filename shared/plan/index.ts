@@ -1,0 +1,28 @@
+export {
+  planRoom,
+  type PlanInput,
+  type PlanChannelInput,
+  type RoomPlan,
+  type PlanChannel,
+  type PlanSubwoofer,
+} from './plan-room';
+export { alignSubwooferAtCrossover, type SubwooferAlignment } from './subwoofer-alignment';
+export {
+  checkTuningSettings,
+  checkTuningSettingsAt,
+  TUNING_LIMITS,
+  type CrossoverSpec,
+  type TuningChannel,
+  type TuningSettings,
+  type TuningSubwoofer,
+} from './tuning';
+export { planToTuningSettings } from './plan-to-tuning';
+export {
+  designTuning,
+  type DesignedTuning,
+  type DesignedChannel,
+  type DesignedSection,
+} from './tuning-design';
+export { tuningToCsv } from './tuning-csv';
+export { compareTunings, type TuningComparison, type ChannelDifference } from './tuning-compare';
+export { tuningCautions } from './tuning-cautions';

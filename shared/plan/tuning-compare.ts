@@ -1,0 +1,88 @@
+import { cascadeResponse, responseGrid } from '../filters/response';
+import type { TuningSettings } from './tuning';
+import { designTuning } from './tuning-design';
+
+export interface ChannelDifference {
+  id: string;
+  /** Where the channel exists. */
+  presentIn: 'both' | 'left' | 'right';
+  /** right − left, when in both. */
+  delayMsDifference: number | null;
+  trimDbDifference: number | null;
+  polarityChanged: boolean;
+  bassManagedChanged: boolean;
+  highPassChanged: boolean;
+  eqChanged: boolean;
+  eqBands: { left: number; right: number };
+  /**
+   * Largest |right − left| of the channel's correction (trim, EQ and crossover filters, polarity aside)
+   * over 20 Hz–20 kHz at 1/6 octave, dB; null unless in both.
+   */
+  maxResponseDifferenceDb: number | null;
+}
+
+export interface TuningComparison {
+  channels: ChannelDifference[];
+  subwoofer: { lfeGainDbDifference: number | null; lowPassChanged: boolean };
+  identical: boolean;
+}
+
+const same = (a: unknown, b: unknown) => JSON.stringify(a) === JSON.stringify(b);
+
+/** Magnitude of each channel's correction on a shared grid, dB (trim + every designed section). */
+function correctionDb(settings: TuningSettings, frequenciesHz: number[]): Map<string, number[]> {
+  const designed = designTuning(settings, settings.sampleRateHz);
+  return new Map(
+    designed.channels.map((c) => [
+      c.id,
+      cascadeResponse(c.sections, frequenciesHz, settings.sampleRateHz).magnitudeDb.map(
+        (db) => db + c.trimDb,
+      ),
+    ]),
+  );
+}
+
+/**
+ * Per-channel differences between two tunings (right minus left): settings that changed, and how far
+ * apart the two corrections' magnitude responses get (cascadeResponse of the sections each tuning
+ * designs at its own sample rate, on a common 1/6-octave grid up to 20 kHz or 0.45·fs).
+ */
+export function compareTunings(left: TuningSettings, right: TuningSettings): TuningComparison {
+  const topHz = Math.min(20000, 0.45 * Math.min(left.sampleRateHz, right.sampleRateHz));
+  const grid = responseGrid(
+    { fromHz: 20, toHz: topHz, pointsPerOctave: 6 },
+    Math.min(left.sampleRateHz, right.sampleRateHz),
+  );
+  const leftDb = correctionDb(left, grid);
+  const rightDb = correctionDb(right, grid);
+  const ids = [...new Set([...left.channels.map((c) => c.id), ...right.channels.map((c) => c.id)])];
+  const channels = ids.map((id): ChannelDifference => {
+    const l = left.channels.find((c) => c.id === id);
+    const r = right.channels.find((c) => c.id === id);
+    const both = l !== undefined && r !== undefined;
+    const a = leftDb.get(id);
+    const b = rightDb.get(id);
+    return {
+      id,
+      presentIn: both ? 'both' : l ? 'left' : 'right',
+      delayMsDifference: both ? r.delayMs - l.delayMs : null,
+      trimDbDifference: both ? r.trimDb - l.trimDb : null,
+      polarityChanged: both && r.polarity !== l.polarity,
+      bassManagedChanged: both && r.bassManaged !== l.bassManaged,
+      highPassChanged: both && !same(r.highPass, l.highPass),
+      eqChanged: both && !same(r.eq, l.eq),
+      eqBands: { left: l?.eq.length ?? 0, right: r?.eq.length ?? 0 },
+      maxResponseDifferenceDb: a && b ? Math.max(...a.map((v, i) => Math.abs(b[i] - v))) : null,
+    };
+  });
+  const subwoofer = {
+    lfeGainDbDifference:
+      left.subwoofer && right.subwoofer ? right.subwoofer.lfeGainDb - left.subwoofer.lfeGainDb : null,
+    lowPassChanged: !same(left.subwoofer?.lowPass ?? null, right.subwoofer?.lowPass ?? null),
+  };
+  const identical =
+    left.sampleRateHz === right.sampleRateHz &&
+    same(left.channels, right.channels) &&
+    same(left.subwoofer, right.subwoofer);
+  return { channels, subwoofer, identical };
+}
