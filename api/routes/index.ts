@@ -12,6 +12,7 @@ import { layoutsRouter } from './layouts';
 import { plansRouter } from './plans';
 import { outboxRouter } from './outbox';
 import { roomsRouter } from './rooms';
+import { tuningsRouter } from './tunings';
 import { usersRouter } from './users';
 
 /**
@@ -33,5 +34,6 @@ export function v1Router(services: Services): Router {
   router.use(usersRouter(services));
   router.use(outboxRouter(services));
   router.use(roomsRouter(services));
+  router.use(tuningsRouter(services));
   return router;
 }
