@@ -81,7 +81,7 @@ export function validateFormFields(schemaName: string): RequestHandler {
         errors,
       );
     }
-    req.valid = { ...req.valid, body };
+    req.valid = { body, query: {}, params: { ...req.params } };
     next();
   };
 }

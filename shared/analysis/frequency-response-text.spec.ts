@@ -1,5 +1,5 @@
 import { CalculationInputError } from '../errors';
-import { parseFrequencyResponseText } from './frequency-response-text';
+import { parseFrequencyResponseText, requireFrequencyResponse } from './frequency-response-text';
 
 describe('frequency-response text columns', () => {
   it.each([
@@ -63,5 +63,23 @@ describe('frequency-response text columns', () => {
       expect(error).toBeInstanceOf(CalculationInputError);
       expect((error as CalculationInputError).field).toBe('/frequencyResponse');
     }
+  });
+});
+
+describe('frequency responses given as arrays', () => {
+  it('accepts ascending positive frequencies with one magnitude (and phase) each', () => {
+    const response = { frequenciesHz: [20, 40], magnitudeDb: [80, 81], phaseDeg: [0, -10] };
+    expect(requireFrequencyResponse(response)).toBe(response);
+  });
+
+  it.each([
+    [{ frequenciesHz: [20], magnitudeDb: [80] }, '/response/frequenciesHz'],
+    [{ frequenciesHz: [20, 40], magnitudeDb: [80] }, '/response/magnitudeDb'],
+    [{ frequenciesHz: [20, 40], magnitudeDb: [80, 81], phaseDeg: [1] }, '/response/phaseDeg'],
+    [{ frequenciesHz: [40, 20], magnitudeDb: [80, 81] }, '/response/frequenciesHz/1'],
+    [{ frequenciesHz: [0, 20], magnitudeDb: [80, 81] }, '/response/frequenciesHz/0'],
+    [{ frequenciesHz: [20, 40], magnitudeDb: [80, Number.NaN] }, '/response/magnitudeDb/1'],
+  ])('refuses %j, naming %s', (response, field) => {
+    expect(() => requireFrequencyResponse(response)).toThrow(expect.objectContaining({ field }));
   });
 });

@@ -95,3 +95,50 @@ export function parseFrequencyResponseText(text: string, field = '/text'): Parse
   }
   return rowsWithPhase > 0 ? { frequenciesHz, magnitudeDb, phaseDeg } : { frequenciesHz, magnitudeDb };
 }
+
+/**
+ * Checks a frequency response given as arrays: 2..100 000 points, frequencies above 0 and strictly
+ * ascending, finite magnitudes, and a phase per point when phase is given.
+ * @param field JSON-pointer-like path of the response, used in errors (e.g. `/response`).
+ * @returns the same response.
+ */
+export function requireFrequencyResponse(
+  response: ParsedFrequencyResponse,
+  field = '/response',
+): ParsedFrequencyResponse {
+  const { frequenciesHz, magnitudeDb, phaseDeg } = response;
+  if (frequenciesHz.length < 2 || frequenciesHz.length > MAX_TEXT_RESPONSE_ROWS) {
+    throw new CalculationInputError(
+      `a frequency response needs 2..${MAX_TEXT_RESPONSE_ROWS} points; received ${frequenciesHz.length}`,
+      `${field}/frequenciesHz`,
+    );
+  }
+  for (const [name, values] of [
+    ['magnitudeDb', magnitudeDb],
+    ['phaseDeg', phaseDeg],
+  ] as const) {
+    if (values !== undefined && values.length !== frequenciesHz.length) {
+      throw new CalculationInputError(
+        `${name} must have one value per frequency (${frequenciesHz.length}); received ${values.length}`,
+        `${field}/${name}`,
+      );
+    }
+  }
+  frequenciesHz.forEach((f, i) => {
+    if (!(f > 0) || !Number.isFinite(f) || (i > 0 && f <= frequenciesHz[i - 1])) {
+      throw new CalculationInputError(
+        `frequencies must be above 0 Hz and ascend; ${f} Hz at index ${i} does not`,
+        `${field}/frequenciesHz/${i}`,
+      );
+    }
+  });
+  magnitudeDb.forEach((db, i) => {
+    if (!Number.isFinite(db)) {
+      throw new CalculationInputError(
+        `magnitude must be finite; received ${db}`,
+        `${field}/magnitudeDb/${i}`,
+      );
+    }
+  });
+  return response;
+}

@@ -1,5 +1,5 @@
 import { expectWithin } from '../filters/test-helpers';
-import { powerAverage } from './spatial-average';
+import { powerAverage, powerAverageResampled } from './spatial-average';
 
 describe('spatial (power) average of microphone positions', () => {
   const f = [50, 100, 200];
@@ -37,5 +37,30 @@ describe('spatial (power) average of microphone positions', () => {
       ]),
     ).toThrow(expect.objectContaining({ field: '/responses/1/frequenciesHz/1' }));
     expect(() => powerAverage([])).toThrow(/at least one/);
+  });
+});
+
+describe('power average of responses on different grids', () => {
+  it('brings each to a common log grid over the shared range, then averages energy', () => {
+    const a = { frequenciesHz: [20, 100, 1000, 5000], magnitudeDb: [0, 0, 0, 0] };
+    const b = {
+      frequenciesHz: Array.from({ length: 200 }, (_, i) => 50 + i * 10),
+      magnitudeDb: new Array(200).fill(-10),
+    };
+    const result = powerAverageResampled([a, b]);
+    expect(result.frequenciesHz[0]).toBeGreaterThanOrEqual(50);
+    expect(result.frequenciesHz.at(-1)).toBeLessThanOrEqual(2040);
+    // 48 points per octave from 50 Hz to 2040 Hz: log2(2040/50)·48 ≈ 257 points.
+    expect(Math.abs(result.frequenciesHz.length - 257)).toBeLessThanOrEqual(1);
+    result.magnitudeDb.forEach((db) => expectWithin(db, 10 * Math.log10(1.1 / 2), 1e-9, 'average'));
+  });
+
+  it('refuses responses without a common range', () => {
+    expect(() =>
+      powerAverageResampled([
+        { frequenciesHz: [20, 40], magnitudeDb: [0, 0] },
+        { frequenciesHz: [100, 200], magnitudeDb: [0, 0] },
+      ]),
+    ).toThrow(/do not share a frequency range/);
   });
 });

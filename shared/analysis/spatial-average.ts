@@ -1,4 +1,5 @@
 import { CalculationInputError } from '../errors';
+import { logFrequencyGrid, smoothMagnitudeDb } from './smoothing';
 
 export interface MagnitudeResponse {
   frequenciesHz: readonly number[];
@@ -48,4 +49,34 @@ export function powerAverage(responses: readonly MagnitudeResponse[]): {
     frequenciesHz: [...grid],
     magnitudeDb: Array.from(sum, (s) => 10 * Math.log10(s / responses.length)),
   };
+}
+
+/**
+ * Power average of responses on different frequency grids: each is first brought to a common
+ * logarithmic grid (`pointsPerOctave`, over the range every response covers) by 1/pointsPerOctave-octave
+ * power smoothing, then averaged as {@link powerAverage} does.
+ * @throws CalculationInputError when the responses share less than two grid points.
+ */
+export function powerAverageResampled(
+  responses: readonly MagnitudeResponse[],
+  pointsPerOctave = 48,
+): { frequenciesHz: number[]; magnitudeDb: number[] } {
+  if (responses.length === 0) {
+    throw new CalculationInputError('at least one response is needed to average', '/responses');
+  }
+  const fromHz = Math.max(...responses.map((r) => r.frequenciesHz[0]));
+  const toHz = Math.min(...responses.map((r) => r.frequenciesHz[r.frequenciesHz.length - 1]));
+  const grid = toHz > fromHz ? logFrequencyGrid(fromHz, toHz, pointsPerOctave) : [];
+  if (grid.length < 2) {
+    throw new CalculationInputError(
+      `the responses do not share a frequency range (common part ${fromHz}..${toHz} Hz)`,
+      '/responses',
+    );
+  }
+  return powerAverage(
+    responses.map((r) => ({
+      frequenciesHz: grid,
+      magnitudeDb: smoothMagnitudeDb(r.frequenciesHz, r.magnitudeDb, 1 / pointsPerOctave, grid),
+    })),
+  );
 }

@@ -55,12 +55,13 @@ interface FmtChunk {
  * @param bytes the whole file.
  * @param options.channel zero-based channel index; required when the file has more than one channel.
  * @param options.limits duration and sample-rate limits (default {@link DEFAULT_WAV_LIMITS}).
+ * @param options.channelField the request field that names the channel, for errors (default `/channel`).
  * @throws SignalProblemError naming what is wrong (empty, not a WAV file, truncated, unsupported encoding or
  *   sample rate, too long, channel missing or out of range).
  */
 export function decodeWav(
   bytes: Uint8Array,
-  options: { channel?: number; limits?: WavDecodeLimits } = {},
+  options: { channel?: number; limits?: WavDecodeLimits; channelField?: string } = {},
 ): DecodedWav {
   const limits = options.limits ?? DEFAULT_WAV_LIMITS;
   if (bytes.length === 0) throw new SignalProblemError('The file is empty (0 bytes).', 'emptyFile');
@@ -114,7 +115,7 @@ export function decodeWav(
     );
   }
 
-  const channelIndex = chooseChannel(options.channel, channelCount);
+  const channelIndex = chooseChannel(options.channel, channelCount, options.channelField ?? '/channel');
   const samples = decodeChannel(data.samples, encoding, channelCount, channelIndex, frameCount, littleEndian);
   return { sampleRateHz, channelCount, channelIndex, encoding, frameCount, durationS, samples };
 }
@@ -152,20 +153,21 @@ function encodingOf(fmt: FmtChunk): WavEncoding {
   );
 }
 
-function chooseChannel(channel: number | undefined, channelCount: number): number {
+function chooseChannel(channel: number | undefined, channelCount: number, field: string): number {
+  const name = field.replace(/^\//, '');
   if (channel === undefined) {
     if (channelCount === 1) return 0;
     throw new SignalProblemError(
-      `The file has ${channelCount} channels; say which one to analyse with channel (0..${channelCount - 1}).`,
+      `The file has ${channelCount} channels; say which one to analyse with ${name} (0..${channelCount - 1}).`,
       'channelRequired',
-      '/channel',
+      field,
     );
   }
   if (!Number.isInteger(channel) || channel < 0 || channel >= channelCount) {
     throw new SignalProblemError(
-      `channel must be an integer 0..${channelCount - 1} for this ${channelCount}-channel file; received ${channel}.`,
+      `${name} must be an integer 0..${channelCount - 1} for this ${channelCount}-channel file; received ${channel}.`,
       'channelOutOfRange',
-      '/channel',
+      field,
     );
   }
   return channel;

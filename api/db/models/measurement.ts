@@ -1,0 +1,65 @@
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type Sequelize,
+} from 'sequelize';
+
+export type MeasurementKind = 'impulseResponse' | 'frequencyResponse' | 'spl';
+
+/** What was uploaded: the file's name and, for audio, its format (the audio itself is not kept). */
+export interface MeasurementSource {
+  type: 'wav' | 'text' | 'json';
+  fileName?: string;
+  sizeBytes?: number;
+  sampleRateHz?: number;
+  channelCount?: number;
+  channelIndex?: number;
+  encoding?: string;
+  durationS?: number;
+}
+
+/**
+ * One measurement of one loudspeaker (channel) at one microphone position in a room: an impulse
+ * response's analysis, a frequency response, or an SPL reading. Written once, never updated.
+ */
+export class Measurement extends Model<InferAttributes<Measurement>, InferCreationAttributes<Measurement>> {
+  declare id: string;
+  declare roomId: string;
+  declare ownerId: string;
+  declare channel: string;
+  declare micPosition: string;
+  declare kind: MeasurementKind;
+  declare name: string | null;
+  declare notes: string | null;
+  declare source: MeasurementSource;
+  /** The analysis (impulse response), the response arrays (frequency response) or the reading (SPL). */
+  declare result: Record<string, unknown>;
+  declare createdByKeyId: string | null;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+}
+
+export function initMeasurement(sequelize: Sequelize): typeof Measurement {
+  Measurement.init(
+    {
+      id: { type: DataTypes.STRING(40), primaryKey: true },
+      roomId: { type: DataTypes.STRING(40), allowNull: false },
+      ownerId: { type: DataTypes.STRING(40), allowNull: false },
+      channel: { type: DataTypes.STRING(32), allowNull: false },
+      micPosition: { type: DataTypes.STRING(32), allowNull: false },
+      kind: { type: DataTypes.STRING(24), allowNull: false },
+      name: { type: DataTypes.STRING(120), allowNull: true },
+      notes: { type: DataTypes.TEXT, allowNull: true },
+      source: { type: DataTypes.JSON, allowNull: false },
+      result: { type: DataTypes.JSON, allowNull: false },
+      createdByKeyId: { type: DataTypes.STRING(40), allowNull: true },
+      createdAt: DataTypes.DATE,
+      updatedAt: DataTypes.DATE,
+    },
+    { sequelize, tableName: 'measurements' },
+  );
+  return Measurement;
+}

@@ -1,0 +1,125 @@
+import { speedOfSoundMps } from '../../shared/acoustics/speed-of-sound';
+import { analyzeImpulseResponse } from '../../shared/analysis/analyze-impulse-response';
+import {
+  parseFrequencyResponseText,
+  requireFrequencyResponse,
+  type ParsedFrequencyResponse,
+} from '../../shared/analysis/frequency-response-text';
+import { MIN_SMOOTHING_OCTAVES } from '../../shared/analysis/smoothing';
+import { decodeWav } from '../../shared/analysis/wav-decode';
+import { CalculationInputError } from '../../shared/errors';
+import type { MeasurementKind, MeasurementSource } from '../db/models/measurement';
+import type { Room } from '../db/models/room';
+
+/** What a measurement row stores, before the row exists. */
+export interface MeasurementContent {
+  kind: MeasurementKind;
+  source: MeasurementSource;
+  result: Record<string, unknown>;
+}
+
+export interface UploadForm {
+  channel: string;
+  micPosition: string;
+  fileChannel?: number;
+  smoothingOctaves?: number;
+  temperatureC?: number;
+  name?: string;
+  notes?: string;
+}
+
+/** The room must have a loudspeaker with this channel label. */
+export function requireRoomChannel(room: Room, channel: string): void {
+  const labels = room.loudspeakers.map((l) => l.id);
+  if (!labels.includes(channel)) {
+    throw new CalculationInputError(
+      `channel ${channel} is not a loudspeaker of room ${room.id}; it has ${labels.join(', ')}`,
+      '/channel',
+    );
+  }
+}
+
+const isWav = (bytes: Buffer, fileName: string, mimeType: string): boolean =>
+  /\.wav$/i.test(fileName) ||
+  /^audio\//i.test(mimeType) ||
+  (['RIFF', 'RIFX', 'RF64'].includes(bytes.subarray(0, 4).toString('latin1')) &&
+    bytes.subarray(8, 12).toString('latin1') === 'WAVE');
+
+/**
+ * An uploaded file as a measurement: a WAV impulse response is analysed in the room (its dimensions give
+ * the modes); anything else must be a text frequency response.
+ */
+export function contentFromFile(
+  file: { buffer: Buffer; originalname: string; mimetype: string; size: number },
+  form: UploadForm,
+  room: Room,
+): MeasurementContent {
+  if (isWav(file.buffer, file.originalname, file.mimetype)) {
+    const wav = decodeWav(file.buffer, { channel: form.fileChannel, channelField: '/fileChannel' });
+    const analysis = analyzeImpulseResponse(wav.samples, wav.sampleRateHz, {
+      smoothingOctaves: Math.max(MIN_SMOOTHING_OCTAVES, form.smoothingOctaves ?? 1 / 12),
+      room: room.dimensions,
+      speedOfSoundMps: speedOfSoundMps(form.temperatureC ?? 20),
+    });
+    const { sampleRateHz, channelCount, channelIndex, encoding, durationS } = wav;
+    return {
+      kind: 'impulseResponse',
+      source: {
+        type: 'wav',
+        fileName: file.originalname,
+        sizeBytes: file.size,
+        sampleRateHz,
+        channelCount,
+        channelIndex,
+        encoding,
+        durationS,
+      },
+      result: { ...analysis },
+    };
+  }
+  if (file.buffer.includes(0)) {
+    throw new CalculationInputError(
+      'The file is neither a WAV impulse response nor a text frequency response (it holds binary data).',
+      '/file',
+    );
+  }
+  const response = parseFrequencyResponseText(file.buffer.toString('utf8'), '/file');
+  return {
+    kind: 'frequencyResponse',
+    source: { type: 'text', fileName: file.originalname, sizeBytes: file.size },
+    result: { ...response },
+  };
+}
+
+export type JsonMeasurement =
+  | { kind: 'frequencyResponse'; response?: ParsedFrequencyResponse; text?: string }
+  | { kind: 'spl'; splDb: number; weighting?: 'A' | 'C' | 'Z'; timeWeighting?: 'slow' | 'fast' };
+
+/** A JSON measurement body as stored content. */
+export function contentFromJson(body: JsonMeasurement): MeasurementContent {
+  if (body.kind === 'spl') {
+    return {
+      kind: 'spl',
+      source: { type: 'json' },
+      result: {
+        splDb: body.splDb,
+        weighting: body.weighting ?? 'C',
+        timeWeighting: body.timeWeighting ?? 'slow',
+      },
+    };
+  }
+  if ((body.response === undefined) === (body.text === undefined)) {
+    throw new CalculationInputError(
+      'give the response either as arrays (response) or as text (text), not both',
+      '/response',
+    );
+  }
+  const response = body.response
+    ? requireFrequencyResponse(body.response)
+    : parseFrequencyResponseText(body.text ?? '', '/text');
+  return {
+    kind: 'frequencyResponse',
+    source: { type: body.text ? 'text' : 'json' },
+    result: { ...response },
+  };
+}
