@@ -6,6 +6,7 @@ import { crossoversRouter } from './crossovers';
 import { delaysRouter } from './delays';
 import { analysisRouter } from './analysis';
 import { eqFitRouter } from './eq-fit';
+import { measurementsRouter } from './measurements';
 import { geometryRouter } from './geometry';
 import { levelsRouter } from './levels';
 import { layoutsRouter } from './layouts';
@@ -34,6 +35,7 @@ export function v1Router(services: Services): Router {
   router.use(usersRouter(services));
   router.use(outboxRouter(services));
   router.use(roomsRouter(services));
+  router.use(measurementsRouter(services));
   router.use(tuningsRouter(services));
   return router;
 }

@@ -2,6 +2,7 @@ import type { Sequelize } from 'sequelize';
 import { initApiKey } from './api-key';
 import { initAuditEvent } from './audit-event';
 import { initInvitation } from './invitation';
+import { initMeasurement } from './measurement';
 import { initRoom } from './room';
 import { initSession } from './session';
 import { initTuning } from './tuning';
@@ -21,6 +22,7 @@ export function defineModels(sequelize: Sequelize) {
     Room: initRoom(sequelize),
     Tuning: initTuning(sequelize),
     TuningVersion: initTuningVersion(sequelize),
+    Measurement: initMeasurement(sequelize),
   };
   return models;
 }
