@@ -27,7 +27,7 @@ afterAll(async () => {
 });
 
 afterEach(() => {
-  expect(browser.faults()).toEqual([]);
+  if (browser) expect(browser.faults()).toEqual([]);
 });
 
 it('shows the sign-in page to a visitor and refuses a wrong password with a readable message', async () => {

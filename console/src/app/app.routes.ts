@@ -37,6 +37,18 @@ export const routes: Routes = [
         loadComponent: () => import('./usage/usage-page/usage-page').then((m) => m.UsagePage),
       },
       {
+        path: 'rooms',
+        title: 'Rooms · Isochron',
+        canActivate: [requireCapability('rooms:view')],
+        loadComponent: () => import('./rooms/rooms-page/rooms-page').then((m) => m.RoomsPage),
+      },
+      {
+        path: 'rooms/:roomId',
+        title: 'Room · Isochron',
+        canActivate: [requireCapability('rooms:view')],
+        loadComponent: () => import('./rooms/room-page/room-page').then((m) => m.RoomPage),
+      },
+      {
         path: 'users',
         title: 'Users · Isochron',
         canActivate: [requireCapability('users:manage')],

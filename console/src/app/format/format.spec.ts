@@ -1,4 +1,12 @@
-import { formatCount, formatDate, formatDateTime, formatPercent, formatRelative } from './format';
+import {
+  formatCount,
+  formatDate,
+  formatDateTime,
+  formatPercent,
+  formatQuantity,
+  formatRelative,
+  formatSigned,
+} from './format';
 
 describe('formatDateTime', () => {
   it('writes ISO-like local times in the requested zone', () => {
@@ -36,5 +44,17 @@ describe('formatCount and formatPercent', () => {
     expect(formatPercent(0.0123)).toBe('1.2\u00a0%');
     expect(formatPercent(0)).toBe('0.0\u00a0%');
     expect(formatPercent(Number.NaN)).toBe('—');
+  });
+});
+
+describe('formatSigned and formatQuantity', () => {
+  it('writes signs with a true minus and keeps the unit on the same line', () => {
+    expect(formatSigned(1.5, 'dB')).toBe('+1.50\u00a0dB');
+    expect(formatSigned(-0.2, 'ms')).toBe('\u22120.20\u00a0ms');
+    expect(formatSigned(-0.0001, 'ms')).toBe('0.00\u00a0ms');
+    expect(formatSigned(null, 'dB')).toBe('—');
+    expect(formatQuantity(3.254, 'm')).toBe('3.25\u00a0m');
+    expect(formatQuantity(-30, '°', 1)).toBe('\u221230.0°');
+    expect(formatQuantity(undefined, 'm')).toBe('—');
   });
 });

@@ -60,3 +60,19 @@ export function formatPercent(ratio: number): string {
   if (!Number.isFinite(ratio)) return '—';
   return `${(ratio * 100).toFixed(1)}\u00a0%`;
 }
+
+/** A signed difference with its unit: "+1.50 dB", "−0.20 ms" (true minus sign), "0.00 ms"; "—" for none. */
+export function formatSigned(value: number | null | undefined, unit: string, digits = 2): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return '—';
+  const rounded = Number(value.toFixed(digits));
+  const text = Math.abs(rounded).toFixed(digits);
+  const sign = rounded > 0 ? '+' : rounded < 0 ? '\u2212' : '';
+  return `${sign}${text}\u00a0${unit}`;
+}
+
+/** A plain quantity with its unit: "3.25 m", "30.0°". */
+export function formatQuantity(value: number | null | undefined, unit: string, digits = 2): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return '—';
+  const text = value.toFixed(digits).replace('-', '\u2212');
+  return unit === '°' ? `${text}°` : `${text}\u00a0${unit}`;
+}

@@ -15,6 +15,7 @@ export const NAV_ITEMS: readonly NavItem[] = [
   { path: '/keys', label: 'Keys', icon: 'key', needs: 'keys:view' },
   { path: '/usage', label: 'Usage', icon: 'monitoring' },
   { path: '/playground', label: 'Playground', icon: 'science' },
+  { path: '/rooms', label: 'Rooms', icon: 'speaker_group', needs: 'rooms:view' },
   { path: '/users', label: 'Users', icon: 'group', needs: 'users:manage' },
   { path: '/reference', label: 'API reference', icon: 'menu_book' },
 ];

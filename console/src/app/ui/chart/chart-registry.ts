@@ -10,6 +10,7 @@ import {
   LinearScale,
   LogarithmicScale,
   PointElement,
+  ScatterController,
   Tooltip,
 } from 'chart.js';
 
@@ -25,6 +26,7 @@ Chart.register(
   LinearScale,
   LogarithmicScale,
   PointElement,
+  ScatterController,
   Tooltip,
 );
 

@@ -1,8 +1,15 @@
 /** A chart described without any charting library types, so pages and helpers stay plain data. */
 export interface ChartSpec {
-  kind: 'line' | 'bar';
+  /** `scatter` draws points on two numeric axes (a floor plan, for instance). */
+  kind: 'line' | 'bar' | 'scatter';
   /** `log` draws frequency axes; `category` uses `labels`. */
   xScale: 'category' | 'log' | 'linear';
+  xMin?: number;
+  xMax?: number;
+  /** Draw the y axis downward (a plan seen from above with the front wall at the top). */
+  yReverse?: boolean;
+  /** Width divided by height; the chart keeps this shape instead of a fixed height. */
+  aspectRatio?: number;
   labels?: string[];
   xTitle?: string;
   yTitle?: string;
@@ -26,10 +33,16 @@ export interface ChartSeries {
   values?: Array<number | null>;
   /** Points for numeric x axes; a null y leaves a gap in the line. */
   points?: Array<{ x: number; y: number | null }>;
-  /** Index into the console's series colours (1-6). */
+  /** Index into the console's series colours (1-6); 0 is the muted colour for outlines. */
   colour: number;
   axis?: 'left' | 'right';
   dashed?: boolean;
   fill?: boolean;
-  kind?: 'line' | 'bar';
+  kind?: 'line' | 'bar' | 'scatter';
+  /** For scatter series: join the points with a line (an outline). */
+  showLine?: boolean;
+  /** Text drawn beside each point, in order. */
+  pointLabels?: string[];
+  pointRadius?: number;
+  pointStyle?: 'circle' | 'rect' | 'triangle' | 'crossRot' | 'rectRot';
 }

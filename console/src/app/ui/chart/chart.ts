@@ -8,7 +8,7 @@ import {
   input,
   viewChild,
 } from '@angular/core';
-import type { ChartConfiguration, ChartDataset } from 'chart.js';
+import type { ChartConfiguration, ChartDataset, Plugin, TooltipItem } from 'chart.js';
 import { ThemeService } from '../../theme/theme.service';
 import { Chart } from './chart-registry';
 import { ChartSpec } from './chart-spec';
@@ -56,19 +56,31 @@ function withAlpha(colour: string, alpha: number): string {
 
 function toConfig(spec: ChartSpec, palette: Palette): ChartConfiguration {
   const datasets = spec.series.map((series) => {
-    const colour = palette.series[(series.colour - 1 + palette.series.length) % palette.series.length];
+    // Colour 0 is the muted outline colour (room walls, reference lines); 1-6 are the series colours.
+    const colour =
+      series.colour === 0
+        ? palette.muted
+        : palette.series[(series.colour - 1 + palette.series.length) % palette.series.length];
     const kind = series.kind ?? spec.kind;
     const dataset = {
       type: kind,
       label: series.label,
       data: (series.points ?? series.values ?? []) as never,
       borderColor: colour,
-      backgroundColor: kind === 'bar' ? withAlpha(colour, 0.75) : withAlpha(colour, 0.15),
+      backgroundColor:
+        kind === 'bar'
+          ? withAlpha(colour, 0.75)
+          : kind === 'scatter' && !series.showLine
+            ? colour
+            : withAlpha(colour, 0.15),
       borderWidth: kind === 'bar' ? 0 : 2,
       borderDash: series.dashed ? [6, 4] : undefined,
       fill: series.fill ?? false,
-      pointRadius: 0,
-      pointHoverRadius: 3,
+      pointRadius: series.pointRadius ?? (kind === 'scatter' ? 5 : 0),
+      pointHoverRadius: kind === 'scatter' ? 7 : 3,
+      pointStyle: series.pointStyle ?? 'circle',
+      showLine: kind === 'scatter' ? (series.showLine ?? false) : undefined,
+      isoLabels: series.pointLabels,
       tension: 0,
       yAxisID: series.axis === 'right' ? 'right' : 'y',
     };
@@ -96,7 +108,14 @@ function toConfig(spec: ChartSpec, palette: Palette): ChartConfiguration {
           },
         }
       : spec.xScale === 'linear'
-        ? { type: 'linear' as const, title: axisTitle(spec.xTitle), grid, ticks }
+        ? {
+            type: 'linear' as const,
+            title: axisTitle(spec.xTitle),
+            grid,
+            ticks,
+            min: spec.xMin,
+            max: spec.xMax,
+          }
         : {
             type: 'category' as const,
             title: axisTitle(spec.xTitle),
@@ -107,27 +126,38 @@ function toConfig(spec: ChartSpec, palette: Palette): ChartConfiguration {
   const valueAxis = {
     type: 'linear' as const,
     grid,
-    ticks: { ...ticks, precision: spec.kind === 'bar' ? 0 : undefined, stepSize: spec.yStep },
+    ticks: {
+      ...ticks,
+      precision: spec.kind === 'bar' ? 0 : undefined,
+      stepSize: spec.yStep,
+      includeBounds: spec.kind !== 'scatter',
+    },
     min: spec.yMin,
     max: spec.yMax,
     stacked: spec.stacked,
     beginAtZero: spec.kind === 'bar',
+    reverse: spec.yReverse ?? false,
   };
+  const scatter = spec.kind === 'scatter';
   return {
     type: spec.kind,
     data: { labels: spec.labels, datasets },
     options: {
       responsive: true,
-      maintainAspectRatio: false,
+      maintainAspectRatio: spec.aspectRatio !== undefined,
+      aspectRatio: spec.aspectRatio,
       animation: false,
       parsing: spec.xScale === 'category' ? undefined : false,
       normalized: true,
-      interaction: { mode: 'index', intersect: false },
+      interaction: scatter ? { mode: 'nearest', intersect: true } : { mode: 'index', intersect: false },
       color: palette.text,
       font: { family: palette.font },
       plugins: {
         legend: { position: 'bottom', labels: { color: palette.text, boxWidth: 14, boxHeight: 3 } },
-        tooltip: { enabled: true },
+        tooltip: {
+          enabled: true,
+          callbacks: scatter ? { label: scatterTooltip } : {},
+        },
       },
       indexAxis: spec.horizontal ? 'y' : 'x',
       scales: {
@@ -150,19 +180,57 @@ function toConfig(spec: ChartSpec, palette: Palette): ChartConfiguration {
           : {}),
       },
     },
+    plugins: [pointLabels(palette)],
   } as ChartConfiguration;
+}
+
+type LabelledDataset = ChartDataset & { isoLabels?: string[] };
+
+function scatterTooltip(item: TooltipItem<'scatter'>): string {
+  const labels = (item.dataset as LabelledDataset).isoLabels;
+  const point = item.raw as { x: number; y: number };
+  const name = labels?.[item.dataIndex] ?? item.dataset.label ?? '';
+  return `${name}: x ${point.x.toFixed(2)} m, y ${point.y.toFixed(2)} m`;
+}
+
+/** Draws each point's label just above it (channel names on a floor plan). */
+function pointLabels(palette: Palette): Plugin {
+  return {
+    id: 'isoPointLabels',
+    afterDatasetsDraw(chart) {
+      const context = chart.ctx;
+      chart.data.datasets.forEach((dataset, index) => {
+        const labels = (dataset as LabelledDataset).isoLabels;
+        if (!labels?.length || !chart.isDatasetVisible(index)) return;
+        context.save();
+        context.font = `500 11px ${palette.font}`;
+        context.fillStyle = palette.text;
+        context.textAlign = 'center';
+        context.textBaseline = 'bottom';
+        chart.getDatasetMeta(index).data.forEach((element, point) => {
+          const { x, y } = element.getProps(['x', 'y'], true) as { x: number; y: number };
+          context.fillText(labels[point] ?? '', x, y - 8);
+        });
+        context.restore();
+      });
+    },
+  };
 }
 
 /** A chart.js canvas with the console's colours; the summary is what a screen reader hears. */
 @Component({
   selector: 'iso-chart',
   template: `<canvas #canvas role="img" [attr.aria-label]="spec().summary"></canvas>`,
+  host: { '[class.keeps-shape]': 'spec().aspectRatio !== undefined' },
   styles: `
     :host {
       display: block;
       position: relative;
       height: 280px;
       min-width: 0;
+    }
+    :host(.keeps-shape) {
+      height: auto;
     }
     canvas {
       max-width: 100%;
