@@ -5,6 +5,7 @@ import helmet from 'helmet';
 import { authenticate } from './auth/authenticate';
 import { requestId } from './http/request-id';
 import { notFoundHandler, problemHandler } from './http/problem';
+import { createRateLimiter } from './rate-limit/rate-limiter';
 import { getContract } from './http/validate';
 import { docsRouter } from './routes/docs';
 import { healthRouter } from './routes/health';
@@ -45,7 +46,13 @@ export function createApp(services: Services): Express {
   app.use(docsRouter(getContract().document));
   app.use('/auth', sessionRouter(services));
 
-  app.use('/v1', authenticate(services.keys, services.sessionPrincipal), v1Router(services));
+  app.use(
+    '/v1',
+    authenticate(services.keys, services.sessionPrincipal),
+    createRateLimiter(services),
+    services.usage.middleware,
+    v1Router(services),
+  );
   app.use('/v1', notFoundHandler);
 
   serveConsole(app, config.consoleDir);

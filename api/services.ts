@@ -5,6 +5,7 @@ import { openDatabase, type Database } from './db/database';
 import { createLogger, type Logger } from './logger';
 import { createMailer, type Mailer } from './mail';
 import { createConsoleSessions, type ConsoleSessions } from './session';
+import { createUsageMeter, type UsageMeter } from './usage/usage-meter';
 
 /** What the routers need, built once per process (or per test). */
 export interface Services {
@@ -18,6 +19,8 @@ export interface Services {
   mail: Mailer;
   /** Console sign-in: express-session on SQLite and passport-local. */
   sessions: ConsoleSessions;
+  /** Counts `/v1` calls in memory and writes them in batches; flushed on close. */
+  usage: UsageMeter;
   /** Work to run on shutdown, in order, before the database closes (flushing metered usage...). */
   onClose: Array<() => Promise<void>>;
 }
@@ -28,6 +31,7 @@ export async function createServices(config: Config): Promise<Services> {
   const mail = await createMailer(config, logger);
   logger.info(`mail goes to ${mail.description}`);
   const sessions = createConsoleSessions({ config, db });
+  const usage = createUsageMeter(db, config, logger);
   return {
     config,
     db,
@@ -36,7 +40,8 @@ export async function createServices(config: Config): Promise<Services> {
     sessionPrincipal: sessions.principal,
     mail,
     sessions,
-    onClose: [async () => sessions.close(), () => mail.close()],
+    usage,
+    onClose: [async () => sessions.close(), () => mail.close(), () => usage.close()],
   };
 }
 

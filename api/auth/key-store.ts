@@ -19,6 +19,8 @@ const CACHE_TTL_MS = 1000;
  */
 export class KeyStore {
   private readonly cache = new Map<string, { key: ActiveKey | null; at: number }>();
+  /** Bumped by `invalidate()`: a lookup that started before a change must not cache what it read. */
+  private generation = 0;
 
   constructor(
     private readonly models: Models,
@@ -34,6 +36,7 @@ export class KeyStore {
     if (cached && now - cached.at < CACHE_TTL_MS) {
       key = cached.key;
     } else {
+      const generation = this.generation;
       const row = await this.models.ApiKey.findOne({ where: { secretHash: hash, revokedAt: null } });
       key = row && {
         id: row.id,
@@ -43,7 +46,7 @@ export class KeyStore {
         expiresAt: row.expiresAt,
       };
       if (this.cache.size > 10_000) this.cache.clear();
-      this.cache.set(hash, { key, at: now });
+      if (generation === this.generation) this.cache.set(hash, { key, at: now });
     }
     if (key?.expiresAt && key.expiresAt.getTime() <= now) return null;
     return key;
@@ -51,6 +54,7 @@ export class KeyStore {
 
   /** Call after revoking or editing a key so the next request sees the change. */
   invalidate(): void {
+    this.generation += 1;
     this.cache.clear();
   }
 }

@@ -1,4 +1,4 @@
-import type { RequestHandler } from 'express';
+import type { Request, RequestHandler } from 'express';
 import type { KeyRole } from '../db/models/api-key';
 import type { UserRole } from '../db/models/user';
 import { forbidden } from '../http/problem';
@@ -57,6 +57,12 @@ export function requirePermission(...permissions: Permission[]): RequestHandler 
     }
     next();
   };
+}
+
+/** The caller of a request that passed authentication (every `/v1` route). */
+export function principalOf(req: Request): Principal {
+  if (!req.principal) throw new Error('No principal: the route is not behind authentication');
+  return req.principal;
 }
 
 /** True when the caller may see every owner's resources, not just its own. */

@@ -6,15 +6,15 @@ import { crossoversRouter } from './crossovers';
 import { delaysRouter } from './delays';
 import { analysisRouter } from './analysis';
 import { eqFitRouter } from './eq-fit';
-import { measurementsRouter } from './measurements';
 import { geometryRouter } from './geometry';
 import { levelsRouter } from './levels';
+import { keysRouter } from './keys';
 import { layoutsRouter } from './layouts';
 import { plansRouter } from './plans';
 import { outboxRouter } from './outbox';
 import { roomsRouter } from './rooms';
-import { tuningsRouter } from './tunings';
 import { usersRouter } from './users';
+import { usageRouter } from './usage';
 
 /**
  * Every `/v1` resource router, mounted after authentication, rate limiting and metering.
@@ -34,8 +34,8 @@ export function v1Router(services: Services): Router {
   router.use(analysisRouter);
   router.use(usersRouter(services));
   router.use(outboxRouter(services));
+  router.use(keysRouter(services));
+  router.use(usageRouter(services));
   router.use(roomsRouter(services));
-  router.use(measurementsRouter(services));
-  router.use(tuningsRouter(services));
   return router;
 }

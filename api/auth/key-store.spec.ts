@@ -1,0 +1,66 @@
+import type { Models } from '../db/models';
+import { KeyStore } from './key-store';
+
+const SECRET = 'iso_test_' + 'A'.repeat(43);
+
+function row(overrides: object = {}) {
+  return {
+    id: 'key_1',
+    role: 'calculate',
+    ownerId: 'usr_1',
+    rateLimitPerMinute: null,
+    expiresAt: null,
+    ...overrides,
+  };
+}
+
+/** A database whose answers the test releases one at a time. */
+function controlledModels() {
+  const pending: Array<(value: unknown) => void> = [];
+  const findOne = jest.fn(() => new Promise((resolve) => pending.push(resolve)));
+  return { models: { ApiKey: { findOne } } as unknown as Models, findOne, pending };
+}
+
+describe('KeyStore', () => {
+  it('answers repeated lookups from its cache within the second', async () => {
+    const { models, findOne, pending } = controlledModels();
+    let now = 1_000_000;
+    const store = new KeyStore(models, 'server-secret', () => now);
+    const first = store.findActive(SECRET);
+    pending.shift()!(row());
+    expect((await first)?.id).toBe('key_1');
+    now += 999;
+    expect((await store.findActive(SECRET))?.id).toBe('key_1');
+    expect(findOne).toHaveBeenCalledTimes(1);
+    now += 1;
+    const third = store.findActive(SECRET);
+    pending.shift()!(row());
+    await third;
+    expect(findOne).toHaveBeenCalledTimes(2);
+  });
+
+  it('does not cache an answer read before an invalidation (a revocation racing a lookup)', async () => {
+    const { models, findOne, pending } = controlledModels();
+    const store = new KeyStore(models, 'server-secret', () => 5_000_000);
+    const racing = store.findActive(SECRET);
+    // The revocation commits and invalidates while the lookup is still reading the old row.
+    store.invalidate();
+    pending.shift()!(row());
+    expect((await racing)?.id).toBe('key_1');
+    const next = store.findActive(SECRET);
+    expect(findOne).toHaveBeenCalledTimes(2);
+    pending.shift()!(null);
+    expect(await next).toBeNull();
+  });
+
+  it('refuses a key past its expiry even from the cache', async () => {
+    const { models, pending } = controlledModels();
+    let now = 10_000;
+    const store = new KeyStore(models, 'server-secret', () => now);
+    const first = store.findActive(SECRET);
+    pending.shift()!(row({ expiresAt: new Date(10_500) }));
+    expect(await first).not.toBeNull();
+    now = 10_500;
+    expect(await store.findActive(SECRET)).toBeNull();
+  });
+});

@@ -1,0 +1,53 @@
+import type { Request, RequestHandler } from 'express';
+import { MemoryStore, rateLimit, type Store } from 'express-rate-limit';
+import { ProblemError, sendProblem } from '../http/problem';
+import type { Services } from '../services';
+
+const WINDOW_MS = 60_000;
+
+/** Whose allowance a request spends: its key's, or for a console session its user's. */
+export function rateLimitSubject(req: Request): string {
+  const principal = req.principal;
+  if (!principal) throw new Error('The rate limiter runs after authentication');
+  return principal.keyId ? `key:${principal.keyId}` : `user:${principal.userId}`;
+}
+
+export interface RateLimiterOptions {
+  /** Where hits are counted; one store per limiter. In memory by default (one process). */
+  store?: Store;
+}
+
+/**
+ * Per-key rate limit over a one-minute window: each key's own `rateLimitPerMinute`, or the server
+ * default. Mounted after authentication so the identity is the key, never the client address. Answers
+ * with IETF draft-8 `RateLimit`/`RateLimit-Policy` headers and, past the limit, a 429 problem document
+ * with `Retry-After`. Build it once per app; its store is shut down when the services close.
+ */
+export function createRateLimiter(services: Services, options: RateLimiterOptions = {}): RequestHandler {
+  const store = options.store ?? new MemoryStore();
+  const fallback = services.config.defaultRateLimitPerMinute;
+  services.onClose.push(async () => {
+    await store.shutdown?.();
+  });
+  return rateLimit({
+    windowMs: WINDOW_MS,
+    limit: (req) => req.principal?.rateLimitPerMinute ?? fallback,
+    keyGenerator: rateLimitSubject,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    store,
+    handler: (req, res, _next, used) => {
+      const limit = (req as Request & { rateLimit?: { limit: number } }).rateLimit?.limit ?? used.limit;
+      sendProblem(
+        res,
+        new ProblemError({
+          status: 429,
+          title: 'Too many requests',
+          detail: `This key may make ${String(limit)} requests per minute. Retry after the time given in Retry-After (seconds).`,
+          type: 'rate-limited',
+        }),
+        req.originalUrl.split('?')[0],
+      );
+    },
+  });
+}

@@ -1,0 +1,60 @@
+import { QueryTypes, type Transaction } from 'sequelize';
+import type { Database } from '../db/database';
+import type { UsageBatch, UsageCount } from './usage-counter';
+
+/** Where flushed usage goes. SQLite here; another database or a queue would implement the same. */
+export interface UsageSink {
+  write(batch: UsageBatch): Promise<void>;
+}
+
+// 8 bound values per row; 100 rows stay far below SQLite's limit on bound variables.
+const ROWS_PER_STATEMENT = 100;
+
+/**
+ * Adds a batch to `usage_buckets` and moves `api_keys.lastUsedAt` forward, all in one transaction
+ * through the write queue. Counts are added to the stored ones (`count = count + excluded.count`), so
+ * flushes from any number of processes or restarts sum up instead of overwriting each other.
+ */
+export class SqliteUsageSink implements UsageSink {
+  constructor(private readonly db: Database) {}
+
+  write(batch: UsageBatch): Promise<void> {
+    if (batch.counts.length === 0 && batch.lastUsedAt.size === 0) return Promise.resolve();
+    return this.db.write(async (transaction) => {
+      const now = new Date();
+      for (let i = 0; i < batch.counts.length; i += ROWS_PER_STATEMENT) {
+        await this.upsert(batch.counts.slice(i, i + ROWS_PER_STATEMENT), now, transaction);
+      }
+      for (const [keyId, atMs] of batch.lastUsedAt) {
+        const at = new Date(atMs);
+        await this.db.sequelize.query(
+          'UPDATE api_keys SET "lastUsedAt" = ? WHERE id = ? AND ("lastUsedAt" IS NULL OR "lastUsedAt" < ?)',
+          { replacements: [at, keyId, at], type: QueryTypes.UPDATE, transaction },
+        );
+      }
+    });
+  }
+
+  private async upsert(rows: UsageCount[], now: Date, transaction: Transaction): Promise<void> {
+    const values: unknown[] = [];
+    for (const row of rows) {
+      values.push(
+        row.keyId,
+        row.userId,
+        row.route,
+        row.statusClass,
+        new Date(row.bucketStart),
+        row.count,
+        now,
+        now,
+      );
+    }
+    await this.db.sequelize.query(
+      `INSERT INTO usage_buckets ("keyId", "userId", route, "statusClass", "bucketStart", count, "createdAt", "updatedAt")
+       VALUES ${rows.map(() => '(?, ?, ?, ?, ?, ?, ?, ?)').join(', ')}
+       ON CONFLICT ("keyId", "userId", route, "statusClass", "bucketStart")
+       DO UPDATE SET count = count + excluded.count, "updatedAt" = excluded."updatedAt"`,
+      { replacements: values, type: QueryTypes.INSERT, transaction },
+    );
+  }
+}
