@@ -11,3 +11,6 @@ export * from './filters/response';
 export * from './filters/crossover';
 export * from './bass-management/bass-management';
 export * from './filters/filter-set';
+export * from './layouts';
+export * from './geometry';
+export * from './plan';
