@@ -5,7 +5,10 @@ module.exports = {
   testMatch: ['**/*.spec.ts', '**/*.test.ts'],
   testPathIgnorePatterns: ['/node_modules/', '/dist/', '<rootDir>/tests/browser/'],
   transform: {
-    '^.+\\.ts$': ['@swc/jest', { jsc: { target: 'es2022', parser: { syntax: 'typescript' } }, module: { type: 'commonjs' } }],
+    '^.+\\.ts$': [
+      '@swc/jest',
+      { jsc: { target: 'es2022', parser: { syntax: 'typescript' } }, module: { type: 'commonjs' } },
+    ],
   },
   moduleFileExtensions: ['ts', 'js', 'json'],
   testTimeout: 30000,

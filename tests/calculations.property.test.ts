@@ -179,14 +179,12 @@ const filterSpec = (fs: number) =>
                     fc.record({ bandwidthOctaves: num(0.01, 8) }),
                   )
                 : fc.oneof(fc.constant({}), fc.record({ q: num(0.025, 100) }));
-          return fc
-            .tuple(filterFrequency(fs), num(-48, 24), shape)
-            .map(([frequencyHz, gainDb, extra]) => ({
-              type,
-              frequencyHz,
-              ...(gained ? { gainDb } : {}),
-              ...extra,
-            }));
+          return fc.tuple(filterFrequency(fs), num(-48, 24), shape).map(([frequencyHz, gainDb, extra]) => ({
+            type,
+            frequencyHz,
+            ...(gained ? { gainDb } : {}),
+            ...extra,
+          }));
         }),
     },
     {

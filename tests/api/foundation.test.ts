@@ -34,7 +34,9 @@ describe('service basics', () => {
   });
 
   it('answers unknown routes with a JSON problem, not HTML', async () => {
-    const res = await request(ctx.app).get('/v1/nothing-here').set('Authorization', `Bearer ${ctx.keys.calculate}`);
+    const res = await request(ctx.app)
+      .get('/v1/nothing-here')
+      .set('Authorization', `Bearer ${ctx.keys.calculate}`);
     expect(res.status).toBe(404);
     expect(res.headers['content-type']).toMatch(/application\/problem\+json/);
     expect(res.body).toMatchObject({ status: 404, title: 'Not found', instance: '/v1/nothing-here' });
@@ -73,7 +75,9 @@ describe('API key authentication', () => {
   });
 
   it('accepts a valid key and lets the request through to routing', async () => {
-    const res = await request(ctx.app).get('/v1/anything').set('Authorization', `Bearer ${ctx.keys.calculate}`);
+    const res = await request(ctx.app)
+      .get('/v1/anything')
+      .set('Authorization', `Bearer ${ctx.keys.calculate}`);
     expect(res.status).toBe(404);
   });
 });
