@@ -1,5 +1,12 @@
 import type { Page } from 'playwright-core';
-import { type ConsoleBrowser, PHONE, horizontalOverflow, launchBrowser, screenshot } from './support/browser';
+import {
+  type ConsoleBrowser,
+  PHONE,
+  contrastProblems,
+  horizontalOverflow,
+  launchBrowser,
+  screenshot,
+} from './support/browser';
 import { ADMIN_PAGES, openPage, signIn } from './support/console-pages';
 import { type RunningService, startService } from './support/service';
 
@@ -156,4 +163,32 @@ describe('in the dark scheme', () => {
       expect(await page.evaluate('document.documentElement.classList.contains("iso-dark")')).toBe(true);
     });
   });
+});
+
+describe('readable contrast', () => {
+  it.each(['light', 'dark'] as const)(
+    'keeps every text at WCAG AA contrast in the %s scheme',
+    async (scheme) => {
+      await withBrowser(scheme, async (_browser, page) => {
+        await page.goto(`${service.origin}/sign-in`);
+        await page.getByRole('button', { name: 'Sign in' }).waitFor();
+        // The check itself must catch a grey-on-grey line before its silence means anything.
+        await page.evaluate(
+          "document.body.insertAdjacentHTML('beforeend', '<p id=\\'probe\\' style=\\'color:#999;background:#aaa\\'>probe</p>')",
+        );
+        expect((await contrastProblems(page)).some((problem) => problem.includes('"probe"'))).toBe(true);
+        await page.evaluate("document.getElementById('probe').remove()");
+        const failing: Record<string, string[]> = {};
+        const signInProblems = await contrastProblems(page);
+        if (signInProblems.length) failing['/sign-in'] = signInProblems;
+        await signIn(page, service.origin, 'admin@kestrel.example');
+        for (const { path, heading } of ADMIN_PAGES) {
+          await openPage(page, service.origin, path, heading);
+          const problems = await contrastProblems(page);
+          if (problems.length) failing[path] = problems;
+        }
+        expect(failing).toEqual({});
+      });
+    },
+  );
 });

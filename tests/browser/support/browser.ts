@@ -153,3 +153,71 @@ const OVERFLOW_CHECK = `(() => {
 export async function horizontalOverflow(page: Page): Promise<string[]> {
   return page.evaluate(OVERFLOW_CHECK);
 }
+
+/**
+ * In-page WCAG 2.1 contrast check (success criterion 1.4.3): every visible element with its own text,
+ * against the background it sits on (semi-transparent layers composed over their parents), must reach
+ * 4.5:1, or 3:1 for large text (24 px, or 18.66 px bold). Disabled controls are exempt, as WCAG says.
+ * Relative luminance and the ratio follow the WCAG 2.1 definitions.
+ */
+const CONTRAST_CHECK = `(() => {
+  function parse(colour) {
+    const m = colour.match(/rgba?\\(([^)]+)\\)/);
+    if (!m) return null;
+    const parts = m[1].split(/[ ,\\/]+/).filter(Boolean).map(Number);
+    return { r: parts[0], g: parts[1], b: parts[2], a: parts.length > 3 ? parts[3] : 1 };
+  }
+  function over(top, bottom) {
+    const a = top.a + bottom.a * (1 - top.a);
+    if (a === 0) return { r: 0, g: 0, b: 0, a: 0 };
+    const mix = (t, b) => (t * top.a + b * bottom.a * (1 - top.a)) / a;
+    return { r: mix(top.r, bottom.r), g: mix(top.g, bottom.g), b: mix(top.b, bottom.b), a };
+  }
+  function background(element) {
+    const layers = [];
+    for (let node = element; node; node = node.parentElement) {
+      const colour = parse(getComputedStyle(node).backgroundColor);
+      if (colour && colour.a > 0) {
+        layers.push(colour);
+        if (colour.a >= 1) break;
+      }
+    }
+    let result = { r: 255, g: 255, b: 255, a: 1 };
+    if (layers.length && layers[layers.length - 1].a >= 1) result = layers.pop();
+    while (layers.length) result = over(layers.pop(), result);
+    return result;
+  }
+  function luminance(c) {
+    const channel = (v) => { v /= 255; return v <= 0.03928 ? v / 12.92 : Math.pow((v + 0.055) / 1.055, 2.4); };
+    return 0.2126 * channel(c.r) + 0.7152 * channel(c.g) + 0.0722 * channel(c.b);
+  }
+  const problems = [];
+  for (const element of document.querySelectorAll('body *')) {
+    const ownText = Array.from(element.childNodes).some((n) => n.nodeType === 3 && n.textContent.trim());
+    if (!ownText) continue;
+    const style = getComputedStyle(element);
+    const rect = element.getBoundingClientRect();
+    if (style.visibility === 'hidden' || style.display === 'none' || rect.width === 0 || rect.height === 0) continue;
+    if (element.closest('[disabled], [aria-disabled="true"], .mat-mdc-button-disabled, .iso-visually-hidden, .cdk-visually-hidden, canvas')) continue;
+    if (parseFloat(style.opacity) === 0) continue;
+    const fg = parse(style.color);
+    if (!fg) continue;
+    const bg = background(element);
+    const text = over(fg, bg);
+    const l1 = luminance(text), l2 = luminance(bg);
+    const ratio = (Math.max(l1, l2) + 0.05) / (Math.min(l1, l2) + 0.05);
+    const size = parseFloat(style.fontSize);
+    const large = size >= 24 || (size >= 18.66 && Number(style.fontWeight) >= 700);
+    const needed = large ? 3 : 4.5;
+    if (ratio < needed) {
+      problems.push(element.tagName.toLowerCase() + '.' + Array.from(element.classList).slice(0, 2).join('.') + ' "' +
+        element.textContent.trim().slice(0, 30) + '" ' + ratio.toFixed(2) + ':1 < ' + needed);
+    }
+  }
+  return Array.from(new Set(problems)).slice(0, 20);
+})()`;
+
+/** Text that misses the WCAG AA contrast ratio on the current page; empty when all text passes. */
+export async function contrastProblems(page: Page): Promise<string[]> {
+  return page.evaluate(CONTRAST_CHECK);
+}

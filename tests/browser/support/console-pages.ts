@@ -40,6 +40,7 @@ export const ADMIN_PAGES: Array<{ path: string; heading: string; name: string }>
   { path: '/keys', heading: 'API keys', name: 'keys' },
   { path: '/usage', heading: 'Usage', name: 'usage' },
   { path: '/playground', heading: 'Playground', name: 'playground' },
+  { path: '/rooms', heading: 'Rooms', name: 'rooms' },
   { path: '/users', heading: 'Users', name: 'users' },
   { path: '/reference', heading: 'API documentation', name: 'reference' },
 ];

@@ -3,6 +3,7 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
+import { plainRequest } from './http';
 
 const root = path.resolve(__dirname, '../../..');
 
@@ -30,8 +31,8 @@ async function waitUntilReady(origin: string, child: ChildProcess, output: () =>
   while (Date.now() < deadline) {
     if (child.exitCode !== null) throw new Error(`The service exited with ${child.exitCode}:\n${output()}`);
     try {
-      const response = await fetch(`${origin}/readyz`);
-      if (response.ok) return;
+      const response = await plainRequest(`${origin}/readyz`);
+      if (response.status === 200) return;
     } catch {
       // Not listening yet.
     }
@@ -78,10 +79,13 @@ export async function startService(): Promise<RunningService> {
     output,
     stop: async () => {
       if (child.exitCode === null) {
+        // A graceful stop flushes metered usage; a service that hangs is killed after 10 s.
+        let timer: NodeJS.Timeout | undefined;
         const exited = new Promise((resolve) => child.once('exit', resolve));
         child.kill('SIGTERM');
-        await Promise.race([exited, new Promise((resolve) => setTimeout(resolve, 10_000))]);
-        if (child.exitCode === null) child.kill('SIGKILL');
+        await Promise.race([exited, new Promise((resolve) => (timer = setTimeout(resolve, 10_000)))]);
+        clearTimeout(timer);
+        if (child.exitCode === null && child.signalCode === null) child.kill('SIGKILL');
       }
       rmSync(dataDir, { recursive: true, force: true });
     },
