@@ -76,13 +76,15 @@ export function validate(operationId: string): RequestHandler {
           throw badRequest('A JSON request body is required.', [
             { pointer: '/body', message: 'is required' },
           ]);
-      } else if (jsonDepthExceeds(req.body, MAX_BODY_DEPTH)) {
-        throw badRequest(`The request body is nested more than ${MAX_BODY_DEPTH} levels deep.`, [
-          { pointer: '/body', message: `is nested more than ${MAX_BODY_DEPTH} levels deep` },
-        ]);
       } else {
-        body = structuredClone(req.body);
-        if (!validators.body(body)) errors.push(...toFieldErrors(validators.body.errors, '/body'));
+        // Validated in place (ajv only fills defaults): cloning first would recurse through hostile nesting.
+        body = req.body;
+        if (!validators.body(body)) {
+          errors.push(...toFieldErrors(validators.body.errors, '/body'));
+        } else if (jsonDepthExceeds(body, MAX_BODY_DEPTH)) {
+          // Only reachable through a schema that leaves an object open; refuse rather than pass it on.
+          errors.push({ pointer: '/body', message: `is nested more than ${MAX_BODY_DEPTH} levels deep` });
+        }
       }
     }
     const query: Record<string, unknown> = { ...(req.query as Record<string, unknown>) };
