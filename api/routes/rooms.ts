@@ -1,10 +1,8 @@
 import { Router } from 'express';
-import { ForeignKeyConstraintError } from 'sequelize';
 import { checkRoomDefinition, type RoomDefinition } from '../../shared/geometry';
 import { requirePermission } from '../auth/permissions';
 import { newId } from '../db/ids';
 import type { StoredLimits } from '../db/models/room';
-import { conflict } from '../http/problem';
 import { validate } from '../http/validate';
 import { callerId, findRoomFor, ownerScope } from '../rooms/access';
 import { pageById } from '../rooms/pagination';
@@ -23,7 +21,7 @@ interface RoomInput extends RoomDefinition {
 export function roomsRouter(services: Services): Router {
   const { db } = services;
   const router = Router();
-  const { Room, Tuning, TuningVersion } = db.models;
+  const { Room, Tuning, TuningVersion, Measurement } = db.models;
   const tuning = requirePermission('tuning');
 
   router.get('/rooms', tuning, validate('listRooms'), async (req, res) => {
@@ -89,23 +87,15 @@ export function roomsRouter(services: Services): Router {
 
   router.delete('/rooms/:roomId', tuning, validate('deleteRoom'), async (req, res) => {
     const room = await findRoomFor(req, db.models, String(req.valid.params.roomId));
-    await db
-      .write(async (transaction) => {
-        const tunings = await Tuning.findAll({ where: { roomId: room.id }, attributes: ['id'], transaction });
-        const tuningIds = tunings.map((t) => t.id);
-        if (tuningIds.length > 0)
-          await TuningVersion.destroy({ where: { tuningId: tuningIds }, transaction });
-        await Tuning.destroy({ where: { roomId: room.id }, transaction });
-        await room.destroy({ transaction });
-      })
-      .catch((error: unknown) => {
-        if (error instanceof ForeignKeyConstraintError) {
-          throw conflict(
-            `Room ${room.id} still has stored data (measurements) that refer to it; delete those first.`,
-          );
-        }
-        throw error;
-      });
+    // A room takes its tunings, their versions and its measurements with it, in one transaction.
+    await db.write(async (transaction) => {
+      const tunings = await Tuning.findAll({ where: { roomId: room.id }, attributes: ['id'], transaction });
+      const tuningIds = tunings.map((t) => t.id);
+      if (tuningIds.length > 0) await TuningVersion.destroy({ where: { tuningId: tuningIds }, transaction });
+      await Tuning.destroy({ where: { roomId: room.id }, transaction });
+      await Measurement.destroy({ where: { roomId: room.id }, transaction });
+      await room.destroy({ transaction });
+    });
     res.status(204).end();
   });
 

@@ -217,3 +217,23 @@ describe('stored measurements', () => {
     ).toBe(403);
   });
 });
+
+describe('deleting a room', () => {
+  it('takes its measurements with it', async () => {
+    const created = await request(ctx.app)
+      .post('/v1/rooms')
+      .set(auth())
+      .send(structuredClone({ ...STAGE3_ROOM, name: 'Stage 3 (to delete)' }));
+    expect(created.status).toBe(201);
+    const path = `/v1/rooms/${created.body.id}/measurements`;
+    const stored = await request(ctx.app)
+      .post(path)
+      .set(auth())
+      .send({ kind: 'spl', channel: 'M+000', splDb: 79.4 });
+    expect(stored.status).toBe(201);
+
+    expect((await request(ctx.app).delete(`/v1/rooms/${created.body.id}`).set(auth())).status).toBe(204);
+    expect((await request(ctx.app).get(`${path}/${stored.body.id}`).set(auth())).status).toBe(404);
+    expect(await ctx.db.models.Measurement.count({ where: { roomId: created.body.id } })).toBe(0);
+  });
+});
