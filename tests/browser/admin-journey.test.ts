@@ -90,6 +90,20 @@ it('never shows the secret again, not even after a reload', async () => {
   await screenshot(page, 'keys');
 });
 
+it('renames a key and sets its rate limit', async () => {
+  const row = page.getByRole('row', { name: new RegExp(KEY_NAME) });
+  await row.getByRole('button', { name: `Edit ${KEY_NAME}` }).click();
+  const dialog = page.getByRole('dialog');
+  await dialog.getByTestId('edit-key-name').fill(`${KEY_NAME} (night)`);
+  await dialog.getByTestId('edit-rate-limit').fill('90');
+  await dialog.getByRole('button', { name: 'Save' }).click();
+  await dialog.waitFor({ state: 'detached' });
+  const renamed = page.getByRole('row', { name: new RegExp(`${KEY_NAME} \\(night\\)`) });
+  await renamed.getByText('90 / min').waitFor();
+  await page.reload();
+  await renamed.getByText('90 / min').waitFor();
+});
+
 it('designs a biquad in the playground with the new key and plots its response', async () => {
   await openPage(page, service.origin, '/playground?op=designBiquads', 'Playground');
   await page.getByTestId('auth-key').click();
@@ -219,6 +233,20 @@ it('invites a colleague, shows the e-mail in the outbox, and the link lets them 
   } finally {
     await newcomer.close();
   }
+});
+
+it('changes the new colleague’s role and disables the account after confirmation', async () => {
+  await openPage(page, service.origin, '/users', 'Users');
+  const row = page.getByRole('row', { name: /mix\.engineer@kestrel\.example/ });
+  await row.getByRole('combobox', { name: 'Role of mix.engineer@kestrel.example' }).click();
+  await page.getByRole('option', { name: 'Viewer' }).click();
+  await page.getByText('mix.engineer@kestrel.example is now viewer.').waitFor();
+  await row.getByRole('button', { name: 'Disable' }).click();
+  await page.getByTestId('confirm-action').click();
+  await row.getByText('Disabled').waitFor();
+  await page.reload();
+  await row.getByText('Disabled').waitFor();
+  await screenshot(page, 'users');
 });
 
 it('links to the API reference, which loads without leaving the machine', async () => {

@@ -70,6 +70,40 @@ describe('the demo viewer', () => {
   });
 });
 
+describe('the keyboard', () => {
+  it('signs in, skips to the content and moves through the navigation without a mouse', async () => {
+    await withBrowser('light', async (_browser, page) => {
+      await page.goto(`${service.origin}/sign-in`);
+      await page.getByLabel('E-mail').focus();
+      await page.keyboard.type('admin@kestrel.example');
+      await page.keyboard.press('Tab');
+      await page.keyboard.type('kestrel-demo');
+      await page.keyboard.press('Enter');
+      await page.waitForURL(`${service.origin}/`);
+      await page.getByRole('heading', { name: 'Overview' }).waitFor();
+      await page.keyboard.press('Tab');
+      expect(await page.evaluate('document.activeElement?.textContent?.trim()')).toBe('Skip to content');
+      await page.keyboard.press('Enter');
+      expect(await page.evaluate('document.activeElement?.id')).toBe('main-content');
+      await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: /Usage/ }).focus();
+      await page.keyboard.press('Enter');
+      await page.waitForURL(`${service.origin}/usage`);
+      await page.getByRole('heading', { level: 1, name: 'Usage' }).waitFor();
+      // The skip link works on every page, not only on the overview.
+      await page.getByText('Skip to content').focus();
+      await page.keyboard.press('Enter');
+      expect(page.url()).toBe(`${service.origin}/usage`);
+      expect(await page.evaluate('document.activeElement?.id')).toBe('main-content');
+      expect(
+        await page
+          .getByRole('navigation', { name: 'Main' })
+          .getByRole('link', { name: /Usage/ })
+          .getAttribute('aria-current'),
+      ).toBe('page');
+    });
+  });
+});
+
 describe('the demo developer', () => {
   it('manages own keys but sees neither users nor other owners', async () => {
     await withBrowser('light', async (_browser, page) => {

@@ -70,6 +70,12 @@ export class Shell {
     return icons[this.theme.mode()];
   });
 
+  /** With <base href="/"> a bare #fragment link would load the overview; focus the content instead. */
+  protected skipToContent(event: Event): void {
+    event.preventDefault();
+    document.getElementById('main-content')?.focus();
+  }
+
   protected setTheme(mode: ThemeMode): void {
     this.theme.mode.set(mode);
   }
