@@ -70,11 +70,6 @@ export class KeyCreateDialog {
   protected readonly stored = signal(false);
   protected readonly title = computed(() => (this.created() ? 'Your new key' : 'Create an API key'));
 
-  constructor() {
-    // The secret must not be dismissed by a stray click or Escape before it was acknowledged.
-    this.dialogRef.disableClose = true;
-  }
-
   protected submit(): void {
     if (this.form.invalid) {
       this.form.markAllAsTouched();
@@ -91,6 +86,8 @@ export class KeyCreateDialog {
       next: (key) => {
         this.busy.set(false);
         this.created.set(key);
+        // From here the secret must not vanish with a stray click or Escape before it was acknowledged.
+        this.dialogRef.disableClose = true;
       },
       error: (error: unknown) => {
         this.busy.set(false);
