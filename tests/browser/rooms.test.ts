@@ -1,6 +1,6 @@
 import { readFileSync } from 'node:fs';
 import type { Page } from 'playwright-core';
-import { type ConsoleBrowser, launchBrowser, screenshot } from './support/browser';
+import { type ConsoleBrowser, PHONE, horizontalOverflow, launchBrowser, screenshot } from './support/browser';
 import { openPage, signIn } from './support/console-pages';
 import { type RunningService, startService } from './support/service';
 
@@ -89,4 +89,13 @@ it('exports coefficients and links to the printable report', async () => {
   expect(report.url()).toBe(`${service.origin}${href}`);
   expect(await report.title()).toMatch(/Stage 3/);
   await report.close();
+});
+
+it('shows the room on a 390 px phone without sideways scrolling', async () => {
+  await page.setViewportSize(PHONE);
+  await page.reload();
+  await page.getByRole('heading', { level: 1, name: 'Stage 3' }).waitFor();
+  await page.getByTestId('room-top-view').locator('canvas').waitFor();
+  expect(await horizontalOverflow(page)).toEqual([]);
+  await screenshot(page, 'phone-room');
 });

@@ -112,7 +112,8 @@ function toConfig(spec: ChartSpec, palette: Palette): ChartConfiguration {
             type: 'linear' as const,
             title: axisTitle(spec.xTitle),
             grid,
-            ticks,
+            // Bounds such as −0.4 m (a margin) are not worth a label.
+            ticks: { ...ticks, includeBounds: false },
             min: spec.xMin,
             max: spec.xMax,
           }
