@@ -18,7 +18,10 @@ export function logFrequencyGrid(fromHz: number, toHz: number, pointsPerOctave: 
   const first = Math.ceil(Math.log(fromHz / REFERENCE_FREQUENCY_HZ) / step - 1e-9);
   const last = Math.floor(Math.log(toHz / REFERENCE_FREQUENCY_HZ) / step + 1e-9);
   const grid: number[] = [];
-  for (let k = first; k <= last; k++) grid.push(REFERENCE_FREQUENCY_HZ * Math.exp(k * step));
+  // The tolerance above admits end points that round a hair outside the range; pin them to it.
+  for (let k = first; k <= last; k++) {
+    grid.push(Math.min(toHz, Math.max(fromHz, REFERENCE_FREQUENCY_HZ * Math.exp(k * step))));
+  }
   return grid;
 }
 

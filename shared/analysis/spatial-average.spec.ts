@@ -55,6 +55,18 @@ describe('power average of responses on different grids', () => {
     result.magnitudeDb.forEach((db) => expectWithin(db, 10 * Math.log10(1.1 / 2), 1e-9, 'average'));
   });
 
+  it('averages responses whose common range ends exactly on a 1/48-octave grid point (100 Hz)', () => {
+    // 100 Hz = 1000·G^(−160/48) with G = 10^(3/10) (IEC 61260-1) is a grid point; computed, it rounds to 100.00000000000001 Hz.
+    const grid = Array.from({ length: 17 }, (_, i) => 20 + i * 5);
+    const result = powerAverageResampled([
+      { frequenciesHz: grid, magnitudeDb: grid.map(() => 0) },
+      { frequenciesHz: grid, magnitudeDb: grid.map(() => -10) },
+    ]);
+    expect(result.frequenciesHz.at(-1)).toBeLessThanOrEqual(100);
+    expect(result.frequenciesHz[0]).toBeGreaterThanOrEqual(20);
+    result.magnitudeDb.forEach((db) => expectWithin(db, 10 * Math.log10(1.1 / 2), 1e-9, 'average'));
+  });
+
   it('refuses responses without a common range', () => {
     expect(() =>
       powerAverageResampled([
