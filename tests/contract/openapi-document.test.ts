@@ -41,10 +41,13 @@ describe('the OpenAPI document', () => {
   it.each(operations.map((o) => [`${o.method.toUpperCase()} ${o.route}`, o.operation] as const))(
     '%s documents at least one worked example',
     (_name, operation) => {
+      const parameters = (operation.parameters ?? []).map((p) =>
+        p.$ref ? document.components.parameters?.[p.$ref.split('/').pop() as string] : p,
+      );
       const serialized = JSON.stringify({
         requestBody: operation.requestBody,
         responses: operation.responses,
-        parameters: operation.parameters,
+        parameters,
       });
       expect(serialized).toMatch(/"examples?"/);
     },
