@@ -6,15 +6,17 @@ import { crossoversRouter } from './crossovers';
 import { delaysRouter } from './delays';
 import { analysisRouter } from './analysis';
 import { eqFitRouter } from './eq-fit';
+import { measurementsRouter } from './measurements';
 import { geometryRouter } from './geometry';
 import { levelsRouter } from './levels';
 import { keysRouter } from './keys';
 import { layoutsRouter } from './layouts';
 import { plansRouter } from './plans';
 import { outboxRouter } from './outbox';
-import { roomsRouter } from './rooms';
 import { usersRouter } from './users';
 import { usageRouter } from './usage';
+import { roomsRouter } from './rooms';
+import { tuningsRouter } from './tunings';
 
 /**
  * Every `/v1` resource router, mounted after authentication, rate limiting and metering.
@@ -37,5 +39,7 @@ export function v1Router(services: Services): Router {
   router.use(keysRouter(services));
   router.use(usageRouter(services));
   router.use(roomsRouter(services));
+  router.use(measurementsRouter(services));
+  router.use(tuningsRouter(services));
   return router;
 }
