@@ -1,6 +1,7 @@
 import type { Services } from '../api/services';
 import { seedDemoPlatform } from './demo-platform';
 import { seedDemoStage3 } from './demo-stage3';
+import { seedDemoStage3Measurements } from './demo-stage3-stored-measurements';
 
 /**
  * Loads the invented demo scenario (Kestrel Yard Post, Stage 3) into an empty database only.
@@ -10,6 +11,7 @@ export async function loadDemoData(services: Services): Promise<boolean> {
   if ((await services.db.models.User.count()) > 0) return false;
   await seedDemoPlatform(services);
   await seedDemoStage3(services);
+  await seedDemoStage3Measurements(services);
   services.logger.info('loaded the demo data (Kestrel Yard Post, demo only)');
   return true;
 }

@@ -16,6 +16,7 @@ import { errorMessage } from '../../problem/http-problem';
 import { ChartView } from '../../ui/chart/chart';
 import { Tuning, TuningComparison } from '../room.model';
 import { RoomsService } from '../rooms.service';
+import { RoomMeasurements } from '../room-measurements/room-measurements';
 import { topViewChart } from '../top-view';
 import { DuplicateDialog } from './duplicate-dialog';
 
@@ -30,6 +31,7 @@ import { DuplicateDialog } from './duplicate-dialog';
     MatProgressBarModule,
     MatSelectModule,
     MatTableModule,
+    RoomMeasurements,
     RouterLink,
   ],
   templateUrl: './room-page.html',

@@ -1,0 +1,293 @@
+import { formatQuantity } from '../../format/format';
+import type { ChartSeries, ChartSpec } from '../../ui/chart/chart-spec';
+import { formatFrequency } from '../../ui/chart/frequency-ticks';
+import type {
+  BandDecay,
+  EqFitRequest,
+  EqFitResult,
+  Measurement,
+  MeasurementKind,
+  RoomMode,
+} from './measurement.model';
+
+/** The API's caps on an upload (openapi/paths/measurements.yaml) and on a fitted response (eq-fit.yaml). */
+export const MAX_UPLOAD_BYTES = 20 * 1024 * 1024;
+export const MAX_MIC_POSITION_LENGTH = 32;
+const MAX_FIT_POINTS = 16384;
+const MAX_FIT_DB = 300;
+const MAX_FIT_HZ = 192000;
+
+const KIND_LABELS: Record<MeasurementKind, string> = {
+  impulseResponse: 'Impulse response',
+  frequencyResponse: 'Frequency response',
+  spl: 'SPL reading',
+};
+
+/** One line of the measurement list, already formatted. */
+export interface MeasurementRow {
+  id: string;
+  channel: string;
+  micPosition: string;
+  kind: string;
+  arrival: string;
+  level: string;
+  t30: string;
+  /** Whether the measurement has a response to plot (an SPL reading has none). */
+  hasResponse: boolean;
+}
+
+/** Formats measurements for the list: arrival in ms, the level the kind carries, T30 in seconds. */
+export function measurementRows(measurements: readonly Measurement[]): MeasurementRow[] {
+  return measurements.map((m) => {
+    const s = m.summary;
+    let level = '—';
+    if (m.kind === 'impulseResponse') level = `${formatQuantity(s.peakDbfs, 'dBFS', 1)} peak`;
+    else if (m.kind === 'spl')
+      level = `${formatQuantity(s.splDb, 'dB', 1)}${s.weighting ? ` (${s.weighting})` : ''}`;
+    else if (s.fromHz !== undefined && s.toHz !== undefined)
+      level = `${formatFrequency(s.fromHz)}–${formatFrequency(s.toHz)} Hz`;
+    return {
+      id: m.id,
+      channel: m.channel,
+      micPosition: m.micPosition,
+      kind: KIND_LABELS[m.kind] ?? m.kind,
+      arrival: m.kind === 'impulseResponse' ? formatQuantity(s.arrivalMs, 'ms', 2) : '—',
+      level,
+      t30: m.kind === 'impulseResponse' ? formatQuantity(s.t30S, 's', 2) : '—',
+      hasResponse: m.kind !== 'spl',
+    };
+  });
+}
+
+/** The measurement shown first: the newest impulse response, else the newest response, else none. */
+export function defaultSelection(measurements: readonly Measurement[]): string | null {
+  const newestOf = (kind: MeasurementKind) => [...measurements].reverse().find((m) => m.kind === kind);
+  return (newestOf('impulseResponse') ?? newestOf('frequencyResponse'))?.id ?? null;
+}
+
+/** The upload form as the panel holds it. */
+export interface UploadDraft {
+  channel: string;
+  micPosition: string;
+  file: { name: string; size: number } | null;
+}
+
+export interface DraftProblem {
+  field: 'channel' | 'micPosition' | 'file';
+  message: string;
+}
+
+/** Checks an upload before it is sent, with the same rules the API applies, so mistakes show at once. */
+export function uploadProblems(draft: UploadDraft, channels: readonly string[]): DraftProblem[] {
+  const problems: DraftProblem[] = [];
+  if (!draft.channel) problems.push({ field: 'channel', message: 'Choose the loudspeaker you measured.' });
+  else if (!channels.includes(draft.channel))
+    problems.push({ field: 'channel', message: `${draft.channel} is not a loudspeaker of this room.` });
+  const mic = draft.micPosition.trim();
+  if (!mic) problems.push({ field: 'micPosition', message: 'Name the microphone position (e.g. MLP or 2).' });
+  else if (mic.length > MAX_MIC_POSITION_LENGTH)
+    problems.push({
+      field: 'micPosition',
+      message: `Use at most ${MAX_MIC_POSITION_LENGTH} characters (this has ${mic.length}).`,
+    });
+  if (!draft.file)
+    problems.push({ field: 'file', message: 'Choose a WAV impulse response or a text response.' });
+  else if (draft.file.size === 0) problems.push({ field: 'file', message: `${draft.file.name} is empty.` });
+  else if (draft.file.size > MAX_UPLOAD_BYTES)
+    problems.push({
+      field: 'file',
+      message: `${draft.file.name} is ${(draft.file.size / 1048576).toFixed(1)} MiB; the limit is 20 MiB.`,
+    });
+  return problems;
+}
+
+/** The processor limits a room may store. */
+export interface RoomLimits {
+  eqBandsPerChannel?: number;
+  eqMaxBoostDb?: number;
+  eqMaxCutDb?: number;
+}
+
+/**
+ * The `POST /v1/eq/fit` body for a measured response in a room: the room's band count and cut limit,
+ * cuts only unless boosts are allowed (then up to the room's boost limit), toward a flat target.
+ * Points the API would refuse (non-finite, out of range) are dropped and a longer response is thinned
+ * evenly to the API's point cap, keeping both ends.
+ */
+export function eqFitRequest(
+  measured: { frequenciesHz: readonly number[]; magnitudeDb: readonly number[] },
+  limits: RoomLimits | null,
+  sampleRateHz: number,
+  allowBoost: boolean,
+): EqFitRequest {
+  const points = measured.frequenciesHz.flatMap((f, i) => {
+    const db = measured.magnitudeDb[i];
+    return f > 0 && f <= MAX_FIT_HZ && Number.isFinite(db) && Math.abs(db) <= MAX_FIT_DB ? [[f, db]] : [];
+  });
+  const kept =
+    points.length <= MAX_FIT_POINTS
+      ? points
+      : Array.from(
+          { length: MAX_FIT_POINTS },
+          (_, i) => points[Math.round((i * (points.length - 1)) / (MAX_FIT_POINTS - 1))],
+        );
+  return {
+    sampleRateHz,
+    measured: { frequenciesHz: kept.map((p) => p[0]), magnitudeDb: kept.map((p) => p[1]) },
+    target: { kind: 'flat' },
+    maxBands: limits?.eqBandsPerChannel ?? 8,
+    maxBoostDb: allowBoost ? (limits?.eqMaxBoostDb ?? 0) : 0,
+    maxCutDb: limits?.eqMaxCutDb ?? 12,
+  };
+}
+
+export interface DecayRow {
+  band: string;
+  edt: string;
+  t20: string;
+  t30: string;
+}
+
+/** Octave-band decay times for a table; a band without a usable decay reads "—". */
+export function decayRows(broadband: BandDecay | null, bands: readonly BandDecay[]): DecayRow[] {
+  const row = (band: string, d: BandDecay) => ({
+    band,
+    edt: formatQuantity(d.edtS, 's', 2),
+    t20: formatQuantity(d.t20S, 's', 2),
+    t30: formatQuantity(d.t30S, 's', 2),
+  });
+  return [
+    ...bands.map((b) => row(`${formatFrequency(b.nominalHz)} Hz`, b)),
+    ...(broadband ? [row('Broadband', broadband)] : []),
+  ];
+}
+
+export interface ModeRow {
+  frequency: string;
+  kind: string;
+  indices: string;
+}
+
+/** The lowest room modes, lowest first, with their half-wavelength counts (width, length, height). */
+export function modeRows(modes: readonly RoomMode[], count: number): ModeRow[] {
+  return [...modes]
+    .sort((a, b) => a.frequencyHz - b.frequencyHz)
+    .slice(0, count)
+    .map((m) => ({
+      frequency: formatQuantity(m.frequencyHz, 'Hz', 1),
+      kind: m.kind,
+      indices: `${m.nx}, ${m.ny}, ${m.nz}`,
+    }));
+}
+
+export interface ResponsePlotInput {
+  measured: { label: string; frequenciesHz: readonly number[]; magnitudeDb: readonly number[] };
+  fit?: Pick<EqFitResult, 'predicted' | 'targetOffsetDb' | 'fromHz' | 'toHz'> | null;
+  modes?: readonly RoomMode[];
+  schroederFrequencyHz?: number | null;
+}
+
+/** Axial modes are the strongest in a rectangular room; these are the ones drawn as markers. */
+const MARKED_MODE_KIND = 'axial';
+const MAX_MARKED_MODE_HZ = 300;
+
+function curvePoints(frequencies: readonly number[], values: readonly number[]) {
+  return frequencies.flatMap((x, i) => (x > 0 && Number.isFinite(values[i]) ? [{ x, y: values[i] }] : []));
+}
+
+/**
+ * A y range that holds the curves: from 3 dB over the top down to 3 dB under the bottom, at most 50 dB
+ * deep (a roll-off far below the band of interest is cut off), on 5 dB steps (10 dB past 30 dB).
+ */
+export function levelRange(values: readonly number[]): { min: number; max: number; step: number } {
+  const finite = values.filter((v) => Number.isFinite(v));
+  if (!finite.length) return { min: -30, max: 0, step: 5 };
+  const top = Math.max(...finite);
+  const bottom = Math.max(Math.min(...finite), top - 47);
+  const step = top - bottom > 27 ? 10 : 5;
+  const max = Math.ceil((top + 3) / step) * step;
+  const min = Math.floor((bottom - 3) / step) * step;
+  return { min, max: Math.max(max, min + 4 * step), step };
+}
+
+/**
+ * The response plot: measured (or spatially averaged) response, the predicted response after the fitted
+ * EQ, the flat target at the fit's level across the fit band, axial room modes as markers along the
+ * bottom and the Schroeder frequency as a dashed vertical line.
+ */
+export function responseChart(input: ResponsePlotInput): ChartSpec {
+  const { measured, fit } = input;
+  const levels = [...measured.magnitudeDb, ...(fit?.predicted.magnitudeDb ?? [])];
+  const range = levelRange(levels);
+  const series: ChartSeries[] = [
+    { label: measured.label, points: curvePoints(measured.frequenciesHz, measured.magnitudeDb), colour: 1 },
+  ];
+  const parts = [`${measured.label} on a logarithmic frequency axis`];
+  if (fit) {
+    series.push({
+      label: 'Predicted with the fitted EQ',
+      points: curvePoints(fit.predicted.frequenciesHz, fit.predicted.magnitudeDb),
+      colour: 2,
+    });
+    series.push({
+      label: 'Target (flat)',
+      points: [
+        { x: fit.fromHz, y: fit.targetOffsetDb },
+        { x: fit.toHz, y: fit.targetOffsetDb },
+      ],
+      colour: 0,
+      dashed: true,
+    });
+    parts.push(
+      `predicted response after the fitted EQ`,
+      `flat target at ${fit.targetOffsetDb.toFixed(1)} dB from ${formatFrequency(fit.fromHz)} to ${formatFrequency(fit.toHz)} Hz`,
+    );
+  }
+  const lowest = measured.frequenciesHz.find((f) => f > 0) ?? 0;
+  const marked = (input.modes ?? []).filter(
+    (m) => m.kind === MARKED_MODE_KIND && m.frequencyHz <= MAX_MARKED_MODE_HZ && m.frequencyHz >= lowest,
+  );
+  if (marked.length) {
+    const y = range.min + range.step * 0.3;
+    series.push({
+      label: 'Axial room modes',
+      kind: 'scatter',
+      points: marked.map((m) => ({ x: m.frequencyHz, y })),
+      colour: 4,
+      pointStyle: 'triangle',
+      pointRadius: 5,
+    });
+    parts.push(`axial room modes at ${marked.map((m) => formatFrequency(m.frequencyHz)).join(', ')} Hz`);
+  }
+  const schroeder = input.schroederFrequencyHz;
+  if (schroeder && schroeder >= lowest) {
+    series.push({
+      label: `Schroeder frequency ${formatFrequency(schroeder)} Hz`,
+      points: [
+        { x: schroeder, y: range.min },
+        { x: schroeder, y: range.max },
+      ],
+      colour: 3,
+      dashed: true,
+    });
+    parts.push(`Schroeder frequency ${formatFrequency(schroeder)} Hz`);
+  }
+  return {
+    kind: 'line',
+    xScale: 'log',
+    xTitle: 'Frequency (Hz)',
+    yTitle: 'Level (dB)',
+    yMin: range.min,
+    yMax: range.max,
+    yStep: range.step,
+    series,
+    summary: `${parts.join('; ')}.`,
+  };
+}
+
+/** What the plotted curve stands for: one position, or the power average of several. */
+export function measuredLabel(channel: string, micPositions: readonly string[]): string {
+  return micPositions.length > 1
+    ? `${channel}: spatial average of ${micPositions.length} positions (${micPositions.join(', ')})`
+    : `${channel}: measured at ${micPositions[0] ?? 'one position'}`;
+}

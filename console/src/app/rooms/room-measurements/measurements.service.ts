@@ -1,0 +1,59 @@
+import { HttpClient, HttpParams } from '@angular/common/http';
+import { Injectable, inject } from '@angular/core';
+import { EMPTY, Observable, expand, reduce } from 'rxjs';
+import { ListPage } from '../../keys/key.model';
+import { AverageResponse, EqFitRequest, EqFitResult, Measurement } from './measurement.model';
+
+/** Stored measurements of a room and the EQ fit of a measured response. */
+@Injectable({ providedIn: 'root' })
+export class MeasurementsService {
+  private readonly http = inject(HttpClient);
+
+  private base(roomId: string): string {
+    return `/v1/rooms/${encodeURIComponent(roomId)}/measurements`;
+  }
+
+  /** Every measurement of the room, oldest first, following the cursor to the end. */
+  list(roomId: string): Observable<Measurement[]> {
+    const page = (startingAfter?: string) => {
+      let params = new HttpParams().set('limit', 100);
+      if (startingAfter) params = params.set('startingAfter', startingAfter);
+      return this.http.get<ListPage<Measurement>>(this.base(roomId), { params });
+    };
+    return page().pipe(
+      expand((p) => {
+        const last = p.data.at(-1);
+        return p.hasMore && last ? page(last.id) : EMPTY;
+      }),
+      reduce((all, p) => all.concat(p.data), [] as Measurement[]),
+    );
+  }
+
+  get(roomId: string, id: string): Observable<Measurement> {
+    return this.http.get<Measurement>(`${this.base(roomId)}/${encodeURIComponent(id)}`);
+  }
+
+  /** Multipart upload: the API analyses a WAV on arrival or parses a text response. */
+  upload(roomId: string, channel: string, micPosition: string, file: File): Observable<Measurement> {
+    const form = new FormData();
+    form.append('channel', channel);
+    form.append('micPosition', micPosition);
+    form.append('file', file, file.name);
+    return this.http.post<Measurement>(this.base(roomId), form);
+  }
+
+  delete(roomId: string, id: string): Observable<null> {
+    return this.http.delete<null>(`${this.base(roomId)}/${encodeURIComponent(id)}`);
+  }
+
+  /** Power average of the channel's responses over its microphone positions. */
+  average(roomId: string, channel: string): Observable<AverageResponse> {
+    return this.http.get<AverageResponse>(`${this.base(roomId)}/average`, {
+      params: new HttpParams().set('channel', channel),
+    });
+  }
+
+  fitEq(body: EqFitRequest): Observable<EqFitResult> {
+    return this.http.post<EqFitResult>('/v1/eq/fit', body);
+  }
+}

@@ -1,0 +1,255 @@
+import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
+import { rxResource } from '@angular/core/rxjs-interop';
+import { MatButtonModule } from '@angular/material/button';
+import { MatCheckboxModule } from '@angular/material/checkbox';
+import { MatDialog } from '@angular/material/dialog';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatSelectModule } from '@angular/material/select';
+import { MatSnackBar } from '@angular/material/snack-bar';
+import { filter, map, switchMap } from 'rxjs';
+import { can } from '../../auth/roles';
+import { SessionService } from '../../auth/session.service';
+import { formatQuantity } from '../../format/format';
+import { errorMessage, toProblem } from '../../problem/http-problem';
+import { ReadableProblem } from '../../problem/problem-message';
+import { ChartView } from '../../ui/chart/chart';
+import { ConfirmDialog, ConfirmDialogData } from '../../ui/confirm-dialog/confirm-dialog';
+import { Room } from '../room.model';
+import {
+  DraftProblem,
+  decayRows,
+  defaultSelection,
+  eqFitRequest,
+  measuredLabel,
+  measurementRows,
+  modeRows,
+  responseChart,
+  uploadProblems,
+} from './measurement-view';
+import { ImpulseResponseAnalysis, Measurement } from './measurement.model';
+import { MeasurementsService } from './measurements.service';
+
+/** How many of the lowest room modes the table lists. */
+const MODE_TABLE_ROWS = 10;
+
+/**
+ * A room's measurements: the list with delete, an upload form, the measured (or spatially averaged)
+ * response of the selected channel overlaid with the response predicted after a cut-first EQ fit, and
+ * the selected impulse response's decay times, room modes and Schroeder frequency.
+ */
+@Component({
+  selector: 'iso-room-measurements',
+  imports: [
+    ChartView,
+    MatButtonModule,
+    MatCheckboxModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatProgressBarModule,
+    MatSelectModule,
+  ],
+  templateUrl: './room-measurements.html',
+  styleUrl: './room-measurements.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class RoomMeasurements {
+  private readonly service = inject(MeasurementsService);
+  private readonly session = inject(SessionService);
+  private readonly dialog = inject(MatDialog);
+  private readonly snackBar = inject(MatSnackBar);
+
+  readonly room = input.required<Room>();
+
+  protected readonly canUpload = computed(() => can(this.session.role(), 'rooms:view'));
+
+  private readonly listResource = rxResource({
+    params: () => this.room().id,
+    stream: ({ params }) => this.service.list(params),
+  });
+  protected readonly measurements = computed(() =>
+    this.listResource.hasValue() ? this.listResource.value() : [],
+  );
+  protected readonly rows = computed(() => measurementRows(this.measurements()));
+  protected readonly listError = computed(() => {
+    const error = this.listResource.error();
+    return error ? errorMessage(error) : null;
+  });
+
+  private readonly chosenId = signal<string | null>(null);
+  /** The chosen measurement, or the newest impulse response when nothing (still present) was chosen. */
+  protected readonly selectedId = computed(() => {
+    const chosen = this.chosenId();
+    const list = this.measurements();
+    return chosen && list.some((m) => m.id === chosen) ? chosen : defaultSelection(list);
+  });
+  protected readonly selected = computed(
+    () => this.measurements().find((m) => m.id === this.selectedId()) ?? null,
+  );
+
+  private readonly detailResource = rxResource({
+    params: () => {
+      const id = this.selectedId();
+      return id ? { roomId: this.room().id, id } : undefined;
+    },
+    stream: ({ params }) => this.service.get(params.roomId, params.id),
+  });
+  protected readonly analysis = computed((): ImpulseResponseAnalysis | null => {
+    if (!this.detailResource.hasValue()) return null;
+    const detail = this.detailResource.value();
+    return detail?.kind === 'impulseResponse' && detail.id === this.selectedId()
+      ? (detail.result as unknown as ImpulseResponseAnalysis)
+      : null;
+  });
+
+  /** The response the plot shows: the power average of the selected channel over its positions. */
+  private readonly averageResource = rxResource({
+    params: () => {
+      const selected = this.selected();
+      if (!selected || selected.kind === 'spl') return undefined;
+      // The ids make the average follow uploads and deletions of this channel.
+      const ids = this.measurements()
+        .filter((m) => m.channel === selected.channel && m.kind !== 'spl')
+        .map((m) => m.id)
+        .join();
+      return { roomId: this.room().id, channel: selected.channel, ids };
+    },
+    stream: ({ params }) => this.service.average(params.roomId, params.channel),
+  });
+  protected readonly average = computed(() =>
+    this.averageResource.hasValue() ? (this.averageResource.value() ?? null) : null,
+  );
+
+  protected readonly allowBoost = signal(false);
+  protected readonly maxBoostDb = computed(() => this.room().limits?.['eqMaxBoostDb'] ?? 0);
+  private readonly fitResource = rxResource({
+    params: () => {
+      const average = this.average();
+      if (!average) return undefined;
+      return eqFitRequest(average, this.room().limits, this.room().sampleRateHz, this.allowBoost());
+    },
+    stream: ({ params }) => this.service.fitEq(params),
+  });
+  protected readonly fit = computed(() =>
+    this.fitResource.hasValue() ? (this.fitResource.value() ?? null) : null,
+  );
+  protected readonly plotError = computed(() => {
+    const error = this.averageResource.error() ?? this.fitResource.error() ?? this.detailResource.error();
+    return error ? errorMessage(error) : null;
+  });
+  protected readonly plotLoading = computed(
+    () => this.averageResource.isLoading() || this.fitResource.isLoading() || this.detailResource.isLoading(),
+  );
+
+  protected readonly chart = computed(() => {
+    const average = this.average();
+    if (!average) return null;
+    const analysis = this.analysis();
+    const sameChannel = this.selected()?.channel === average.channel;
+    return responseChart({
+      measured: { label: measuredLabel(average.channel, average.micPositions), ...average },
+      fit: this.fit(),
+      modes: sameChannel ? analysis?.room?.modes : undefined,
+      schroederFrequencyHz: sameChannel ? analysis?.room?.schroederFrequencyHz : undefined,
+    });
+  });
+  protected readonly decay = computed(() => {
+    const analysis = this.analysis();
+    if (!analysis) return [];
+    const { edtS, t20S, t30S, bands } = analysis.decay;
+    return decayRows({ edtS, t20S, t30S, centreHz: 0, nominalHz: 0 }, bands);
+  });
+  protected readonly modes = computed(() => modeRows(this.analysis()?.room?.modes ?? [], MODE_TABLE_ROWS));
+
+  // Upload form.
+  protected readonly channel = signal('');
+  protected readonly micPosition = signal('MLP');
+  protected readonly file = signal<File | null>(null);
+  protected readonly submitted = signal(false);
+  protected readonly uploading = signal(false);
+  protected readonly uploadProblem = signal<ReadableProblem | null>(null);
+  protected readonly draftProblems = computed(() =>
+    uploadProblems(
+      { channel: this.channel(), micPosition: this.micPosition(), file: this.file() },
+      this.room().loudspeakers.map((l) => l.id),
+    ),
+  );
+  protected problemFor(field: DraftProblem['field']): string | null {
+    if (!this.submitted()) return null;
+    return this.draftProblems().find((p) => p.field === field)?.message ?? null;
+  }
+
+  protected readonly formatQuantity = formatQuantity;
+
+  protected select(id: string): void {
+    this.chosenId.set(id);
+  }
+
+  protected onFile(event: Event): void {
+    const files = (event.target as HTMLInputElement).files;
+    this.file.set(files && files.length ? files[0] : null);
+    this.uploadProblem.set(null);
+  }
+
+  protected upload(fileInput: HTMLInputElement): void {
+    this.submitted.set(true);
+    this.uploadProblem.set(null);
+    const file = this.file();
+    if (this.draftProblems().length || !file) return;
+    this.uploading.set(true);
+    this.service.upload(this.room().id, this.channel(), this.micPosition().trim(), file).subscribe({
+      next: (stored) => {
+        this.uploading.set(false);
+        this.submitted.set(false);
+        this.file.set(null);
+        fileInput.value = '';
+        this.chosenId.set(stored.id);
+        this.listResource.reload();
+        this.snackBar.open(`Stored ${stored.channel} at ${stored.micPosition}.`, undefined, {
+          duration: 4000,
+        });
+      },
+      error: (error: unknown) => {
+        this.uploading.set(false);
+        this.uploadProblem.set(toProblem(error));
+      },
+    });
+  }
+
+  protected remove(measurement: Measurement): void {
+    const data: ConfirmDialogData = {
+      title: 'Delete this measurement?',
+      message: `${measurement.channel} at microphone position ${measurement.micPosition} will be deleted with its analysis. This cannot be undone.`,
+      confirmLabel: 'Delete measurement',
+      destructive: true,
+    };
+    this.dialog
+      .open(ConfirmDialog, { data, maxWidth: '94vw' })
+      .afterClosed()
+      .pipe(
+        filter((confirmed) => confirmed === true),
+        switchMap(() => this.service.delete(this.room().id, measurement.id)),
+        map(() => measurement),
+      )
+      .subscribe({
+        next: () => {
+          this.listResource.reload();
+          this.snackBar.open(`Deleted ${measurement.channel} at ${measurement.micPosition}.`, undefined, {
+            duration: 4000,
+          });
+        },
+        error: (error: unknown) => this.snackBar.open(errorMessage(error), 'Dismiss', { duration: 10000 }),
+      });
+  }
+
+  protected measurementById(id: string): Measurement | null {
+    return this.measurements().find((m) => m.id === id) ?? null;
+  }
+
+  protected reload(): void {
+    this.listResource.reload();
+  }
+}
