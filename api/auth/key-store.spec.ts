@@ -53,6 +53,28 @@ describe('KeyStore', () => {
     expect(await next).toBeNull();
   });
 
+  it('reads the database once for many simultaneous misses of one key', async () => {
+    const { models, findOne, pending } = controlledModels();
+    const store = new KeyStore(models, 'server-secret', () => 7_000_000);
+    const lookups = Array.from({ length: 32 }, () => store.findActive(SECRET));
+    expect(findOne).toHaveBeenCalledTimes(1);
+    pending.shift()!(row());
+    expect((await Promise.all(lookups)).every((key) => key?.id === 'key_1')).toBe(true);
+  });
+
+  it('does not let a caller arriving after an invalidation share a read that started before it', async () => {
+    const { models, findOne, pending } = controlledModels();
+    const store = new KeyStore(models, 'server-secret', () => 8_000_000);
+    const early = store.findActive(SECRET);
+    store.invalidate();
+    const late = store.findActive(SECRET);
+    expect(findOne).toHaveBeenCalledTimes(2);
+    pending.shift()!(row());
+    pending.shift()!(null);
+    expect((await early)?.id).toBe('key_1');
+    expect(await late).toBeNull();
+  });
+
   it('refuses a key past its expiry even from the cache', async () => {
     const { models, pending } = controlledModels();
     let now = 10_000;

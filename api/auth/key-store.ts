@@ -21,6 +21,7 @@ export class KeyStore {
   private readonly cache = new Map<string, { key: ActiveKey | null; at: number }>();
   /** Bumped by `invalidate()`: a lookup that started before a change must not cache what it read. */
   private generation = 0;
+  private readonly inFlight = new Map<string, Promise<ActiveKey | null>>();
 
   constructor(
     private readonly models: Models,
@@ -29,32 +30,59 @@ export class KeyStore {
   ) {}
 
   async findActive(secret: string): Promise<ActiveKey | null> {
+    return this.find(secret);
+  }
+
+  /**
+   * The same answer as `findActive`, synchronously when the cache holds it: the usual case under load,
+   * where it spares every request a round of promise callbacks.
+   */
+  find(secret: string): ActiveKey | null | Promise<ActiveKey | null> {
     const hash = hashKeySecret(secret, this.serverSecret);
     const cached = this.cache.get(hash);
     const now = this.now();
-    let key: ActiveKey | null;
-    if (cached && now - cached.at < CACHE_TTL_MS) {
-      key = cached.key;
-    } else {
-      const generation = this.generation;
-      const row = await this.models.ApiKey.findOne({ where: { secretHash: hash, revokedAt: null } });
-      key = row && {
+    if (cached && now - cached.at < CACHE_TTL_MS) return this.unexpired(cached.key, now);
+    return this.lookUp(hash, now).then((key) => this.unexpired(key, now));
+  }
+
+  private unexpired(key: ActiveKey | null, now: number): ActiveKey | null {
+    return key?.expiresAt && key.expiresAt.getTime() <= now ? null : key;
+  }
+
+  /**
+   * One database read per key however many requests miss the cache at once (they all expire together
+   * under load). A read that started before `invalidate()` is neither cached nor shared with later callers.
+   */
+  private lookUp(hash: string, now: number): Promise<ActiveKey | null> {
+    const running = this.inFlight.get(hash);
+    if (running) return running;
+    const generation = this.generation;
+    const read = this.models.ApiKey.findOne({ where: { secretHash: hash, revokedAt: null } }).then((row) => {
+      const key: ActiveKey | null = row && {
         id: row.id,
         role: row.role,
         ownerId: row.ownerId,
         rateLimitPerMinute: row.rateLimitPerMinute,
         expiresAt: row.expiresAt,
       };
-      if (this.cache.size > 10_000) this.cache.clear();
-      if (generation === this.generation) this.cache.set(hash, { key, at: now });
-    }
-    if (key?.expiresAt && key.expiresAt.getTime() <= now) return null;
-    return key;
+      if (generation === this.generation) {
+        if (this.cache.size > 10_000) this.cache.clear();
+        this.cache.set(hash, { key, at: now });
+      }
+      return key;
+    });
+    this.inFlight.set(hash, read);
+    const forget = () => {
+      if (this.inFlight.get(hash) === read) this.inFlight.delete(hash);
+    };
+    read.then(forget, forget);
+    return read;
   }
 
   /** Call after revoking or editing a key so the next request sees the change. */
   invalidate(): void {
     this.generation += 1;
     this.cache.clear();
+    this.inFlight.clear();
   }
 }

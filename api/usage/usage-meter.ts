@@ -13,8 +13,17 @@ import { SqliteUsageSink, type UsageSink } from './usage-sink';
 export function routeTemplate(req: Request, mountPath: string): string {
   const path: unknown = req.route?.path;
   if (typeof path !== 'string') return `${req.method} ${mountPath} (no route)`;
-  return `${req.method} ${mountPath}${path.replace(/:(\w+)/g, '{$1}')}`;
+  const raw = `${req.method} ${mountPath}${path}`;
+  let template = templates.get(raw);
+  if (template === undefined) {
+    template = raw.replace(/:(\w+)/g, '{$1}');
+    templates.set(raw, template);
+  }
+  return template;
 }
+
+// Registered routes are few and fixed, so this stays small; it saves a regular expression per call.
+const templates = new Map<string, string>();
 
 export interface UsageMeterOptions {
   sink: UsageSink;

@@ -1,0 +1,280 @@
+/**
+ * `npm run bench`: what the full request chain costs. autocannon sends the same JSON body (one peaking
+ * filter) to (A) a bare node:http echo, (B) a bare Express 5 echo and (C) POST /v1/biquads through the
+ * whole service, each server in its own process. The three take turns, round after round, so that a
+ * change in what else runs on the machine hits all three alike; C/B is the median of the rounds' ratios.
+ * Prints req/s, p50 and p99, then runs the measurement-analysis benchmark when present, and writes
+ * bench/results/latest.json.
+ *
+ * BENCH_ROUNDS (default 5) and BENCH_ROUND_S (seconds per target per round, default 4) set the length.
+ */
+import { fork, type ChildProcess } from 'node:child_process';
+import { existsSync, mkdirSync, writeFileSync } from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import type { CpuMessage, ReadyMessage, StoppedMessage, TargetMessage } from './targets/protocol';
+
+// autocannon ships no types; these are the parts of its result used here.
+interface AutocannonResult {
+  requests: { average: number; total: number };
+  errors: number;
+  timeouts: number;
+  non2xx: number;
+}
+interface AutocannonInstance extends Promise<AutocannonResult> {
+  on(event: 'response', listener: (client: unknown, status: number, bytes: number, ms: number) => void): void;
+}
+// eslint-disable-next-line @typescript-eslint/no-require-imports
+const autocannon = require('autocannon') as (options: object) => AutocannonInstance;
+
+const CONNECTIONS = 32;
+const WARMUP_S = 3;
+const ROUNDS = Number(process.env.BENCH_ROUNDS ?? 5);
+const ROUND_S = Number(process.env.BENCH_ROUND_S ?? 4);
+const TARGETS = { ratio: 0.6, p99Ms: 10 };
+
+const BODY = JSON.stringify({
+  sampleRateHz: 48000,
+  filters: [{ type: 'peaking', frequencyHz: 1000, gainDb: -3, q: 1.41 }],
+});
+
+interface Scenario {
+  key: 'A' | 'B' | 'C';
+  name: string;
+  script: string;
+  path: string;
+}
+
+const SCENARIOS: Scenario[] = [
+  { key: 'A', name: 'node:http JSON echo', script: 'node-echo.ts', path: '/echo' },
+  { key: 'B', name: 'Express 5 JSON echo', script: 'express-echo.ts', path: '/echo' },
+  {
+    key: 'C',
+    name: 'POST /v1/biquads, full chain (key, rate limit, metering, validation)',
+    script: 'full-chain.ts',
+    path: '/v1/biquads',
+  },
+];
+
+export interface ScenarioResult {
+  key: string;
+  name: string;
+  /** Median over the rounds of autocannon's average req/s. */
+  requestsPerSecond: number;
+  requestsPerSecondByRound: number[];
+  /** Percentiles of every measured response's latency (all rounds), in milliseconds. */
+  p50Ms: number;
+  p99Ms: number;
+  completed: number;
+  /**
+   * CPU time the server process spent per completed request. On a shared machine this is steadier than
+   * req/s, which also depends on what else runs.
+   */
+  serverCpuUsPerRequest: number;
+  errors: number;
+  timeouts: number;
+  non2xx: number;
+  /** Full chain only: calls the usage meter wrote, against every response autocannon completed. */
+  meteredCalls?: number;
+  completedIncludingWarmup?: number;
+}
+
+interface Target {
+  scenario: Scenario;
+  child: ChildProcess;
+  ready: ReadyMessage;
+  latencies: number[];
+  rounds: AutocannonResult[];
+  cpuMs: number;
+  warmupCompleted: number;
+}
+
+function nextMessage<T extends TargetMessage>(child: ChildProcess, type: T['type']): Promise<T> {
+  return new Promise((resolve, reject) => {
+    const onExit = (code: number | null) => reject(new Error(`target exited with ${code} before "${type}"`));
+    const onMessage = (message: TargetMessage) => {
+      if (message.type !== type) return;
+      child.off('message', onMessage);
+      child.off('exit', onExit);
+      resolve(message as T);
+    };
+    child.on('message', onMessage);
+    child.once('exit', onExit);
+  });
+}
+
+const median = (values: number[]): number => {
+  const sorted = [...values].sort((a, b) => a - b);
+  const middle = Math.floor(sorted.length / 2);
+  return sorted.length % 2 ? sorted[middle] : (sorted[middle - 1] + sorted[middle]) / 2;
+};
+
+function percentile(sorted: number[], p: number): number {
+  if (sorted.length === 0) return NaN;
+  return sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)];
+}
+
+function load(target: Target, seconds: number, latencies: number[] | null): Promise<AutocannonResult> {
+  const instance = autocannon({
+    url: `http://127.0.0.1:${target.ready.port}${target.scenario.path}`,
+    method: 'POST',
+    headers: { 'content-type': 'application/json', ...target.ready.headers },
+    body: BODY,
+    connections: CONNECTIONS,
+    duration: seconds,
+  });
+  if (latencies) instance.on('response', (_client, _status, _bytes, ms) => latencies.push(ms));
+  return instance;
+}
+
+async function start(scenario: Scenario): Promise<Target> {
+  const child = fork(path.join(__dirname, 'targets', scenario.script), [], {
+    execArgv: ['--import', 'tsx'],
+    stdio: ['ignore', 'inherit', 'inherit', 'ipc'],
+  });
+  const ready = await nextMessage<ReadyMessage>(child, 'ready');
+  return { scenario, child, ready, latencies: [], rounds: [], cpuMs: 0, warmupCompleted: 0 };
+}
+
+async function measureRound(target: Target): Promise<void> {
+  target.child.send('mark');
+  const result = await load(target, ROUND_S, target.latencies);
+  const cpu = nextMessage<CpuMessage>(target.child, 'cpu');
+  target.child.send('report');
+  target.cpuMs += (await cpu).cpuMs;
+  target.rounds.push(result);
+}
+
+async function finish(target: Target): Promise<ScenarioResult> {
+  const stopped = nextMessage<StoppedMessage>(target.child, 'stopped');
+  target.child.send('stop');
+  const { meteredCalls } = await stopped;
+  const latencies = target.latencies.sort((a, b) => a - b);
+  const sum = (pick: (r: AutocannonResult) => number) =>
+    target.rounds.reduce((total, r) => total + pick(r), 0);
+  const completed = sum((r) => r.requests.total);
+  const perRound = target.rounds.map((r) => r.requests.average);
+  return {
+    key: target.scenario.key,
+    name: target.scenario.name,
+    requestsPerSecond: median(perRound),
+    requestsPerSecondByRound: perRound,
+    p50Ms: percentile(latencies, 50),
+    p99Ms: percentile(latencies, 99),
+    completed,
+    serverCpuUsPerRequest: (target.cpuMs * 1000) / completed,
+    errors: sum((r) => r.errors),
+    timeouts: sum((r) => r.timeouts),
+    non2xx: sum((r) => r.non2xx),
+    ...(meteredCalls !== undefined && {
+      meteredCalls,
+      completedIncludingWarmup: completed + target.warmupCompleted,
+    }),
+  };
+}
+
+/** The measurements helper's benchmark, when its file is there (it exports `runAnalysisBench`). */
+async function runAnalysis(): Promise<unknown[] | null> {
+  const file = path.join(__dirname, 'analysis.bench.ts');
+  if (!existsSync(file)) return null;
+  const module = (await import(file)) as {
+    runAnalysisBench?: () => Promise<unknown[]>;
+    default?: () => Promise<unknown[]>;
+  };
+  const run = module.runAnalysisBench ?? module.default;
+  return run ? run() : null;
+}
+
+const ms = (value: number) => `${value.toFixed(2)} ms`;
+
+async function main(): Promise<void> {
+  console.log(
+    `Isochron benchmark: ${CONNECTIONS} connections; ${WARMUP_S} s warm-up, then ${ROUNDS} rounds of ${ROUND_S} s ` +
+      `per target in turn; Node ${process.version}, ${os.cpus().length} × ${os.cpus()[0]?.model ?? 'CPU'}, ` +
+      `load average ${os.loadavg()[0].toFixed(2)}\n`,
+  );
+  const targets: Target[] = [];
+  try {
+    for (const scenario of SCENARIOS) targets.push(await start(scenario));
+    for (const target of targets)
+      target.warmupCompleted = (await load(target, WARMUP_S, null)).requests.total;
+    const ratios: number[] = [];
+    for (let round = 0; round < ROUNDS; round += 1) {
+      for (const target of targets) await measureRound(target);
+      const [, express, chain] = targets;
+      ratios.push(chain.rounds[round].requests.average / express.rounds[round].requests.average);
+      process.stdout.write(`  round ${round + 1}/${ROUNDS}: C/B ${ratios[round].toFixed(2)}\n`);
+    }
+    const results: ScenarioResult[] = [];
+    for (const target of targets) results.push(await finish(target));
+    await report(results, median(ratios), ratios);
+  } finally {
+    for (const { child } of targets) if (child.exitCode === null && child.connected) child.kill();
+  }
+}
+
+async function report(results: ScenarioResult[], ratio: number, ratios: number[]): Promise<void> {
+  console.log('');
+  for (const result of results) {
+    console.log(
+      `(${result.key}) ${result.name}\n    ${result.requestsPerSecond.toFixed(0)} req/s (median of rounds), ` +
+        `p50 ${ms(result.p50Ms)}, p99 ${ms(result.p99Ms)}, server CPU ${result.serverCpuUsPerRequest.toFixed(0)} ` +
+        `µs/request, errors ${result.errors}, timeouts ${result.timeouts}, non-2xx ${result.non2xx}`,
+    );
+    if (result.meteredCalls !== undefined) {
+      console.log(
+        `    usage meter wrote ${result.meteredCalls} calls; autocannon completed ${result.completedIncludingWarmup} ` +
+          `(it drops up to ${CONNECTIONS} in flight at each stop)`,
+      );
+    }
+  }
+  const [, express, chain] = results;
+  const cpuRatio = express.serverCpuUsPerRequest / chain.serverCpuUsPerRequest;
+  const failures = chain.errors + chain.timeouts + chain.non2xx;
+  const checks = {
+    ratioAtLeast: { target: TARGETS.ratio, value: ratio, passed: ratio >= TARGETS.ratio },
+    p99AtMostMs: { target: TARGETS.p99Ms, value: chain.p99Ms, passed: chain.p99Ms <= TARGETS.p99Ms },
+    zeroErrors: { target: 0, value: failures, passed: failures === 0 },
+  };
+  console.log(
+    `\nC/B = ${ratio.toFixed(2)} (median of rounds; target ≥ ${TARGETS.ratio}); C p99 ${ms(chain.p99Ms)} ` +
+      `(target ≤ ${TARGETS.p99Ms} ms); by server CPU per request B/C = ${cpuRatio.toFixed(2)}`,
+  );
+  for (const [name, check] of Object.entries(checks)) {
+    console.log(`  ${check.passed ? 'ok  ' : 'MISS'} ${name}`);
+  }
+
+  console.log('\nMeasurement analysis:');
+  const analysis = await runAnalysis();
+  if (analysis === null) console.log('  (bench/analysis.bench.ts not present)');
+  else for (const entry of analysis) console.log(`  ${JSON.stringify(entry)}`);
+
+  const document = {
+    measuredAt: new Date().toISOString(),
+    node: process.version,
+    cpus: os.cpus().length,
+    cpuModel: os.cpus()[0]?.model ?? null,
+    loadAverageAtEnd: os.loadavg(),
+    connections: CONNECTIONS,
+    warmupSeconds: WARMUP_S,
+    rounds: ROUNDS,
+    secondsPerRound: ROUND_S,
+    requestBody: JSON.parse(BODY),
+    results,
+    ratioChainToExpress: ratio,
+    ratioChainToExpressByRound: ratios,
+    cpuRatioExpressToChain: cpuRatio,
+    checks,
+    analysis,
+  };
+  const dir = path.join(__dirname, 'results');
+  mkdirSync(dir, { recursive: true });
+  writeFileSync(path.join(dir, 'latest.json'), JSON.stringify(document, null, 2) + '\n');
+  console.log('\nWritten to bench/results/latest.json');
+  if (!Object.values(checks).every((c) => c.passed)) process.exitCode = 1;
+}
+
+main().catch((err: unknown) => {
+  console.error(err);
+  process.exitCode = 1;
+});
