@@ -110,7 +110,7 @@ export async function seedDemoStage3Measurements(services: Services): Promise<vo
     name: 'Demo data — synthetic impulse response M+090',
     content: contentFromFile(
       { buffer: ir, originalname: 'demo-side-surround-ir.wav', mimetype: 'audio/wav', size: ir.length },
-      { channel: 'M+090', micPosition: 'MLP', temperatureC: 21 },
+      { channel: 'M+090', micPosition: 'MLP', temperatureC: 21, smoothingOctaves: 1 / 6 },
       room,
     ),
   });

@@ -8,6 +8,7 @@ import {
   measurementRows,
   modeRows,
   responseChart,
+  uploadFieldErrors,
   uploadProblems,
 } from './measurement-view';
 import type { Measurement, RoomMode } from './measurement.model';
@@ -44,6 +45,7 @@ describe('measurementRows', () => {
     const [ir, spl, fr] = measurementRows([IR, SPL, FR]);
     expect(ir).toMatchObject({
       kind: 'Impulse response',
+      kindShort: 'IR',
       arrival: '8.15\u00a0ms',
       level: '\u22123.0\u00a0dBFS peak',
       t30: '0.30\u00a0s',
@@ -245,5 +247,19 @@ describe('responseChart', () => {
     const spec = responseChart({ measured, schroederFrequencyHz: null });
     expect(spec.series).toHaveLength(1);
     expect(measuredLabel('LFE1', ['MLP'])).toBe('LFE1: measured at MLP');
+  });
+});
+
+describe('uploadFieldErrors', () => {
+  it('names fields as the form does and drops an error that repeats the detail', () => {
+    const detail = 'The file is truncated or incomplete: it has no format chunk.';
+    expect(
+      uploadFieldErrors(detail, [
+        { pointer: '/body/file', message: detail },
+        { pointer: '/body/channel', message: 'is not a loudspeaker of this room' },
+        { pointer: '/body/other', message: 'is odd' },
+        { pointer: '', message: 'bare' },
+      ]),
+    ).toEqual(['Loudspeaker: is not a loudspeaker of this room', '/body/other: is odd', 'bare']);
   });
 });

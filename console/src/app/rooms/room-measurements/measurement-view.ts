@@ -17,6 +17,12 @@ const MAX_FIT_POINTS = 16384;
 const MAX_FIT_DB = 300;
 const MAX_FIT_HZ = 192000;
 
+const SHORT_KIND_LABELS: Record<MeasurementKind, string> = {
+  impulseResponse: 'IR',
+  frequencyResponse: 'Response',
+  spl: 'SPL',
+};
+
 const KIND_LABELS: Record<MeasurementKind, string> = {
   impulseResponse: 'Impulse response',
   frequencyResponse: 'Frequency response',
@@ -29,6 +35,8 @@ export interface MeasurementRow {
   channel: string;
   micPosition: string;
   kind: string;
+  /** The kind in a word, for narrow screens. */
+  kindShort: string;
   arrival: string;
   level: string;
   t30: string;
@@ -51,6 +59,7 @@ export function measurementRows(measurements: readonly Measurement[]): Measureme
       channel: m.channel,
       micPosition: m.micPosition,
       kind: KIND_LABELS[m.kind] ?? m.kind,
+      kindShort: SHORT_KIND_LABELS[m.kind] ?? m.kind,
       arrival: m.kind === 'impulseResponse' ? formatQuantity(s.arrivalMs, 'ms', 2) : '—',
       level,
       t30: m.kind === 'impulseResponse' ? formatQuantity(s.t30S, 's', 2) : '—',
@@ -290,4 +299,29 @@ export function measuredLabel(channel: string, micPositions: readonly string[]):
   return micPositions.length > 1
     ? `${channel}: spatial average of ${micPositions.length} positions (${micPositions.join(', ')})`
     : `${channel}: measured at ${micPositions[0] ?? 'one position'}`;
+}
+
+const FIELD_LABELS: Record<string, string> = {
+  '/body/file': 'File',
+  '/body/channel': 'Loudspeaker',
+  '/body/micPosition': 'Microphone position',
+  '/body/fileChannel': 'Channel in the file',
+  '/file': 'File',
+  '/channel': 'Loudspeaker',
+};
+
+/**
+ * The problem document's field errors as the form names its fields, leaving out an error that only
+ * repeats the detail already shown.
+ */
+export function uploadFieldErrors(
+  detail: string | undefined,
+  fieldErrors: ReadonlyArray<{ pointer: string; message: string }>,
+): string[] {
+  return fieldErrors
+    .filter((e) => e.message !== detail)
+    .map((e) => {
+      const label = FIELD_LABELS[e.pointer] ?? e.pointer;
+      return label ? `${label}: ${e.message}` : e.message;
+    });
 }

@@ -16,6 +16,7 @@ import { formatQuantity } from '../../format/format';
 import { errorMessage, toProblem } from '../../problem/http-problem';
 import { ReadableProblem } from '../../problem/problem-message';
 import { ChartView } from '../../ui/chart/chart';
+import { formatFrequency } from '../../ui/chart/frequency-ticks';
 import { ConfirmDialog, ConfirmDialogData } from '../../ui/confirm-dialog/confirm-dialog';
 import { Room } from '../room.model';
 import {
@@ -27,6 +28,7 @@ import {
   measurementRows,
   modeRows,
   responseChart,
+  uploadFieldErrors,
   uploadProblems,
 } from './measurement-view';
 import { ImpulseResponseAnalysis, Measurement } from './measurement.model';
@@ -171,6 +173,10 @@ export class RoomMeasurements {
   protected readonly submitted = signal(false);
   protected readonly uploading = signal(false);
   protected readonly uploadProblem = signal<ReadableProblem | null>(null);
+  protected readonly uploadFieldErrors = computed(() => {
+    const problem = this.uploadProblem();
+    return problem ? uploadFieldErrors(problem.detail, problem.fieldErrors) : [];
+  });
   protected readonly draftProblems = computed(() =>
     uploadProblems(
       { channel: this.channel(), micPosition: this.micPosition(), file: this.file() },
@@ -183,6 +189,7 @@ export class RoomMeasurements {
   }
 
   protected readonly formatQuantity = formatQuantity;
+  protected readonly formatFrequency = formatFrequency;
 
   protected select(id: string): void {
     this.chosenId.set(id);
