@@ -5,7 +5,7 @@ import { requirePermission } from '../auth/permissions';
 import { newId } from '../db/ids';
 import type { Measurement } from '../db/models/measurement';
 import type { Room } from '../db/models/room';
-import { badRequest, notFound } from '../http/problem';
+import { badRequest, notFound, ProblemError } from '../http/problem';
 import { validate } from '../http/validate';
 import { measurementDto } from '../measurements/measurement-dto';
 import {
@@ -107,11 +107,23 @@ export function measurementsRouter({ db }: Services): Router {
 
   router.get(`${path}/average`, tuning, validate('averageMeasurements'), async (req, res) => {
     const room = await findRoomFor(req, db.models, String(req.valid.params.roomId));
-    const { channel } = req.valid.query as { channel: string };
+    const { channel, kind } = req.valid.query as { channel: string; kind?: string };
     const rows = await Measurement.findAll({ where: { roomId: room.id, channel }, order: [['id', 'ASC']] });
-    const withResponse = rows.filter((m) => m.kind !== 'spl');
+    const withResponse = rows.filter((m) => m.kind !== 'spl' && (kind === undefined || m.kind === kind));
     if (withResponse.length === 0)
       throw notFound(`Room ${room.id} has no frequency or impulse responses for channel ${channel}.`);
+    if (new Set(withResponse.map((m) => m.kind)).size > 1) {
+      // dB re full scale and sound-pressure levels cannot be averaged into one meaningful curve.
+      throw new ProblemError({
+        status: 422,
+        title: 'Value cannot be used',
+        detail: `Channel ${channel} has both impulse-response analyses and frequency responses; choose one with kind.`,
+        type: 'calculation-input',
+        errors: [
+          { pointer: '/query/kind', message: 'is required when the channel has both kinds of response' },
+        ],
+      });
+    }
     const average = powerAverageResampled(withResponse.map(responseOf));
     res.json({
       channel,

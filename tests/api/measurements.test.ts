@@ -237,3 +237,35 @@ describe('deleting a room', () => {
     expect(await ctx.db.models.Measurement.count({ where: { roomId: created.body.id } })).toBe(0);
   });
 });
+
+describe('spatial average of mixed kinds', () => {
+  it('refuses to average dBFS impulse-response analyses with SPL-scale frequency responses unless kind is named', async () => {
+    const decay = noisyDecay({
+      sampleRateHz: 48000,
+      durationS: 1,
+      t60S: 0.3,
+      startSample: 480,
+      startRms: 0.1,
+      noiseDb: -70,
+      seed: 3,
+    });
+    expect((await postFile(wav24([decay]), 'right.wav', { channel: 'M-030', micPosition: '1' })).status).toBe(
+      201,
+    );
+    const text = await postJson({
+      kind: 'frequencyResponse',
+      channel: 'M-030',
+      micPosition: '2',
+      text: '20 74.5\n40 76\n80 73.25\n20000 70',
+    });
+    expect(text.status).toBe(201);
+
+    const mixed = await request(ctx.app).get(`${base()}/average?channel=M-030`).set(auth());
+    expectProblem(mixed, 422, '/query/kind');
+    const onlyText = await request(ctx.app)
+      .get(`${base()}/average?channel=M-030&kind=frequencyResponse`)
+      .set(auth());
+    expect(onlyText.status).toBe(200);
+    expect(onlyText.body.measurementIds).toEqual([text.body.id]);
+  });
+});
