@@ -15,10 +15,11 @@ function row(overrides: object = {}) {
 }
 
 /** A database whose answers the test releases one at a time. */
-function controlledModels() {
+function controlledModels(ownerStatus = 'active') {
   const pending: Array<(value: unknown) => void> = [];
   const findOne = jest.fn(() => new Promise((resolve) => pending.push(resolve)));
-  return { models: { ApiKey: { findOne } } as unknown as Models, findOne, pending };
+  const findByPk = jest.fn(async () => ({ status: ownerStatus }));
+  return { models: { ApiKey: { findOne }, User: { findByPk } } as unknown as Models, findOne, pending };
 }
 
 describe('KeyStore', () => {
@@ -73,6 +74,14 @@ describe('KeyStore', () => {
     pending.shift()!(null);
     expect((await early)?.id).toBe('key_1');
     expect(await late).toBeNull();
+  });
+
+  it('refuses the key of a disabled owner', async () => {
+    const { models, pending } = controlledModels('disabled');
+    const store = new KeyStore(models, 'server-secret', () => 9_000_000);
+    const lookup = store.findActive(SECRET);
+    pending.shift()!(row());
+    expect(await lookup).toBeNull();
   });
 
   it('refuses a key past its expiry even from the cache', async () => {

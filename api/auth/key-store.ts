@@ -13,9 +13,10 @@ export interface ActiveKey {
 const CACHE_TTL_MS = 1000;
 
 /**
- * Finds the key behind a bearer token. Lookups are cached for a second so that a burst of calls does
- * not hit SQLite once per request; changes made in this process (revoke, edit) invalidate the cache
- * at once, and changes made by another process (the operator command line) are seen within a second.
+ * Finds the key behind a bearer token; a disabled user's keys are refused like revoked ones. Lookups
+ * are cached for a second so that a burst of calls does not hit SQLite once per request; changes made
+ * in this process (revoke, edit) invalidate the cache at once, and changes made by another process (the
+ * operator command line) or to the owner (disabling) are seen within a second.
  */
 export class KeyStore {
   private readonly cache = new Map<string, { key: ActiveKey | null; at: number }>();
@@ -57,14 +58,7 @@ export class KeyStore {
     const running = this.inFlight.get(hash);
     if (running) return running;
     const generation = this.generation;
-    const read = this.models.ApiKey.findOne({ where: { secretHash: hash, revokedAt: null } }).then((row) => {
-      const key: ActiveKey | null = row && {
-        id: row.id,
-        role: row.role,
-        ownerId: row.ownerId,
-        rateLimitPerMinute: row.rateLimitPerMinute,
-        expiresAt: row.expiresAt,
-      };
+    const read = this.read(hash).then((key) => {
       if (generation === this.generation) {
         if (this.cache.size > 10_000) this.cache.clear();
         this.cache.set(hash, { key, at: now });
@@ -77,6 +71,21 @@ export class KeyStore {
     };
     read.then(forget, forget);
     return read;
+  }
+
+  /** The key behind a hash, if it is not revoked and its owner is not disabled. */
+  private async read(hash: string): Promise<ActiveKey | null> {
+    const row = await this.models.ApiKey.findOne({ where: { secretHash: hash, revokedAt: null } });
+    if (!row) return null;
+    const owner = await this.models.User.findByPk(row.ownerId, { attributes: ['status'] });
+    if (!owner || owner.status === 'disabled') return null;
+    return {
+      id: row.id,
+      role: row.role,
+      ownerId: row.ownerId,
+      rateLimitPerMinute: row.rateLimitPerMinute,
+      expiresAt: row.expiresAt,
+    };
   }
 
   /** Call after revoking or editing a key so the next request sees the change. */

@@ -147,3 +147,16 @@ describe('keys outside the Authorization header', () => {
     expect(res.body.type).toBe('https://isochron.dev/problems/key-outside-header');
   });
 });
+
+describe('a disabled user', () => {
+  it('has its keys refused like revoked ones', async () => {
+    const disabled = await request(ctx.app)
+      .patch(`/v1/users/${ctx.users.other}`)
+      .set(asAdmin())
+      .send({ status: 'disabled' });
+    expect(disabled.status).toBe(200);
+    const res = await request(ctx.app).get('/v1/layouts').set(bearer(ctx.keys.otherTuning));
+    expect(res.status).toBe(401);
+    expect(res.headers['www-authenticate']).toContain('error="invalid_token"');
+  });
+});
