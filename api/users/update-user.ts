@@ -17,13 +17,13 @@ export interface UpdateUserInput {
  * always keeps at least the admin who made the last change.
  */
 export async function updateUser(
-  services: Pick<Services, 'db'>,
+  services: Pick<Services, 'db' | 'keys'>,
   req: Request,
   userId: string,
   input: UpdateUserInput,
 ): Promise<UserView> {
   const { User } = services.db.models;
-  return services.db.write(async (transaction) => {
+  const view = await services.db.write(async (transaction) => {
     const user = await User.findByPk(userId, { transaction });
     if (!user) throw notFound(`No user ${userId}.`);
     const self = req.principal?.userId === user.id;
@@ -68,4 +68,7 @@ export async function updateUser(
     }
     return toUserView(user);
   });
+  // Keys are looked up through a short cache; a disabled owner's keys must stop on the very next request.
+  if (input.status !== undefined) services.keys.invalidate();
+  return view;
 }
