@@ -104,8 +104,8 @@ const delaysBody = fc
         fc.tuple(
           ...labels.map((l) =>
             fc.oneof(
-              fc.record({ label: fc.constant(l), distance }),
-              fc.record({ label: fc.constant(l), arrivalMs: num(0, 1000) }),
+              fc.record({ id: fc.constant(l), distance }),
+              fc.record({ id: fc.constant(l), arrivalMs: num(0, 1000) }),
             ),
           ),
         ),
@@ -130,11 +130,11 @@ const levelsBody = fc.record(
           fc
             .record(
               {
-                label: fc.constant(l),
+                id: fc.constant(l),
                 source: fc.oneof(fc.record({ measuredDb: num(-150, 150) }), fc.record({ distance })),
                 targetOffsetDb: num(-40, 40),
               },
-              { requiredKeys: ['label', 'source'] },
+              { requiredKeys: ['id', 'source'] },
             )
             .map(({ source, ...rest }) => ({ ...rest, ...source })),
         ),
@@ -245,19 +245,17 @@ const bassBody = sampleRateHz.chain((fs) =>
             fc
               .record(
                 {
-                  label: fc.constant(l),
+                  id: fc.constant(l),
                   bassManaged: l.startsWith('LFE') ? fc.constant(false) : fc.boolean(),
                   crossover: fc.oneof(
                     { weight: 4, arbitrary: fc.constant(undefined) },
                     { weight: 1, arbitrary: crossoverPart(fs) },
                   ),
                 },
-                { requiredKeys: ['label'] },
+                { requiredKeys: ['id'] },
               )
               .map((c) =>
-                c.crossover === undefined || !c.bassManaged
-                  ? { label: c.label, bassManaged: c.bassManaged }
-                  : c,
+                c.crossover === undefined || !c.bassManaged ? { id: c.id, bassManaged: c.bassManaged } : c,
               ),
           ),
         ),

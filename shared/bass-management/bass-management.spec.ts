@@ -2,13 +2,13 @@ import { catchInputError, expectWithin, referenceDb } from '../filters/test-help
 import { BassManagementInput, planBassManagement } from './bass-management';
 
 const SEVEN_ONE = ['M+030', 'M-030', 'M+000', 'M+090', 'M-090', 'M+135', 'M-135'];
-const managed = (labels: string[]) => labels.map((label) => ({ label, bassManaged: true }));
+const managed = (labels: string[]) => labels.map((id) => ({ id, bassManaged: true }));
 const MINUS_6_DB = 20 * Math.log10(0.5);
 
 describe('planBassManagement', () => {
   // Issue 2 check value: 7 managed channels + LFE at +10 dB → 20·log10(7 + 10^(10/20)) ≈ 20.1 dB.
   it('7.1 with LFE at +10 dB needs 20·log10(7 + 10^0.5) = 20.14 dB of headroom, and warns', () => {
-    const plan = planBassManagement({ channels: [...managed(SEVEN_ONE), { label: 'LFE1' }] });
+    const plan = planBassManagement({ channels: [...managed(SEVEN_ONE), { id: 'LFE1' }] });
     expectWithin(plan.headroomDb, 20 * Math.log10(7 + Math.pow(10, 10 / 20)), 1e-12, 'headroom');
     expectWithin(plan.headroomDb, 20.14, 0.005, 'rounded');
     expect(plan.warnings.map((w) => w.code)).toEqual(['headroomLarge']);
@@ -19,7 +19,7 @@ describe('planBassManagement', () => {
   // Common practice (REFERENCES §2): LR4 at 80 Hz on both sides; LR outputs are −6.02 dB at fc.
   it('defaults to LR4 at 80 Hz: high-passes and the subwoofer low-pass are −6.02 dB at 80 Hz', () => {
     const plan = planBassManagement({
-      channels: [...managed(['M+030', 'M-030']), { label: 'M+000' }, { label: 'LFE1' }],
+      channels: [...managed(['M+030', 'M-030']), { id: 'M+000' }, { id: 'LFE1' }],
     });
     const [left, , centre, lfe] = plan.channels;
     expect(left).toMatchObject({
@@ -29,12 +29,12 @@ describe('planBassManagement', () => {
     expect(left.highPass!.sections).toHaveLength(2);
     expectWithin(referenceDb(left.highPass!.sections, 80, 48000), MINUS_6_DB, 1e-9, 'HP at 80 Hz');
     expectWithin(referenceDb(plan.subwoofer.lowPass.sections, 80, 48000), MINUS_6_DB, 1e-9, 'LP at 80 Hz');
-    expect(centre).toEqual({ label: 'M+000', role: 'fullRange' });
-    expect(lfe).toEqual({ label: 'LFE1', role: 'lfe' });
+    expect(centre).toEqual({ id: 'M+000', role: 'fullRange' });
+    expect(lfe).toEqual({ id: 'LFE1', role: 'lfe' });
     expect(plan.subwoofer.inputs).toEqual([
-      { label: 'M+030', gainDb: 0, route: 'sharedLowPass' },
-      { label: 'M-030', gainDb: 0, route: 'sharedLowPass' },
-      { label: 'LFE1', gainDb: 10, route: 'direct' },
+      { id: 'M+030', gainDb: 0, route: 'sharedLowPass' },
+      { id: 'M-030', gainDb: 0, route: 'sharedLowPass' },
+      { id: 'LFE1', gainDb: 10, route: 'direct' },
     ]);
     expectWithin(plan.headroomDb, 20 * Math.log10(2 + Math.pow(10, 0.5)), 1e-12, 'headroom');
   });
@@ -43,15 +43,15 @@ describe('planBassManagement', () => {
     const plan = planBassManagement({
       sampleRateHz: 96000,
       channels: [
-        { label: 'M+030', bassManaged: true },
-        { label: 'U+045', bassManaged: true, crossover: { frequencyHz: 100 } },
+        { id: 'M+030', bassManaged: true },
+        { id: 'U+045', bassManaged: true, crossover: { frequencyHz: 100 } },
       ],
     });
     const top = plan.channels[1];
     expect(top.highPass).toMatchObject({ family: 'linkwitzRiley', order: 4, frequencyHz: 100 });
     expectWithin(referenceDb(top.highPass!.sections, 100, 96000), MINUS_6_DB, 1e-9, 'top HP at 100 Hz');
     const input = plan.subwoofer.inputs[1];
-    expect(input).toMatchObject({ label: 'U+045', route: 'ownLowPass', lowPass: { frequencyHz: 100 } });
+    expect(input).toMatchObject({ id: 'U+045', route: 'ownLowPass', lowPass: { frequencyHz: 100 } });
     expectWithin(referenceDb(input.lowPass!.sections, 100, 96000), MINUS_6_DB, 1e-9, 'own LP at 100 Hz');
   });
 
@@ -66,7 +66,7 @@ describe('planBassManagement', () => {
   });
 
   it('uses lfeGainDb for LFE channels and cautions about boosts above +10 dB', () => {
-    const plan = planBassManagement({ lfeGainDb: 12, channels: [{ label: 'LFE1' }, { label: 'LFE2' }] });
+    const plan = planBassManagement({ lfeGainDb: 12, channels: [{ id: 'LFE1' }, { id: 'LFE2' }] });
     expect(plan.subwoofer.inputs.map((i) => i.gainDb)).toEqual([12, 12]);
     expectWithin(plan.headroomDb, 20 * Math.log10(2 * Math.pow(10, 12 / 20)), 1e-12, 'two LFE inputs');
     expect(plan.cautions.map((c) => c.code)).toEqual(['bassSumming', 'lowFrequencyBoost']);
@@ -80,7 +80,7 @@ describe('planBassManagement', () => {
   ])('%i subwoofers share the feed at %d dB each', (count, gainDb) => {
     const plan = planBassManagement({
       subwooferCount: count,
-      channels: [...managed(SEVEN_ONE), { label: 'LFE1' }],
+      channels: [...managed(SEVEN_ONE), { id: 'LFE1' }],
     });
     expect(plan.subwoofer.count).toBe(count);
     expectWithin(plan.subwoofer.feedGainDb, gainDb, 1e-4, 'feed gain');
@@ -88,7 +88,7 @@ describe('planBassManagement', () => {
   });
 
   it('warns when nothing feeds the subwoofer and reports 0 dB headroom', () => {
-    const plan = planBassManagement({ channels: [{ label: 'M+030' }] });
+    const plan = planBassManagement({ channels: [{ id: 'M+030' }] });
     expect(plan.headroomDb).toBe(0);
     expect(plan.warnings.map((w) => w.code)).toEqual(['subwooferUnused']);
     expect(plan.cautions).toEqual([]);
@@ -97,33 +97,33 @@ describe('planBassManagement', () => {
   it('stays quiet below headroomWarningDb', () => {
     const plan = planBassManagement({
       headroomWarningDb: 25,
-      channels: [...managed(SEVEN_ONE), { label: 'LFE1' }],
+      channels: [...managed(SEVEN_ONE), { id: 'LFE1' }],
     });
     expect(plan.warnings).toEqual([]);
   });
 
   it.each([
     [{ channels: [] }, '/channels'],
-    [{ channels: [{ label: 'LFE1', bassManaged: true }] }, '/channels/0/bassManaged'],
-    [{ channels: [{ label: 'LFE1', crossover: { frequencyHz: 100 } }] }, '/channels/0/crossover'],
-    [{ channels: [{ label: 'M+030', crossover: { frequencyHz: 100 } }] }, '/channels/0/crossover'],
-    [{ channels: [{ label: 'M+030' }], subwooferCount: 0 }, '/subwooferCount'],
-    [{ channels: [{ label: 'M+030' }], subwooferCount: 17 }, '/subwooferCount'],
-    [{ channels: [{ label: 'M+030' }], subwooferCount: 1.5 }, '/subwooferCount'],
-    [{ channels: [{ label: 'M+030' }], lfeGainDb: 21 }, '/lfeGainDb'],
-    [{ channels: [{ label: 'M+030' }], headroomWarningDb: -1 }, '/headroomWarningDb'],
-    [{ channels: [{ label: 'M+030' }], crossover: { order: 3 } }, '/crossover/order'],
-    [{ channels: [{ label: 'M+030' }], crossover: { frequencyHz: 24000 } }, '/crossover/frequencyHz'],
+    [{ channels: [{ id: 'LFE1', bassManaged: true }] }, '/channels/0/bassManaged'],
+    [{ channels: [{ id: 'LFE1', crossover: { frequencyHz: 100 } }] }, '/channels/0/crossover'],
+    [{ channels: [{ id: 'M+030', crossover: { frequencyHz: 100 } }] }, '/channels/0/crossover'],
+    [{ channels: [{ id: 'M+030' }], subwooferCount: 0 }, '/subwooferCount'],
+    [{ channels: [{ id: 'M+030' }], subwooferCount: 17 }, '/subwooferCount'],
+    [{ channels: [{ id: 'M+030' }], subwooferCount: 1.5 }, '/subwooferCount'],
+    [{ channels: [{ id: 'M+030' }], lfeGainDb: 21 }, '/lfeGainDb'],
+    [{ channels: [{ id: 'M+030' }], headroomWarningDb: -1 }, '/headroomWarningDb'],
+    [{ channels: [{ id: 'M+030' }], crossover: { order: 3 } }, '/crossover/order'],
+    [{ channels: [{ id: 'M+030' }], crossover: { frequencyHz: 24000 } }, '/crossover/frequencyHz'],
     [
       {
         channels: [
-          { label: 'M+030' },
-          { label: 'M-030', bassManaged: true, crossover: { family: 'butterworth', order: 9 } },
+          { id: 'M+030' },
+          { id: 'M-030', bassManaged: true, crossover: { family: 'butterworth', order: 9 } },
         ],
       },
       '/channels/1/crossover/order',
     ],
-    [{ channels: [{ label: 'M+030' }], sampleRateHz: 500000 }, '/sampleRateHz'],
+    [{ channels: [{ id: 'M+030' }], sampleRateHz: 500000 }, '/sampleRateHz'],
   ])('refuses %j, naming %s', (input, field) => {
     expect(catchInputError(() => planBassManagement(input as BassManagementInput)).field).toBe(field);
   });

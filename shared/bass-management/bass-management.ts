@@ -21,7 +21,8 @@ const LOCALISATION_WARNING_HZ = 120;
 const LFE_LABEL = /^LFE\d*$/;
 
 export interface BassManagementChannelInput {
-  label: string;
+  /** ITU-R BS.2051 label of the channel (`M+030`, `LFE1`), as in stored rooms; unique within the request. */
+  id: string;
   /** Hand this channel's low end to the subwoofer(s). Not allowed on LFE channels. */
   bassManaged?: boolean;
   /** Overrides parts of the crossover for this channel. */
@@ -48,14 +49,14 @@ export interface FilterPath {
 }
 
 export interface BassManagementChannelResult {
-  label: string;
+  id: string;
   role: 'managed' | 'fullRange' | 'lfe';
   /** The channel's high-pass, for managed channels. */
   highPass?: FilterPath & { polarity: Polarity };
 }
 
 export interface SubwooferInput {
-  label: string;
+  id: string;
   /** Gain of this channel into the subwoofer feed, dB. */
   gainDb: number;
   /**
@@ -124,16 +125,16 @@ export function planBassManagement(input: BassManagementInput): BassManagementPl
   const results: BassManagementChannelResult[] = [];
   const inputs: SubwooferInput[] = [];
   channels.forEach((channel, i) => {
-    const isLfe = LFE_LABEL.test(channel.label);
+    const isLfe = LFE_LABEL.test(channel.id);
     if (isLfe) {
       if (channel.bassManaged || channel.crossover !== undefined) {
         throw new CalculationInputError(
-          `${channel.label} is an LFE channel: it feeds the subwoofer directly and takes no crossover`,
+          `${channel.id} is an LFE channel: it feeds the subwoofer directly and takes no crossover`,
           `/channels/${i}/${channel.bassManaged ? 'bassManaged' : 'crossover'}`,
         );
       }
-      results.push({ label: channel.label, role: 'lfe' });
-      inputs.push({ label: channel.label, gainDb: lfeGainDb, route: 'direct' });
+      results.push({ id: channel.id, role: 'lfe' });
+      inputs.push({ id: channel.id, gainDb: lfeGainDb, route: 'direct' });
       return;
     }
     if (!channel.bassManaged) {
@@ -143,7 +144,7 @@ export function planBassManagement(input: BassManagementInput): BassManagementPl
           `/channels/${i}/crossover`,
         );
       }
-      results.push({ label: channel.label, role: 'fullRange' });
+      results.push({ id: channel.id, role: 'fullRange' });
       return;
     }
     const own = channel.crossover === undefined ? undefined : { ...shared, ...channel.crossover };
@@ -152,12 +153,12 @@ export function planBassManagement(input: BassManagementInput): BassManagementPl
       : sharedCrossover;
     const spec = { family: crossover.family, order: crossover.order, frequencyHz: crossover.frequencyHz };
     results.push({
-      label: channel.label,
+      id: channel.id,
       role: 'managed',
       highPass: { ...spec, sections: crossover.highPass.sections, polarity: crossover.highPassPolarity },
     });
     inputs.push({
-      label: channel.label,
+      id: channel.id,
       gainDb: 0,
       ...(own
         ? { route: 'ownLowPass' as const, lowPass: { ...spec, sections: crossover.lowPass.sections } }
@@ -166,7 +167,7 @@ export function planBassManagement(input: BassManagementInput): BassManagementPl
     if (crossover.frequencyHz > LOCALISATION_WARNING_HZ) {
       warnings.push({
         code: 'crossoverHigh',
-        channel: channel.label,
+        channel: channel.id,
         message: `A crossover at ${crossover.frequencyHz} Hz sends content above ${LOCALISATION_WARNING_HZ} Hz to the subwoofer, where it becomes easier to locate.`,
       });
     }

@@ -11,14 +11,14 @@ describe('alignDelays', () => {
   it('gives +0.5 ms to every channel when one arrives 0.5 ms late', () => {
     const plan = alignDelays({
       channels: [
-        { label: 'M+030', arrivalMs: 8.75 },
-        { label: 'M-030', arrivalMs: 8.75 },
-        { label: 'M+000', arrivalMs: 9.25 },
-        { label: 'M+110', arrivalMs: 8.75 },
+        { id: 'M+030', arrivalMs: 8.75 },
+        { id: 'M-030', arrivalMs: 8.75 },
+        { id: 'M+000', arrivalMs: 9.25 },
+        { id: 'M+110', arrivalMs: 8.75 },
       ],
     });
     expect(plan.referenceChannel).toBe('M+000');
-    const delays = Object.fromEntries(plan.channels.map((c) => [c.label, c.delayMs]));
+    const delays = Object.fromEntries(plan.channels.map((c) => [c.id, c.delayMs]));
     expectWithin(delays['M+000'], 0, 0, 'reference');
     for (const label of ['M+030', 'M-030', 'M+110']) expectWithin(delays[label], 0.5, 1e-12, label);
     // 0.5 ms at 48 kHz is exactly 24 samples.
@@ -31,9 +31,9 @@ describe('alignDelays', () => {
   it('computes delays from distances at the air temperature, in ms and rounded samples', () => {
     const plan = alignDelays({
       channels: [
-        { label: 'M+030', distance: 3.0 },
-        { label: 'M+000', distance: 2.5 },
-        { label: 'M+110', distance: '7.5 ft' },
+        { id: 'M+030', distance: 3.0 },
+        { id: 'M+000', distance: 2.5 },
+        { id: 'M+110', distance: '7.5 ft' },
       ],
       temperatureC: 20,
     });
@@ -58,8 +58,8 @@ describe('alignDelays', () => {
   it('uses the sample rate for delaySamples (48000 by default) and keeps rounding within half a sample', () => {
     const input: DelayInput = {
       channels: [
-        { label: 'a', distance: 4.1 },
-        { label: 'b', distance: 2.37 },
+        { id: 'a', distance: 4.1 },
+        { id: 'b', distance: 2.37 },
       ],
     };
     const at48 = alignDelays(input);
@@ -74,7 +74,7 @@ describe('alignDelays', () => {
         fc.constantFrom(44100, 48000, 96000, 192000),
         (distances, fs) => {
           const plan = alignDelays({
-            channels: distances.map((d, i) => ({ label: `c${i}`, distance: d })),
+            channels: distances.map((d, i) => ({ id: `c${i}`, distance: d })),
             sampleRateHz: fs,
           });
           const halfSampleUs = 1e6 / fs / 2;
@@ -92,8 +92,8 @@ describe('alignDelays', () => {
 
   it('changes with temperature: the same distances need less delay in warmer air', () => {
     const channels = [
-      { label: 'a', distance: 6 },
-      { label: 'b', distance: 3 },
+      { id: 'a', distance: 6 },
+      { id: 'b', distance: 3 },
     ];
     const cold = alignDelays({ channels, temperatureC: 10 }).channels[1].delayMs;
     const warm = alignDelays({ channels, temperatureC: 30 }).channels[1].delayMs;
@@ -104,8 +104,8 @@ describe('alignDelays', () => {
   it('mixes distances and measured arrivals, and warns that latency is not accounted for', () => {
     const plan = alignDelays({
       channels: [
-        { label: 'M+030', distance: '3.43 m' },
-        { label: 'LFE1', arrivalMs: 12 },
+        { id: 'M+030', distance: '3.43 m' },
+        { id: 'LFE1', arrivalMs: 12 },
       ],
       speedOfSoundMps: 343,
     });
@@ -117,9 +117,9 @@ describe('alignDelays', () => {
   it('clamps a delay beyond limits.delayMaxMs, with a warning naming the channel', () => {
     const plan = alignDelays({
       channels: [
-        { label: 'far', arrivalMs: 100 },
-        { label: 'near', arrivalMs: 10 },
-        { label: 'mid', arrivalMs: 40 },
+        { id: 'far', arrivalMs: 100 },
+        { id: 'near', arrivalMs: 10 },
+        { id: 'mid', arrivalMs: 40 },
       ],
       limits: { delayMaxMs: 75 },
     });
@@ -135,8 +135,8 @@ describe('alignDelays', () => {
   it('never rounds a clamped delay above the limit', () => {
     const plan = alignDelays({
       channels: [
-        { label: 'far', arrivalMs: 50 },
-        { label: 'near', arrivalMs: 0 },
+        { id: 'far', arrivalMs: 50 },
+        { id: 'near', arrivalMs: 0 },
       ],
       sampleRateHz: 44100,
       limits: { delayMaxMs: 0.0113 },
@@ -147,7 +147,7 @@ describe('alignDelays', () => {
   it('accepts 128 channels and does not modify its input', () => {
     const input = Object.freeze({
       channels: Object.freeze(
-        Array.from({ length: 128 }, (_, i) => Object.freeze({ label: `ch${i}`, distance: 2 + i / 100 })),
+        Array.from({ length: 128 }, (_, i) => Object.freeze({ id: `ch${i}`, distance: 2 + i / 100 })),
       ),
     }) as unknown as DelayInput;
     const plan = alignDelays(input);
@@ -157,37 +157,34 @@ describe('alignDelays', () => {
 
   it.each([
     [{ channels: [] }, '/channels'],
-    [{ channels: Array.from({ length: 129 }, (_, i) => ({ label: `c${i}`, arrivalMs: 1 })) }, '/channels'],
-    [{ channels: [{ label: 'a', distance: 3, arrivalMs: 2 }] }, '/channels/0/arrivalMs'],
-    [{ channels: [{ label: 'a' }] }, '/channels/0/distance'],
+    [{ channels: Array.from({ length: 129 }, (_, i) => ({ id: `c${i}`, arrivalMs: 1 })) }, '/channels'],
+    [{ channels: [{ id: 'a', distance: 3, arrivalMs: 2 }] }, '/channels/0/arrivalMs'],
+    [{ channels: [{ id: 'a' }] }, '/channels/0/distance'],
     [
       {
         channels: [
-          { label: 'a', arrivalMs: 1 },
-          { label: 'a', arrivalMs: 2 },
+          { id: 'a', arrivalMs: 1 },
+          { id: 'a', arrivalMs: 2 },
         ],
       },
-      '/channels/1/label',
+      '/channels/1/id',
     ],
-    [{ channels: [{ label: '', arrivalMs: 1 }] }, '/channels/0/label'],
-    [{ channels: [{ label: 'a', arrivalMs: -0.1 }] }, '/channels/0/arrivalMs'],
-    [{ channels: [{ label: 'a', arrivalMs: 1001 }] }, '/channels/0/arrivalMs'],
+    [{ channels: [{ id: '', arrivalMs: 1 }] }, '/channels/0/id'],
+    [{ channels: [{ id: 'a', arrivalMs: -0.1 }] }, '/channels/0/arrivalMs'],
+    [{ channels: [{ id: 'a', arrivalMs: 1001 }] }, '/channels/0/arrivalMs'],
     [
       {
         channels: [
-          { label: 'a', arrivalMs: 1 },
-          { label: 'b', distance: '2 kg' },
+          { id: 'a', arrivalMs: 1 },
+          { id: 'b', distance: '2 kg' },
         ],
       },
       '/channels/1/distance',
     ],
-    [
-      { channels: [{ label: 'a', arrivalMs: 1 }], temperatureC: 20, speedOfSoundMps: 343 },
-      '/speedOfSoundMps',
-    ],
-    [{ channels: [{ label: 'a', arrivalMs: 1 }], temperatureC: 80 }, '/temperatureC'],
-    [{ channels: [{ label: 'a', arrivalMs: 1 }], sampleRateHz: 1000 }, '/sampleRateHz'],
-    [{ channels: [{ label: 'a', arrivalMs: 1 }], limits: { delayMaxMs: -1 } }, '/limits/delayMaxMs'],
+    [{ channels: [{ id: 'a', arrivalMs: 1 }], temperatureC: 20, speedOfSoundMps: 343 }, '/speedOfSoundMps'],
+    [{ channels: [{ id: 'a', arrivalMs: 1 }], temperatureC: 80 }, '/temperatureC'],
+    [{ channels: [{ id: 'a', arrivalMs: 1 }], sampleRateHz: 1000 }, '/sampleRateHz'],
+    [{ channels: [{ id: 'a', arrivalMs: 1 }], limits: { delayMaxMs: -1 } }, '/limits/delayMaxMs'],
   ])('refuses %j, naming %s', (input, field) => {
     expect(catchInputError(() => alignDelays(input as DelayInput)).field).toBe(field);
   });

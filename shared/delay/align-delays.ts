@@ -12,7 +12,7 @@ export const ALIGNMENT_TOLERANCE_US = 100;
 
 export interface DelayChannelInput {
   /** ITU-R BS.2051 label or another name of the feed; unique within the request. */
-  label: string;
+  id: string;
   /** Distance from the loudspeaker to the listening position (metres, or a string with a unit). */
   distance?: DistanceInput;
   /** Measured arrival time at the listening position in ms. */
@@ -29,7 +29,7 @@ export interface DelayInput {
 }
 
 export interface DelayChannelResult {
-  label: string;
+  id: string;
   /** The distance in metres, when the channel gave one. */
   distanceM?: number;
   /** Arrival at the listening position in ms: measured, or distance / speed of sound. */
@@ -92,15 +92,15 @@ export function alignDelays(input: DelayInput): DelayPlan {
     if (clamped) {
       warnings.push({
         code: 'delayClamped',
-        channel: channel.label,
+        channel: channel.id,
         message:
-          `${channel.label} needs ${round(idealMs, 3)} ms of delay but the processor allows at most ${delayMaxMs} ms; ` +
+          `${channel.id} needs ${round(idealMs, 3)} ms of delay but the processor allows at most ${delayMaxMs} ms; ` +
           `it will arrive ${round(idealMs - delayMs, 3)} ms early (alignment within ${ALIGNMENT_TOLERANCE_US} µs is ` +
           'recommended by ITU-R BS.2051-3).',
       });
     }
     return {
-      label: channel.label,
+      id: channel.id,
       ...(distanceM === undefined ? {} : { distanceM }),
       arrivalMs,
       delayMs,
@@ -112,7 +112,7 @@ export function alignDelays(input: DelayInput): DelayPlan {
   return {
     speedOfSoundMps: speed,
     sampleRateHz: fs,
-    referenceChannel: channels[latest].label,
+    referenceChannel: channels[latest].id,
     channels: results,
     warnings,
   };

@@ -6,9 +6,9 @@ describe('computeLevelTrims', () => {
   it('trims measured levels to a target', () => {
     const plan = computeLevelTrims({
       channels: [
-        { label: 'M+030', measuredDb: 80.0 },
-        { label: 'M+000', measuredDb: 82.5 },
-        { label: 'M-030', measuredDb: 78.2 },
+        { id: 'M+030', measuredDb: 80.0 },
+        { id: 'M+000', measuredDb: 82.5 },
+        { id: 'M-030', measuredDb: 78.2 },
       ],
       targetDb: 79,
     });
@@ -16,7 +16,7 @@ describe('computeLevelTrims', () => {
     expectWithin(plan.channels[0].trimDb, -1, 1e-12, 'M+030');
     expectWithin(plan.channels[1].trimDb, -3.5, 1e-12, 'M+000');
     expectWithin(plan.channels[2].trimDb, 0.8, 1e-12, 'M-030 boost');
-    for (const c of plan.channels) expectWithin(c.expectedDb, 79, 1e-12, `${c.label} expected`);
+    for (const c of plan.channels) expectWithin(c.expectedDb, 79, 1e-12, `${c.id} expected`);
     expect(plan.cautions.map((c) => c.code)).toEqual(['testSignalLevel', 'levelBoost']);
     expect(plan.cautions[1].message).toContain('M-030');
     // Three uncorrelated channels at 79 dB: 79 + 10·log10(3) = 83.77 dB (REFERENCES §5).
@@ -26,9 +26,9 @@ describe('computeLevelTrims', () => {
   it('without a target aligns to the quietest channel, so every trim is a cut', () => {
     const plan = computeLevelTrims({
       channels: [
-        { label: 'a', measuredDb: 80.0 },
-        { label: 'b', measuredDb: 77.4 },
-        { label: 'c', measuredDb: 84.1 },
+        { id: 'a', measuredDb: 80.0 },
+        { id: 'b', measuredDb: 77.4 },
+        { id: 'c', measuredDb: 84.1 },
       ],
     });
     expect(plan.alignedTo).toBe('quietestChannel');
@@ -43,8 +43,8 @@ describe('computeLevelTrims', () => {
   it('honours per-channel target offsets, e.g. LFE +10 dB in band', () => {
     const plan = computeLevelTrims({
       channels: [
-        { label: 'M+030', measuredDb: 85.6 },
-        { label: 'LFE1', measuredDb: 93.0, targetOffsetDb: 10 },
+        { id: 'M+030', measuredDb: 85.6 },
+        { id: 'LFE1', measuredDb: 93.0, targetOffsetDb: 10 },
       ],
       targetDb: 85,
     });
@@ -56,8 +56,8 @@ describe('computeLevelTrims', () => {
   it('estimates from distance by the inverse-square law and flags the estimate', () => {
     const plan = computeLevelTrims({
       channels: [
-        { label: 'near', distance: 2 },
-        { label: 'far', distance: '4 m' },
+        { id: 'near', distance: 2 },
+        { id: 'far', distance: '4 m' },
       ],
     });
     expect(plan.channels.every((c) => c.estimated)).toBe(true);
@@ -69,8 +69,8 @@ describe('computeLevelTrims', () => {
   it('compares distance estimates with measurements through levelAt1mDb', () => {
     const plan = computeLevelTrims({
       channels: [
-        { label: 'measured', measuredDb: 80 },
-        { label: 'estimated', distance: 3 },
+        { id: 'measured', measuredDb: 80 },
+        { id: 'estimated', distance: 3 },
       ],
       levelAt1mDb: 90,
       targetDb: 79,
@@ -83,9 +83,9 @@ describe('computeLevelTrims', () => {
   it('clamps to limits.trimMinDb..trimMaxDb with a warning', () => {
     const plan = computeLevelTrims({
       channels: [
-        { label: 'loud', measuredDb: 96 },
-        { label: 'quiet', measuredDb: 64 },
-        { label: 'ok', measuredDb: 80 },
+        { id: 'loud', measuredDb: 96 },
+        { id: 'quiet', measuredDb: 64 },
+        { id: 'ok', measuredDb: 80 },
       ],
       targetDb: 79,
       limits: { trimMinDb: -12, trimMaxDb: 12 },
@@ -102,25 +102,25 @@ describe('computeLevelTrims', () => {
 
   it.each([
     [{ channels: [] }, '/channels'],
-    [{ channels: [{ label: 'a', measuredDb: 80, distance: 2 }] }, '/channels/0/distance'],
-    [{ channels: [{ label: 'a' }] }, '/channels/0/measuredDb'],
-    [{ channels: [{ label: 'a', measuredDb: 151 }] }, '/channels/0/measuredDb'],
-    [{ channels: [{ label: 'a', measuredDb: NaN }] }, '/channels/0/measuredDb'],
-    [{ channels: [{ label: 'a', measuredDb: 80 }], targetDb: -151 }, '/targetDb'],
-    [{ channels: [{ label: 'a', measuredDb: 80, targetOffsetDb: 41 }] }, '/channels/0/targetOffsetDb'],
-    [{ channels: [{ label: 'a', distance: 2 }], targetDb: 79 }, '/levelAt1mDb'],
+    [{ channels: [{ id: 'a', measuredDb: 80, distance: 2 }] }, '/channels/0/distance'],
+    [{ channels: [{ id: 'a' }] }, '/channels/0/measuredDb'],
+    [{ channels: [{ id: 'a', measuredDb: 151 }] }, '/channels/0/measuredDb'],
+    [{ channels: [{ id: 'a', measuredDb: NaN }] }, '/channels/0/measuredDb'],
+    [{ channels: [{ id: 'a', measuredDb: 80 }], targetDb: -151 }, '/targetDb'],
+    [{ channels: [{ id: 'a', measuredDb: 80, targetOffsetDb: 41 }] }, '/channels/0/targetOffsetDb'],
+    [{ channels: [{ id: 'a', distance: 2 }], targetDb: 79 }, '/levelAt1mDb'],
     [
       {
         channels: [
-          { label: 'a', distance: 2 },
-          { label: 'b', measuredDb: 80 },
+          { id: 'a', distance: 2 },
+          { id: 'b', measuredDb: 80 },
         ],
       },
       '/levelAt1mDb',
     ],
-    [{ channels: [{ label: 'a', distance: '2 s' }] }, '/channels/0/distance'],
-    [{ channels: [{ label: 'a', measuredDb: 80 }], limits: { trimMinDb: 1 } }, '/limits/trimMinDb'],
-    [{ channels: [{ label: 'a', measuredDb: 80 }], limits: { trimMaxDb: -1 } }, '/limits/trimMaxDb'],
+    [{ channels: [{ id: 'a', distance: '2 s' }] }, '/channels/0/distance'],
+    [{ channels: [{ id: 'a', measuredDb: 80 }], limits: { trimMinDb: 1 } }, '/limits/trimMinDb'],
+    [{ channels: [{ id: 'a', measuredDb: 80 }], limits: { trimMaxDb: -1 } }, '/limits/trimMaxDb'],
   ])('refuses %j, naming %s', (input, field) => {
     expect(catchInputError(() => computeLevelTrims(input as LevelInput)).field).toBe(field);
   });

@@ -11,7 +11,8 @@ export const TARGET_OFFSET_LIMIT_DB = 40;
 const NIOSH_REL_DBA = 85;
 
 export interface LevelChannelInput {
-  label: string;
+  /** ITU-R BS.2051 label of the channel (`M+030`, `LFE1`), as in stored rooms; unique within the request. */
+  id: string;
   /** Level read at the listening position with the test signal, in dB (SPL or another common reference). */
   measuredDb?: number;
   /** Distance to the listening position; the level is then estimated by the inverse-square law. */
@@ -33,7 +34,7 @@ export interface LevelInput {
 }
 
 export interface LevelChannelResult {
-  label: string;
+  id: string;
   /** The measured level, or the inverse-square estimate when `estimated`. */
   levelDb: number;
   estimated: boolean;
@@ -104,12 +105,12 @@ export function computeLevelTrims(input: LevelInput): LevelPlan {
     if (clamped) {
       warnings.push({
         code: 'trimClamped',
-        channel: channel.label,
-        message: `${channel.label} needs a trim of ${round2(idealDb)} dB but the processor allows ${trimMinDb ?? '−∞'} to ${trimMaxDb ?? '+∞'} dB; it will be ${round2(Math.abs(idealDb - trimDb))} dB ${idealDb > trimDb ? 'quiet' : 'loud'}.`,
+        channel: channel.id,
+        message: `${channel.id} needs a trim of ${round2(idealDb)} dB but the processor allows ${trimMinDb ?? '−∞'} to ${trimMaxDb ?? '+∞'} dB; it will be ${round2(Math.abs(idealDb - trimDb))} dB ${idealDb > trimDb ? 'quiet' : 'loud'}.`,
       });
     }
     return {
-      label: channel.label,
+      id: channel.id,
       levelDb,
       estimated: distanceM !== undefined,
       ...(distanceM === undefined ? {} : { distanceM }),
@@ -190,7 +191,7 @@ function levelCautions(results: LevelChannelResult[], targetDb: number | undefin
             '(uncorrelated sum, +10·log10 n).'),
     },
   ];
-  const boosted = results.filter((r) => r.trimDb > 0).map((r) => r.label);
+  const boosted = results.filter((r) => r.trimDb > 0).map((r) => r.id);
   if (boosted.length > 0) {
     cautions.push({
       code: 'levelBoost',

@@ -192,10 +192,10 @@ export function planRoom(input: PlanInput): RoomPlan {
 
   const delays = alignDelays({
     channels: input.channels.map((c, i) => {
-      if (c.arrivalMs !== undefined) return { label: c.id, arrivalMs: c.arrivalMs };
+      if (c.arrivalMs !== undefined) return { id: c.id, arrivalMs: c.arrivalMs };
       const fromPosition = positioned.get(i)?.distanceM;
-      if (fromPosition !== undefined) return { label: c.id, distance: fromPosition };
-      if (c.distance !== undefined) return { label: c.id, distance: c.distance };
+      if (fromPosition !== undefined) return { id: c.id, distance: fromPosition };
+      if (c.distance !== undefined) return { id: c.id, distance: c.distance };
       throw new CalculationInputError(
         `${c.id} needs a position, a distance or an arrivalMs for its delay`,
         `/channels/${i}/position`,
@@ -211,7 +211,7 @@ export function planRoom(input: PlanInput): RoomPlan {
   const levels = anyMeasured
     ? computeLevelTrims({
         channels: input.channels.map((c) => ({
-          label: c.id,
+          id: c.id,
           ...(c.measuredDb !== undefined && { measuredDb: c.measuredDb }),
           targetOffsetDb: c.targetOffsetDb ?? (LFE_LABEL.test(c.id) ? LFE_TARGET_OFFSET_DB : 0),
         })),
@@ -243,7 +243,7 @@ export function planRoom(input: PlanInput): RoomPlan {
   const bass =
     anyManaged || lfeChannels.length > 0
       ? planBassManagement({
-          channels: input.channels.map((c) => ({ label: c.id, bassManaged: c.bassManaged ?? false })),
+          channels: input.channels.map((c) => ({ id: c.id, bassManaged: c.bassManaged ?? false })),
           crossover,
           lfeGainDb: input.targets?.lfeGainDb,
           sampleRateHz: fs,

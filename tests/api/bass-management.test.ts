@@ -18,7 +18,7 @@ describe('POST /v1/bass-management', () => {
   // Issue 2 check value: 7 managed + LFE at +10 dB → 20·log10(7 + 10^(10/20)) ≈ 20.1 dB.
   it('7.1: defaults to LR4 at 80 Hz, LFE at +10 dB, headroom 20.1 dB with a warning and a caution', async () => {
     const res = await post({
-      channels: [...SEVEN.map((label) => ({ label, bassManaged: true })), { label: 'LFE1' }],
+      channels: [...SEVEN.map((id) => ({ id, bassManaged: true })), { id: 'LFE1' }],
     });
     expect(res.status).toBe(200);
     expectToMatchContract('planBassManagement', 200, res.body);
@@ -29,7 +29,7 @@ describe('POST /v1/bass-management', () => {
       frequencyHz: 80,
       polarity: 'normal',
     });
-    expect(res.body.subwoofer.inputs.at(-1)).toEqual({ label: 'LFE1', gainDb: 10, route: 'direct' });
+    expect(res.body.subwoofer.inputs.at(-1)).toEqual({ id: 'LFE1', gainDb: 10, route: 'direct' });
     expect(res.body.warnings.map((w: { code: string }) => w.code)).toEqual(['headroomLarge']);
     expect(res.body.cautions.map((c: { code: string }) => c.code)).toEqual(['bassSumming']);
   });
@@ -40,10 +40,10 @@ describe('POST /v1/bass-management', () => {
       subwooferCount: 2,
       lfeGainDb: 10,
       channels: [
-        { label: 'M+030', bassManaged: true },
-        { label: 'U+045', bassManaged: true, crossover: { frequencyHz: 100, order: 8 } },
-        { label: 'M+000' },
-        { label: 'LFE1' },
+        { id: 'M+030', bassManaged: true },
+        { id: 'U+045', bassManaged: true, crossover: { frequencyHz: 100, order: 8 } },
+        { id: 'M+000' },
+        { id: 'LFE1' },
       ],
     });
     expect(res.status).toBe(200);
@@ -55,7 +55,7 @@ describe('POST /v1/bass-management', () => {
       route: 'ownLowPass',
       lowPass: { order: 8, frequencyHz: 100 },
     });
-    expect(res.body.channels[2]).toEqual({ label: 'M+000', role: 'fullRange' });
+    expect(res.body.channels[2]).toEqual({ id: 'M+000', role: 'fullRange' });
   });
 
   describe('bad input gets a problem document naming the field', () => {
@@ -63,44 +63,44 @@ describe('POST /v1/bass-management', () => {
       ['missing channels → 400', {}, 400, '/body/channels'],
       [
         'bassManaged as a string → 400',
-        { channels: [{ label: 'M+030', bassManaged: 'yes' }] },
+        { channels: [{ id: 'M+030', bassManaged: 'yes' }] },
         400,
         '/body/channels/0/bassManaged',
       ],
-      ['lfeGainDb "NaN" → 400', { channels: [{ label: 'LFE1' }], lfeGainDb: 'NaN' }, 400, '/body/lfeGainDb'],
+      ['lfeGainDb "NaN" → 400', { channels: [{ id: 'LFE1' }], lfeGainDb: 'NaN' }, 400, '/body/lfeGainDb'],
       [
         'subwooferCount 0 → 400',
-        { channels: [{ label: 'LFE1' }], subwooferCount: 0 },
+        { channels: [{ id: 'LFE1' }], subwooferCount: 0 },
         400,
         '/body/subwooferCount',
       ],
       [
         'crossover order 9 → 400',
-        { channels: [{ label: 'LFE1' }], crossover: { order: 9 } },
+        { channels: [{ id: 'LFE1' }], crossover: { order: 9 } },
         400,
         '/body/crossover/order',
       ],
       [
         'a negative crossover frequency → 400',
-        { channels: [{ label: 'LFE1' }], crossover: { frequencyHz: -80 } },
+        { channels: [{ id: 'LFE1' }], crossover: { frequencyHz: -80 } },
         400,
         '/body/crossover/frequencyHz',
       ],
       [
         'an LFE channel flagged bassManaged → 422',
-        { channels: [{ label: 'LFE1', bassManaged: true }] },
+        { channels: [{ id: 'LFE1', bassManaged: true }] },
         422,
         '/body/channels/0/bassManaged',
       ],
       [
         'LR order 5 → 422',
-        { channels: [{ label: 'LFE1' }], crossover: { order: 5 } },
+        { channels: [{ id: 'LFE1' }], crossover: { order: 5 } },
         422,
         '/body/crossover/order',
       ],
       [
         'a crossover at Nyquist → 422',
-        { channels: [{ label: 'M+030', bassManaged: true, crossover: { frequencyHz: 24000 } }] },
+        { channels: [{ id: 'M+030', bassManaged: true, crossover: { frequencyHz: 24000 } }] },
         422,
         '/body/channels/0/crossover/frequencyHz',
       ],
@@ -110,13 +110,13 @@ describe('POST /v1/bass-management', () => {
 
     it('129 and 10,000 channels → 400', async () => {
       for (const n of [129, 10000]) {
-        const channels = Array.from({ length: n }, (_, i) => ({ label: `c${i}`, bassManaged: true }));
+        const channels = Array.from({ length: n }, (_, i) => ({ id: `c${i}`, bassManaged: true }));
         expectProblem(await post({ channels }), 400, '/body/channels');
       }
     });
 
     it('deeply nested junk → 400', async () => {
-      expectProblem(await post({ channels: [{ label: 'M+030', crossover: deeplyNested(500) }] }), 400);
+      expectProblem(await post({ channels: [{ id: 'M+030', crossover: deeplyNested(500) }] }), 400);
     });
 
     it('wrong content type → 415', async () => {

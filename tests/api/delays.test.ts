@@ -18,9 +18,9 @@ describe('POST /v1/delays', () => {
   it('one channel 0.5 ms late: it is the reference and every other channel gets +0.5 ms (24 samples at 48 kHz)', async () => {
     const res = await post({
       channels: [
-        { label: 'M+030', arrivalMs: 8.75 },
-        { label: 'M-030', arrivalMs: 8.75 },
-        { label: 'M+000', arrivalMs: 9.25 },
+        { id: 'M+030', arrivalMs: 8.75 },
+        { id: 'M-030', arrivalMs: 8.75 },
+        { id: 'M+000', arrivalMs: 9.25 },
       ],
     });
     expect(res.status).toBe(200);
@@ -37,9 +37,9 @@ describe('POST /v1/delays', () => {
       temperatureC: 20,
       sampleRateHz: 96000,
       channels: [
-        { label: 'M+030', distance: '10.5 ft' },
-        { label: 'M-030', distance: '126 in' },
-        { label: 'M+000', distance: 2.9 },
+        { id: 'M+030', distance: '10.5 ft' },
+        { id: 'M-030', distance: '126 in' },
+        { id: 'M+000', distance: 2.9 },
       ],
     });
     expect(res.status).toBe(200);
@@ -57,8 +57,8 @@ describe('POST /v1/delays', () => {
   it('clamps to limits.delayMaxMs and warns', async () => {
     const res = await post({
       channels: [
-        { label: 'far', arrivalMs: 90 },
-        { label: 'near', arrivalMs: 5 },
+        { id: 'far', arrivalMs: 90 },
+        { id: 'near', arrivalMs: 5 },
       ],
       limits: { delayMaxMs: 75 },
     });
@@ -69,7 +69,7 @@ describe('POST /v1/delays', () => {
   });
 
   it('accepts 128 channels', async () => {
-    const channels = Array.from({ length: 128 }, (_, i) => ({ label: `ch${i}`, distance: 2 + i / 50 }));
+    const channels = Array.from({ length: 128 }, (_, i) => ({ id: `ch${i}`, distance: 2 + i / 50 }));
     const res = await post({ channels });
     expect(res.status).toBe(200);
     expect(res.body.channels).toHaveLength(128);
@@ -80,87 +80,93 @@ describe('POST /v1/delays', () => {
       ['no body fields → 400', {}, 400, '/body/channels'],
       ['channels of the wrong type → 400', { channels: 'M+030' }, 400, '/body/channels'],
       ['an empty channel list → 400', { channels: [] }, 400, '/body/channels'],
-      ['a channel without a label → 400', { channels: [{ distance: 3 }] }, 400, '/body/channels/0/label'],
+      ['a channel without an id → 400', { channels: [{ distance: 3 }] }, 400, '/body/channels/0/id'],
+      [
+        'a channel named by `label` instead of `id` → 400',
+        { channels: [{ label: 'M+030', distance: 3 }] },
+        400,
+        '/body/channels/0/label',
+      ],
       [
         'a distance of the wrong type → 400',
-        { channels: [{ label: 'a', distance: true }] },
+        { channels: [{ id: 'a', distance: true }] },
         400,
         '/body/channels/0/distance',
       ],
       [
         'arrivalMs as the string "NaN" → 400',
-        { channels: [{ label: 'a', arrivalMs: 'NaN' }] },
+        { channels: [{ id: 'a', arrivalMs: 'NaN' }] },
         400,
         '/body/channels/0/arrivalMs',
       ],
       [
         'arrivalMs as "Infinity" → 400',
-        { channels: [{ label: 'a', arrivalMs: 'Infinity' }] },
+        { channels: [{ id: 'a', arrivalMs: 'Infinity' }] },
         400,
         '/body/channels/0/arrivalMs',
       ],
       [
         'a negative arrival → 400',
-        { channels: [{ label: 'a', arrivalMs: -1 }] },
+        { channels: [{ id: 'a', arrivalMs: -1 }] },
         400,
         '/body/channels/0/arrivalMs',
       ],
       [
         'a negative distance → 400',
-        { channels: [{ label: 'a', distance: -3 }] },
+        { channels: [{ id: 'a', distance: -3 }] },
         400,
         '/body/channels/0/distance',
       ],
       [
         'a temperature out of range → 400',
-        { channels: [{ label: 'a', arrivalMs: 1 }], temperatureC: 99 },
+        { channels: [{ id: 'a', arrivalMs: 1 }], temperatureC: 99 },
         400,
         '/body/temperatureC',
       ],
       [
         'an unknown field → 400',
-        { channels: [{ label: 'a', arrivalMs: 1 }], colour: 'red' },
+        { channels: [{ id: 'a', arrivalMs: 1 }], colour: 'red' },
         400,
         '/body/colour',
       ],
       [
         'a sample rate out of range → 400',
-        { channels: [{ label: 'a', arrivalMs: 1 }], sampleRateHz: 1000 },
+        { channels: [{ id: 'a', arrivalMs: 1 }], sampleRateHz: 1000 },
         400,
         '/body/sampleRateHz',
       ],
       [
         'a distance that is not a length → 422',
-        { channels: [{ label: 'a', distance: '3 kg' }] },
+        { channels: [{ id: 'a', distance: '3 kg' }] },
         422,
         '/body/channels/0/distance',
       ],
       [
         'a distance of "NaN m" → 422',
-        { channels: [{ label: 'a', distance: 'NaN m' }] },
+        { channels: [{ id: 'a', distance: 'NaN m' }] },
         422,
         '/body/channels/0/distance',
       ],
       [
         'both distance and arrival → 422',
-        { channels: [{ label: 'a', distance: 3, arrivalMs: 2 }] },
+        { channels: [{ id: 'a', distance: 3, arrivalMs: 2 }] },
         422,
         '/body/channels/0/arrivalMs',
       ],
       [
-        'a repeated label → 422',
+        'a repeated id → 422',
         {
           channels: [
-            { label: 'a', arrivalMs: 1 },
-            { label: 'a', arrivalMs: 2 },
+            { id: 'a', arrivalMs: 1 },
+            { id: 'a', arrivalMs: 2 },
           ],
         },
         422,
-        '/body/channels/1/label',
+        '/body/channels/1/id',
       ],
       [
         'both temperature and speed of sound → 422',
-        { channels: [{ label: 'a', arrivalMs: 1 }], temperatureC: 20, speedOfSoundMps: 343 },
+        { channels: [{ id: 'a', arrivalMs: 1 }], temperatureC: 20, speedOfSoundMps: 343 },
         422,
         '/body/speedOfSoundMps',
       ],
@@ -168,18 +174,29 @@ describe('POST /v1/delays', () => {
       expectProblem(await post(body), status, pointer);
     });
 
+    it('a repeated id is named in the message as well as the pointer', async () => {
+      const res = await post({
+        channels: [
+          { id: 'M+030', arrivalMs: 1 },
+          { id: 'M+030', arrivalMs: 2 },
+        ],
+      });
+      expectProblem(res, 422, '/body/channels/1/id');
+      expect(res.body.errors[0].message).toBe('id M+030 appears more than once');
+    });
+
     it('129 channels → 400', async () => {
-      const channels = Array.from({ length: 129 }, (_, i) => ({ label: `c${i}`, arrivalMs: 1 }));
+      const channels = Array.from({ length: 129 }, (_, i) => ({ id: `c${i}`, arrivalMs: 1 }));
       expectProblem(await post({ channels }), 400, '/body/channels');
     });
 
     it('10,000 channels → 400', async () => {
-      const channels = Array.from({ length: 10000 }, (_, i) => ({ label: `c${i}`, arrivalMs: 1 }));
+      const channels = Array.from({ length: 10000 }, (_, i) => ({ id: `c${i}`, arrivalMs: 1 }));
       expectProblem(await post({ channels }), 400, '/body/channels');
     });
 
     it.each([1000, 2000])('junk nested %i levels deep → 400', async (depth) => {
-      expectProblem(await post({ channels: [{ label: 'a', distance: deeplyNested(depth) }] }), 400);
+      expectProblem(await post({ channels: [{ id: 'a', distance: deeplyNested(depth) }] }), 400);
       expectProblem(await post(deeplyNested(depth)), 400);
     });
 

@@ -17,10 +17,10 @@ const postRaw = rawPoster(() => ctx, '/v1/levels');
 describe('POST /v1/levels', () => {
   // REFERENCES §5: trim = target − measured; LFE +10 dB in band (ISO 21727 excerpt). Demo readings are invented.
   it('trims the Stage 3 demo readings to 79 dB with LFE +10 dB in band', async () => {
-    const channels = Object.entries(STAGE3_SPL_DB).map(([label, measuredDb]) => ({
-      label,
+    const channels = Object.entries(STAGE3_SPL_DB).map(([id, measuredDb]) => ({
+      id,
       measuredDb,
-      ...(label === 'LFE1' ? { targetOffsetDb: 10 } : {}),
+      ...(id === 'LFE1' ? { targetOffsetDb: 10 } : {}),
     }));
     const res = await post({
       channels,
@@ -30,8 +30,8 @@ describe('POST /v1/levels', () => {
     expect(res.status).toBe(200);
     expectToMatchContract('computeLevels', 200, res.body);
     for (const c of res.body.channels) {
-      const offset = c.label === 'LFE1' ? 10 : 0;
-      expect(c.trimDb).toBeCloseTo(79 + offset - STAGE3_SPL_DB[c.label], 10);
+      const offset = c.id === 'LFE1' ? 10 : 0;
+      expect(c.trimDb).toBeCloseTo(79 + offset - STAGE3_SPL_DB[c.id], 10);
       expect(c.expectedDb).toBeCloseTo(79 + offset, 10);
       expect(c.clamped).toBe(false);
     }
@@ -44,9 +44,9 @@ describe('POST /v1/levels', () => {
   it('aligns to the quietest channel without a target, so every trim is a cut', async () => {
     const res = await post({
       channels: [
-        { label: 'M+030', measuredDb: 80.6 },
-        { label: 'M+000', measuredDb: 81.8 },
-        { label: 'U-135', measuredDb: 79.1 },
+        { id: 'M+030', measuredDb: 80.6 },
+        { id: 'M+000', measuredDb: 81.8 },
+        { id: 'U-135', measuredDb: 79.1 },
       ],
     });
     expect(res.status).toBe(200);
@@ -60,8 +60,8 @@ describe('POST /v1/levels', () => {
   it('estimates from distance, flagged estimated, and clamps to the trim range with a warning', async () => {
     const res = await post({
       channels: [
-        { label: 'near', distance: '1 m' },
-        { label: 'far', distance: 8 },
+        { id: 'near', distance: '1 m' },
+        { id: 'far', distance: 8 },
       ],
       limits: { trimMinDb: -12, trimMaxDb: 12 },
     });
@@ -78,49 +78,44 @@ describe('POST /v1/levels', () => {
       ['missing channels → 400', {}, 400, '/body/channels'],
       [
         'measuredDb as a string → 400',
-        { channels: [{ label: 'a', measuredDb: '80' }] },
+        { channels: [{ id: 'a', measuredDb: '80' }] },
         400,
         '/body/channels/0/measuredDb',
       ],
       [
         'measuredDb "NaN" → 400',
-        { channels: [{ label: 'a', measuredDb: 'NaN' }] },
+        { channels: [{ id: 'a', measuredDb: 'NaN' }] },
         400,
         '/body/channels/0/measuredDb',
       ],
       [
         'targetDb "Infinity" → 400',
-        { channels: [{ label: 'a', measuredDb: 80 }], targetDb: 'Infinity' },
+        { channels: [{ id: 'a', measuredDb: 80 }], targetDb: 'Infinity' },
         400,
         '/body/targetDb',
       ],
       [
         'measuredDb out of range → 400',
-        { channels: [{ label: 'a', measuredDb: 200 }] },
+        { channels: [{ id: 'a', measuredDb: 200 }] },
         400,
         '/body/channels/0/measuredDb',
       ],
       [
         'trimMinDb above 0 → 400',
-        { channels: [{ label: 'a', measuredDb: 80 }], limits: { trimMinDb: 3 } },
+        { channels: [{ id: 'a', measuredDb: 80 }], limits: { trimMinDb: 3 } },
         400,
         '/body/limits/trimMinDb',
       ],
-      [
-        'neither reading nor distance → 422',
-        { channels: [{ label: 'a' }] },
-        422,
-        '/body/channels/0/measuredDb',
-      ],
+      ['neither reading nor distance → 422', { channels: [{ id: 'a' }] }, 422, '/body/channels/0/measuredDb'],
       [
         'a distance with a target but no levelAt1mDb → 422',
-        { channels: [{ label: 'a', distance: 3 }], targetDb: 79 },
+        { channels: [{ id: 'a', distance: 3 }], targetDb: 79 },
         422,
         '/body/levelAt1mDb',
       ],
       [
         'a distance in seconds → 422',
-        { channels: [{ label: 'a', distance: '3 s' }] },
+        { channels: [{ id: 'a', distance: '3 s' }] },
         422,
         '/body/channels/0/distance',
       ],
@@ -130,14 +125,14 @@ describe('POST /v1/levels', () => {
 
     it('129 and 10,000 channels → 400', async () => {
       for (const n of [129, 10000]) {
-        const channels = Array.from({ length: n }, (_, i) => ({ label: `c${i}`, measuredDb: 80 }));
+        const channels = Array.from({ length: n }, (_, i) => ({ id: `c${i}`, measuredDb: 80 }));
         expectProblem(await post({ channels }), 400, '/body/channels');
       }
     });
 
     it('deeply nested junk → 400', async () => {
       expectProblem(
-        await post({ channels: [{ label: 'a', measuredDb: deeplyNested(500) }] }),
+        await post({ channels: [{ id: 'a', measuredDb: deeplyNested(500) }] }),
         400,
         '/body/channels/0/measuredDb',
       );

@@ -124,10 +124,10 @@ describe('curvesFromResult computing from returned sections', () => {
     const highPass = { sections: [butterworth2('highpass'), butterworth2('highpass')], polarity: 'normal' };
     const body = {
       channels: [
-        { label: 'M+030', highPass },
-        { label: 'M-030', highPass },
-        { label: 'LFE1', role: 'lfe' },
-        { label: 'M+110', highPass: { sections: [butterworth2('highpass')] } },
+        { id: 'M+030', highPass },
+        { id: 'M-030', highPass },
+        { id: 'LFE1', role: 'lfe' },
+        { id: 'M+110', highPass: { sections: [butterworth2('highpass')] } },
       ],
       subwoofer: { lowPass: { sections: [butterworth2('lowpass'), butterworth2('lowpass')] } },
     };
