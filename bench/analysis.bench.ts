@@ -7,6 +7,7 @@ import { analyzeImpulseResponse } from '../shared/analysis/analyze-impulse-respo
 import { noisyDecay } from '../shared/analysis/test-signals';
 import { decodeWav } from '../shared/analysis/wav-decode';
 import { fitParametricEq } from '../shared/eq-fit/fit-parametric-eq';
+import { cookbookPeakingDb } from '../shared/filters/test-helpers';
 
 export interface BenchResult {
   name: string;
@@ -64,26 +65,6 @@ function roomImpulseResponse(): Float64Array {
   return h;
 }
 
-/** Cookbook peaking magnitude (W3C Audio EQ Cookbook), for the synthetic measurement. */
-function peakDb(f0: number, gainDb: number, q: number, f: number, fs: number): number {
-  const A = Math.pow(10, gainDb / 40);
-  const w0 = (2 * Math.PI * f0) / fs;
-  const alpha = Math.sin(w0) / (2 * q);
-  const w = (2 * Math.PI * f) / fs;
-  const mag = (c: number[]) =>
-    Math.hypot(
-      c[0] + c[1] * Math.cos(w) + c[2] * Math.cos(2 * w),
-      c[1] * Math.sin(w) + c[2] * Math.sin(2 * w),
-    );
-  return (
-    20 *
-    Math.log10(
-      mag([1 + alpha * A, -2 * Math.cos(w0), 1 - alpha * A]) /
-        mag([1 + alpha / A, -2 * Math.cos(w0), 1 - alpha / A]),
-    )
-  );
-}
-
 /** 1/24-octave measurement 20–500 Hz with eight resonances and one floor-bounce null. */
 function lowFrequencyMeasurement() {
   const steps = Math.round(Math.log2(500 / 20) * 24);
@@ -100,7 +81,7 @@ function lowFrequencyMeasurement() {
     [96, -14, 9],
   ];
   const magnitudeDb = frequenciesHz.map(
-    (f) => 84 + resonances.reduce((db, [f0, g, q]) => db + peakDb(f0, g, q, f, 48000), 0),
+    (f) => 84 + resonances.reduce((db, [f0, g, q]) => db + cookbookPeakingDb(f0, g, q, f, 48000), 0),
   );
   return { frequenciesHz, magnitudeDb };
 }

@@ -1,27 +1,8 @@
 import fc from 'fast-check';
 import { CalculationInputError } from '../errors';
 import { designBiquad } from '../filters/biquad-design';
-import { expectWithin } from '../filters/test-helpers';
+import { cookbookPeakingDb, expectWithin } from '../filters/test-helpers';
 import { fitParametricEq, type EqFitInput } from './fit-parametric-eq';
-
-/**
- * Peaking EQ magnitude written here from the Audio EQ Cookbook (W3C Working Group Note, 8 June 2021):
- * A = 10^(g/40), w0 = 2π f0/fs, α = sin(w0)/(2Q); b = [1 + αA, −2cos w0, 1 − αA], a = [1 + α/A, −2cos w0, 1 − α/A].
- */
-function cookbookPeakDb(f0: number, gainDb: number, q: number, f: number, fs: number): number {
-  const A = Math.pow(10, gainDb / 40);
-  const w0 = (2 * Math.PI * f0) / fs;
-  const alpha = Math.sin(w0) / (2 * q);
-  const b = [1 + alpha * A, -2 * Math.cos(w0), 1 - alpha * A];
-  const a = [1 + alpha / A, -2 * Math.cos(w0), 1 - alpha / A];
-  const w = (2 * Math.PI * f) / fs;
-  const mag = (c: number[]) =>
-    Math.hypot(
-      c[0] + c[1] * Math.cos(w) + c[2] * Math.cos(2 * w),
-      c[1] * Math.sin(w) + c[2] * Math.sin(2 * w),
-    );
-  return 20 * Math.log10(mag(b) / mag(a));
-}
 
 type Peak = [frequencyHz: number, gainDb: number, q: number];
 const fs = 48000;
@@ -31,9 +12,9 @@ const grid24 = (from = 20, to = 500): number[] => {
   return Array.from({ length: steps + 1 }, (_, k) => from * Math.pow(to / from, k / steps));
 };
 const responseOf = (peaks: Peak[], freqs: number[], level = 82): number[] =>
-  freqs.map((f) => level + peaks.reduce((db, [f0, g, q]) => db + cookbookPeakDb(f0, g, q, f, fs), 0));
+  freqs.map((f) => level + peaks.reduce((db, [f0, g, q]) => db + cookbookPeakingDb(f0, g, q, f, fs), 0));
 const bandsDbAt = (bands: Array<{ frequencyHz: number; gainDb: number; q: number }>, f: number) =>
-  bands.reduce((db, b) => db + cookbookPeakDb(b.frequencyHz, b.gainDb, b.q, f, fs), 0);
+  bands.reduce((db, b) => db + cookbookPeakingDb(b.frequencyHz, b.gainDb, b.q, f, fs), 0);
 
 describe('fitParametricEq', () => {
   const freqs = grid24();

@@ -81,3 +81,30 @@ export function catchInputError(fn: () => unknown): CalculationInputError {
   }
   throw new Error('expected a CalculationInputError');
 }
+
+/**
+ * Magnitude in dB of one peaking section at `frequencyHz`, written straight from the Audio EQ Cookbook
+ * (W3C Working Group Note, 2021) for building synthetic measurements and reference curves in tests:
+ * A = 10^(g/40), w0 = 2π f0/fs, α = sin(w0)/(2Q); b = [1 + αA, −2cos w0, 1 − αA], a = [1 + α/A, −2cos w0, 1 − α/A].
+ * It does not call biquad-design.ts, so it can check it.
+ */
+export function cookbookPeakingDb(
+  centreHz: number,
+  gainDb: number,
+  q: number,
+  frequencyHz: number,
+  sampleRateHz: number,
+): number {
+  const A = Math.pow(10, gainDb / 40);
+  const w0 = (2 * Math.PI * centreHz) / sampleRateHz;
+  const alpha = Math.sin(w0) / (2 * q);
+  const b = [1 + alpha * A, -2 * Math.cos(w0), 1 - alpha * A];
+  const a = [1 + alpha / A, -2 * Math.cos(w0), 1 - alpha / A];
+  const w = (2 * Math.PI * frequencyHz) / sampleRateHz;
+  const magnitude = (c: number[]) =>
+    Math.hypot(
+      c[0] + c[1] * Math.cos(w) + c[2] * Math.cos(2 * w),
+      c[1] * Math.sin(w) + c[2] * Math.sin(2 * w),
+    );
+  return 20 * Math.log10(magnitude(b) / magnitude(a));
+}

@@ -2,6 +2,7 @@ import request from 'supertest';
 import { expectToMatchContract } from '../support/contract';
 import { createTestContext, type TestContext } from '../support/test-context';
 import { expectProblem, poster } from './calculation-helpers';
+import { cookbookPeakingDb } from '../../shared/filters/test-helpers';
 
 let ctx: TestContext;
 beforeAll(async () => {
@@ -12,26 +13,6 @@ afterAll(async () => {
 });
 
 const post = poster(() => ctx, '/v1/eq/fit');
-
-/** Peaking-section magnitude from the Audio EQ Cookbook (W3C Note 2021), written here. */
-function cookbookPeakDb(f0: number, gainDb: number, q: number, f: number, fs: number): number {
-  const A = Math.pow(10, gainDb / 40);
-  const w0 = (2 * Math.PI * f0) / fs;
-  const alpha = Math.sin(w0) / (2 * q);
-  const w = (2 * Math.PI * f) / fs;
-  const mag = (c: number[]) =>
-    Math.hypot(
-      c[0] + c[1] * Math.cos(w) + c[2] * Math.cos(2 * w),
-      c[1] * Math.sin(w) + c[2] * Math.sin(2 * w),
-    );
-  return (
-    20 *
-    Math.log10(
-      mag([1 + alpha * A, -2 * Math.cos(w0), 1 - alpha * A]) /
-        mag([1 + alpha / A, -2 * Math.cos(w0), 1 - alpha / A]),
-    )
-  );
-}
 
 /** |H| in dB of one returned section, from its coefficients. */
 function sectionDb(
@@ -53,7 +34,7 @@ function sectionDb(
 
 const freqs = Array.from({ length: 113 }, (_, k) => 20 * Math.pow(25, k / 112));
 const measured = (peaks: Array<[number, number, number]>, fs: number) =>
-  freqs.map((f) => 80 + peaks.reduce((db, [f0, g, q]) => db + cookbookPeakDb(f0, g, q, f, fs), 0));
+  freqs.map((f) => 80 + peaks.reduce((db, [f0, g, q]) => db + cookbookPeakingDb(f0, g, q, f, fs), 0));
 
 describe('POST /v1/eq/fit', () => {
   it('flattens known resonances with cut bands whose sections are the cookbook design of the bands', async () => {
@@ -84,7 +65,7 @@ describe('POST /v1/eq/fit', () => {
       expect(band.gainDb).toBeGreaterThanOrEqual(-12);
       for (const f of [band.frequencyHz, 100, 1000]) {
         expect(sectionDb(res.body.sections[i], f, fs)).toBeCloseTo(
-          cookbookPeakDb(band.frequencyHz, band.gainDb, band.q, f, fs),
+          cookbookPeakingDb(band.frequencyHz, band.gainDb, band.q, f, fs),
           9,
         );
       }
