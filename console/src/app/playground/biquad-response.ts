@@ -1,3 +1,8 @@
+/**
+ * Helpers for finding and sampling filter sections in API answers. The response itself is evaluated by
+ * the shared calculation core (`shared/filters/response.ts`), the same code the API uses.
+ */
+
 /** One normalised second-order section, a0 = 1: H(z) = (b0 + b1 z⁻¹ + b2 z⁻²) / (1 + a1 z⁻¹ + a2 z⁻²). */
 export interface Section {
   b0: number;
@@ -5,50 +10,6 @@ export interface Section {
   b2: number;
   a1: number;
   a2: number;
-}
-
-/** A complex number as [real, imaginary]. */
-export type Complex = [number, number];
-
-/** The floor used for a true zero of the magnitude (a notch at its centre), in dB. */
-export const MAGNITUDE_FLOOR_DB = -300;
-
-function multiply([a, b]: Complex, [c, d]: Complex): Complex {
-  return [a * c - b * d, a * d + b * c];
-}
-
-function divide([a, b]: Complex, [c, d]: Complex): Complex {
-  const denominator = c * c + d * d;
-  return [(a * c + b * d) / denominator, (b * c - a * d) / denominator];
-}
-
-/**
- * Complex response of a cascade at one frequency, evaluated on the unit circle at z = e^(jω) with
- * ω = 2π·f/fs (the bilinear-transform designs of the RBJ Audio EQ Cookbook are defined this way).
- */
-export function cascadeAt(sections: readonly Section[], frequencyHz: number, sampleRateHz: number): Complex {
-  const w = (2 * Math.PI * frequencyHz) / sampleRateHz;
-  const z1: Complex = [Math.cos(w), -Math.sin(w)];
-  const z2: Complex = [Math.cos(2 * w), -Math.sin(2 * w)];
-  let total: Complex = [1, 0];
-  for (const s of sections) {
-    const numerator: Complex = [s.b0 + s.b1 * z1[0] + s.b2 * z2[0], s.b1 * z1[1] + s.b2 * z2[1]];
-    const denominator: Complex = [1 + s.a1 * z1[0] + s.a2 * z2[0], s.a1 * z1[1] + s.a2 * z2[1]];
-    total = multiply(total, divide(numerator, denominator));
-  }
-  return total;
-}
-
-/** Magnitude in dB of a complex response, floored at −300 dB. */
-export function magnitudeDb([re, im]: Complex): number {
-  const magnitude = Math.hypot(re, im);
-  return magnitude > 0 ? Math.max(MAGNITUDE_FLOOR_DB, 20 * Math.log10(magnitude)) : MAGNITUDE_FLOOR_DB;
-}
-
-/** Phase in degrees wrapped to (−180, 180]. */
-export function phaseDeg([re, im]: Complex): number {
-  const degrees = (Math.atan2(im, re) * 180) / Math.PI;
-  return degrees === -180 ? 180 : degrees;
 }
 
 /**

@@ -1,14 +1,7 @@
 import type { ChartSpec } from '../ui/chart/chart-spec';
 import { formatFrequency } from '../ui/chart/frequency-ticks';
-import {
-  type Complex,
-  type Section,
-  cascadeAt,
-  isSection,
-  logFrequencies,
-  magnitudeDb,
-  phaseDeg,
-} from './biquad-response';
+import { cascadeResponse, parallelResponse, type CascadeResponse } from '../../../../shared/filters/response';
+import { type Section, isSection, logFrequencies } from './biquad-response';
 
 /** One curve to draw against a logarithmic frequency axis. */
 export interface PlotCurve {
@@ -101,34 +94,39 @@ function sectionsOf(node: unknown): Section[] | null {
   return null;
 }
 
-function curveFromComplex(
+function computedCurve(
   label: string,
   frequencies: number[],
-  values: Complex[],
+  response: CascadeResponse,
   isSum: boolean,
 ): PlotCurve {
   return {
     label,
     frequenciesHz: frequencies,
-    magnitudeDb: values.map(magnitudeDb),
-    phaseDeg: values.map(phaseDeg),
+    magnitudeDb: response.magnitudeDb,
+    phaseDeg: response.phaseDeg,
     source: 'computed',
     isSum,
   };
+}
+
+/** The complex sum of a low-pass and a high-pass output, the high-pass subtracted when inverted. */
+function crossoverSum(low: Section[], high: Section[], inverted: boolean, grid: number[], fs: number) {
+  return parallelResponse(
+    [
+      { sections: low, gain: 1 },
+      { sections: high, gain: inverted ? -1 : 1 },
+    ],
+    grid,
+    fs,
+  );
 }
 
 function computedCurves(node: unknown, path: Path, grid: number[], fs: number, out: PlotCurve[]): void {
   if (out.length >= MAX_CURVES) return;
   const sections = sectionsOf(node);
   if (sections) {
-    out.push(
-      curveFromComplex(
-        labelOf(path),
-        grid,
-        grid.map((f) => cascadeAt(sections, f, fs)),
-        false,
-      ),
-    );
+    out.push(computedCurve(labelOf(path), grid, cascadeResponse(sections, grid, fs), false));
     return;
   }
   if (Array.isArray(node)) {
@@ -142,14 +140,8 @@ function computedCurves(node: unknown, path: Path, grid: number[], fs: number, o
   const low = sectionsOf(node['lowPass']);
   const high = sectionsOf(node['highPass']);
   if (low && high && out.length < MAX_CURVES) {
-    // The two outputs add as complex signals; an inverted high-pass is subtracted.
-    const sign = node['highPassPolarity'] === 'inverted' ? -1 : 1;
-    const values = grid.map((f): Complex => {
-      const a = cascadeAt(low, f, fs);
-      const b = cascadeAt(high, f, fs);
-      return [a[0] + sign * b[0], a[1] + sign * b[1]];
-    });
-    out.push(curveFromComplex(labelOf([...path, 'sum']), grid, values, true));
+    const sum = crossoverSum(low, high, node['highPassPolarity'] === 'inverted', grid, fs);
+    out.push(computedCurve(labelOf([...path, 'sum']), grid, sum, true));
   }
 }
 
@@ -202,13 +194,8 @@ function bassManagementSum(body: unknown, grid: number[], fs: number): PlotCurve
   const managed = body['channels'].find((channel) => isRecord(channel) && sectionsOf(channel['highPass']));
   if (!low || !isRecord(managed) || !isRecord(managed['highPass'])) return null;
   const high = sectionsOf(managed['highPass']) as Section[];
-  const sign = managed['highPass']['polarity'] === 'inverted' ? -1 : 1;
-  const values = grid.map((f): Complex => {
-    const a = cascadeAt(low, f, fs);
-    const b = cascadeAt(high, f, fs);
-    return [a[0] + sign * b[0], a[1] + sign * b[1]];
-  });
-  return curveFromComplex('sum: managed channel + subwoofer', grid, values, true);
+  const sum = crossoverSum(low, high, managed['highPass']['polarity'] === 'inverted', grid, fs);
+  return computedCurve('sum: managed channel + subwoofer', grid, sum, true);
 }
 
 /**
