@@ -2,7 +2,7 @@ import js from '@eslint/js';
 import tseslint from 'typescript-eslint';
 
 export default tseslint.config(
-  { ignores: ['node_modules/', 'dist/', '.angular/', 'coverage/', 'test-artifacts/', '**/*.js', '**/*.mjs'] },
+  { ignores: ['node_modules/', 'dist/', '.angular/', 'coverage/', 'test-artifacts/', '**/*.js', '**/*.mjs', 'shared/contract/api-types.ts'] },
   js.configs.recommended,
   ...tseslint.configs.strict,
   {
@@ -12,7 +12,7 @@ export default tseslint.config(
     },
   },
   {
-    files: ['**/*.spec.ts', 'tests/**/*.ts', 'bench/**/*.ts', 'api/cli/**/*.ts'],
+    files: ['**/*.spec.ts', 'tests/**/*.ts', 'bench/**/*.ts', 'scripts/**/*.ts', 'api/cli/**/*.ts'],
     rules: { 'no-console': 'off', '@typescript-eslint/no-non-null-assertion': 'off' },
   },
 );

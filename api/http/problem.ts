@@ -1,4 +1,5 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
+import { SignalProblemError, type SignalProblemCode } from '../../shared/analysis/signal-problem';
 import { CalculationInputError } from '../../shared/errors';
 
 export interface FieldError {
@@ -134,6 +135,56 @@ function fromHttpError(err: HttpLikeError): ProblemError | null {
   }
 }
 
+const SIGNAL_TITLES: Record<SignalProblemCode, string> = {
+  emptyFile: 'The file is empty',
+  notWav: 'The file is not a WAV file',
+  truncated: 'The file is truncated',
+  unsupportedEncoding: 'The WAV encoding is not supported',
+  unsupportedSampleRate: 'The sample rate is not supported',
+  tooLong: 'The recording is too long',
+  tooShort: 'The recording is too short',
+  channelRequired: 'Choose a channel',
+  channelOutOfRange: 'No such channel',
+  invalidSamples: 'The file holds invalid samples',
+  silent: 'The recording is silent',
+};
+
+/**
+ * The problem document for an error the calculation core threw: a 422 naming the field. The core names
+ * fields relative to the input it was given; `base` is where that input sits in the request (the body,
+ * unless a handler passed a part of it: see `calculateAt`). This is the one place core fields become
+ * request pointers.
+ */
+function calculationProblem(err: CalculationInputError, base = '/body'): ProblemError {
+  const pointer = base + (err.field.startsWith('/') || err.field === '' ? err.field : `/${err.field}`);
+  if (err instanceof SignalProblemError) {
+    return new ProblemError({
+      status: 422,
+      title: SIGNAL_TITLES[err.code],
+      detail: err.message,
+      type: 'unusable-audio',
+      errors: [{ pointer, message: err.message }],
+      extensions: { reason: err.code },
+    });
+  }
+  return new ProblemError({
+    status: 422,
+    title: 'Value cannot be used',
+    detail: err.message,
+    type: 'calculation-input',
+    errors: [{ pointer, message: err.message }],
+  });
+}
+
+/** Runs a calculation on a part of the request at `base` (e.g. `/body/plan`), so its errors name that part. */
+export function calculateAt<T>(base: string, calculation: () => T): T {
+  try {
+    return calculation();
+  } catch (error) {
+    throw error instanceof CalculationInputError ? calculationProblem(error, base) : error;
+  }
+}
+
 export interface ErrorLogger {
   error(details: object, message: string): void;
 }
@@ -146,18 +197,7 @@ export function problemHandler(logger: ErrorLogger): ErrorRequestHandler {
     if (err instanceof ProblemError) {
       problem = err;
     } else if (err instanceof CalculationInputError) {
-      problem = new ProblemError({
-        status: 422,
-        title: 'Value cannot be used',
-        detail: err.message,
-        type: 'calculation-input',
-        errors: [
-          {
-            pointer: err.field.startsWith('/') ? `/body${err.field}` : `/body/${err.field}`,
-            message: err.message,
-          },
-        ],
-      });
+      problem = calculationProblem(err);
     } else {
       problem =
         (typeof err === 'object' && err !== null && fromHttpError(err as HttpLikeError)) ||

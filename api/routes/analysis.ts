@@ -1,5 +1,4 @@
-import { Router, type ErrorRequestHandler, type RequestHandler } from 'express';
-import multer from 'multer';
+import { Router } from 'express';
 import { speedOfSoundMps } from '../../shared/acoustics/speed-of-sound';
 import { analyzeImpulseResponse } from '../../shared/analysis/analyze-impulse-response';
 import { MIN_SMOOTHING_OCTAVES } from '../../shared/analysis/smoothing';
@@ -7,53 +6,37 @@ import { decodeWav } from '../../shared/analysis/wav-decode';
 import { requirePermission } from '../auth/permissions';
 import { badRequest } from '../http/problem';
 import { validate } from '../http/validate';
-import { audioProblem, multerProblem, validateFormFields, WAV_UPLOAD_LIMITS } from './audio-upload';
 
 /** POST /v1/analysis/impulse-response: arrival, level, smoothed response and decay times of one WAV file. */
 export const analysisRouter = Router();
 
-interface AnalysisForm {
-  channel?: number;
-  smoothingOctaves?: number;
+interface RoomFields {
   roomWidthM?: number;
   roomLengthM?: number;
   roomHeightM?: number;
-  temperatureC?: number;
 }
-
-const upload = multer({ storage: multer.memoryStorage(), limits: WAV_UPLOAD_LIMITS }).single('file');
-const receiveFile: RequestHandler = (req, res, next) =>
-  upload(req, res, (err: unknown) => next(multerProblem(err)));
 
 analysisRouter.post(
   '/analysis/impulse-response',
   requirePermission('calculate'),
-  validate('analyzeImpulseResponse'),
-  receiveFile,
-  validateFormFields('ImpulseResponseUpload'),
-  (req, res) => {
-    if (!req.file)
-      throw badRequest('Send the WAV file in the multipart field `file`.', [
-        { pointer: '/body/file', message: 'is required' },
-      ]);
-    const form = req.valid.body as AnalysisForm;
-    const room = roomOf(form);
-    const wav = decodeWav(req.file.buffer, { channel: form.channel });
+  validate('analyzeImpulseResponse', ({ body: form, file }, _req, res) => {
+    if (!file) throw new Error('validate() hands multipart handlers the file');
+    const wav = decodeWav(file.buffer, { channel: form.channel });
     const analysis = analyzeImpulseResponse(wav.samples, wav.sampleRateHz, {
-      smoothingOctaves: Math.max(MIN_SMOOTHING_OCTAVES, form.smoothingOctaves ?? 1 / 12),
-      room,
-      speedOfSoundMps: speedOfSoundMps(form.temperatureC ?? 20),
+      smoothingOctaves: Math.max(MIN_SMOOTHING_OCTAVES, form.smoothingOctaves),
+      room: roomOf(form),
+      speedOfSoundMps: speedOfSoundMps(form.temperatureC),
     });
     const { sampleRateHz, channelCount, channelIndex, encoding, durationS } = wav;
     res.json({
       ...analysis,
-      file: { sizeBytes: req.file.size, sampleRateHz, channelCount, channelIndex, encoding, durationS },
+      file: { sizeBytes: file.size, sampleRateHz, channelCount, channelIndex, encoding, durationS },
     });
-  },
+  }),
 );
 
 /** The room dimensions, all three or none. */
-function roomOf(form: AnalysisForm) {
+function roomOf(form: RoomFields) {
   const { roomWidthM: widthM, roomLengthM: lengthM, roomHeightM: heightM } = form;
   if (widthM !== undefined && lengthM !== undefined && heightM !== undefined)
     return { widthM, lengthM, heightM };
@@ -66,6 +49,3 @@ function roomOf(form: AnalysisForm) {
     missing.map((k) => ({ pointer: `/body/${k}`, message: 'is required with the other room dimensions' })),
   );
 }
-
-const toAudioProblem: ErrorRequestHandler = (err, _req, _res, next) => next(audioProblem(err));
-analysisRouter.use('/analysis', toAudioProblem);

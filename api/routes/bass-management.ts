@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { planBassManagement, type BassManagementInput } from '../../shared/bass-management/bass-management';
+import { planBassManagement } from '../../shared/bass-management/bass-management';
 import { requirePermission } from '../auth/permissions';
 import { validate } from '../http/validate';
 
@@ -9,8 +9,7 @@ export const bassManagementRouter = Router();
 bassManagementRouter.post(
   '/bass-management',
   requirePermission('calculate'),
-  validate('planBassManagement'),
-  (req, res) => {
-    res.json(planBassManagement(req.valid.body as BassManagementInput));
-  },
+  validate('planBassManagement', ({ body }, _req, res) => {
+    res.json(planBassManagement(body));
+  }),
 );

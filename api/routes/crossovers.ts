@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { planCrossover, type CrossoverRequest } from '../../shared/filters/crossover';
+import { planCrossover } from '../../shared/filters/crossover';
 import { requirePermission } from '../auth/permissions';
 import { validate } from '../http/validate';
 
@@ -9,8 +9,7 @@ export const crossoversRouter = Router();
 crossoversRouter.post(
   '/crossovers',
   requirePermission('calculate'),
-  validate('designCrossover'),
-  (req, res) => {
-    res.json(planCrossover(req.valid.body as CrossoverRequest));
-  },
+  validate('designCrossover', ({ body }, _req, res) => {
+    res.json(planCrossover(body));
+  }),
 );

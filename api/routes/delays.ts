@@ -1,11 +1,15 @@
 import { Router } from 'express';
-import { alignDelays, type DelayInput } from '../../shared/delay/align-delays';
+import { alignDelays } from '../../shared/delay/align-delays';
 import { requirePermission } from '../auth/permissions';
 import { validate } from '../http/validate';
 
 /** POST /v1/delays: per-channel delays that make every loudspeaker arrive together. */
 export const delaysRouter = Router();
 
-delaysRouter.post('/delays', requirePermission('calculate'), validate('computeDelays'), (req, res) => {
-  res.json(alignDelays(req.valid.body as DelayInput));
-});
+delaysRouter.post(
+  '/delays',
+  requirePermission('calculate'),
+  validate('computeDelays', ({ body }, _req, res) => {
+    res.json(alignDelays(body));
+  }),
+);

@@ -1,17 +1,21 @@
 import { Router } from 'express';
-import { fitParametricEq, type EqFitInput, type PeakingBand } from '../../shared/eq-fit/fit-parametric-eq';
+import { fitParametricEq, type PeakingBand } from '../../shared/eq-fit/fit-parametric-eq';
+import { DEFAULT_SAMPLE_RATE_HZ } from '../../shared/limits';
 import { requirePermission } from '../auth/permissions';
 import { validate } from '../http/validate';
 
 /** POST /v1/eq/fit: parametric bands that bring a measured response toward a target curve. */
 export const eqFitRouter = Router();
 
-eqFitRouter.post('/eq/fit', requirePermission('calculate'), validate('fitEq'), (req, res) => {
-  const input = req.valid.body as EqFitInput;
-  const sampleRateHz = input.sampleRateHz ?? 48000;
-  const result = fitParametricEq({ ...input, sampleRateHz });
-  res.json({ sampleRateHz, ...result, cautions: boostCautions(result.bands) });
-});
+eqFitRouter.post(
+  '/eq/fit',
+  requirePermission('calculate'),
+  validate('fitEq', ({ body }, _req, res) => {
+    const sampleRateHz = body.sampleRateHz ?? DEFAULT_SAMPLE_RATE_HZ;
+    const result = fitParametricEq({ ...body, sampleRateHz });
+    res.json({ sampleRateHz, ...result, cautions: boostCautions(result.bands) });
+  }),
+);
 
 function boostCautions(bands: PeakingBand[]): Array<{ code: string; message: string }> {
   const boosts = bands.filter((b) => b.gainDb > 0);

@@ -7,13 +7,20 @@ import { validate } from '../http/validate';
 /** The BS.2051-3 layouts and 9.1.6: reference data, readable by every role that may calculate. */
 export const layoutsRouter = Router();
 
-layoutsRouter.get('/layouts', requirePermission('calculate'), validate('listLayouts'), (_req, res) => {
-  res.json({ data: LAYOUTS, hasMore: false });
-});
+layoutsRouter.get(
+  '/layouts',
+  requirePermission('calculate'),
+  validate('listLayouts', (_input, _req, res) => {
+    res.json({ data: LAYOUTS, hasMore: false });
+  }),
+);
 
-layoutsRouter.get('/layouts/:layoutId', requirePermission('calculate'), validate('getLayout'), (req, res) => {
-  const key = String(req.valid.params.layoutId);
-  const layout = findLayout(key);
-  if (!layout) throw notFound(`No layout "${key}". GET /v1/layouts lists the ids and aliases.`);
-  res.json(layout);
-});
+layoutsRouter.get(
+  '/layouts/:layoutId',
+  requirePermission('calculate'),
+  validate('getLayout', ({ params }, _req, res) => {
+    const layout = findLayout(params.layoutId);
+    if (!layout) throw notFound(`No layout "${params.layoutId}". GET /v1/layouts lists the ids and aliases.`);
+    res.json(layout);
+  }),
+);

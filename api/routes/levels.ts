@@ -1,11 +1,15 @@
 import { Router } from 'express';
-import { computeLevelTrims, type LevelInput } from '../../shared/level/level-trims';
+import { computeLevelTrims } from '../../shared/level/level-trims';
 import { requirePermission } from '../auth/permissions';
 import { validate } from '../http/validate';
 
 /** POST /v1/levels: per-channel trims to a reference level. */
 export const levelsRouter = Router();
 
-levelsRouter.post('/levels', requirePermission('calculate'), validate('computeLevels'), (req, res) => {
-  res.json(computeLevelTrims(req.valid.body as LevelInput));
-});
+levelsRouter.post(
+  '/levels',
+  requirePermission('calculate'),
+  validate('computeLevels', ({ body }, _req, res) => {
+    res.json(computeLevelTrims(body));
+  }),
+);

@@ -11,9 +11,12 @@ export function outboxRouter(services: Services): Router {
   const router = Router();
   const outbox = services.mail.outbox;
   if (!outbox || services.config.env === 'production') return router;
-  router.get('/outbox', requirePermission('users'), validate('listOutbox'), (req, res) => {
-    const { limit, startingAfter } = req.valid.query as { limit: number; startingAfter?: string };
-    res.json(outbox.list(limit, startingAfter));
-  });
+  router.get(
+    '/outbox',
+    requirePermission('users'),
+    validate('listOutbox', ({ query }, _req, res) => {
+      res.json(outbox.list(query.limit, query.startingAfter));
+    }),
+  );
   return router;
 }

@@ -17,10 +17,8 @@ export function roomReportRouter({ db }: Services): Router {
   router.get(
     '/rooms/:roomId/report',
     requirePermission('tuning'),
-    validate('getRoomReport'),
-    async (req, res) => {
-      const room = await findRoomFor(req, db.models, String(req.valid.params.roomId));
-      const q = req.valid.query as { tuningId?: string; version?: number };
+    validate('getRoomReport', async ({ params, query: q }, req, res) => {
+      const room = await findRoomFor(req, db.models, params.roomId);
       const chosen = q.tuningId
         ? await findTuningFor(req, db.models, q.tuningId)
         : await db.models.Tuning.findOne({
@@ -63,7 +61,7 @@ export function roomReportRouter({ db }: Services): Router {
         generatedAt: new Date(),
       });
       res.type('text/html; charset=utf-8').send(html);
-    },
+    }),
   );
   return router;
 }

@@ -39,49 +39,49 @@ export function sessionRouter(services: Services): Router {
   router.use(consoleRequestGuard(services.config.publicUrl));
   router.use(sessions.middleware);
 
-  router.get('/session', validate('getSession'), (req, res) => {
-    if (!req.user) throw notSignedIn();
-    res.json({ user: req.user });
-  });
+  router.get(
+    '/session',
+    validate('getSession', (_input, req, res) => {
+      if (!req.user) throw notSignedIn();
+      res.json({ user: req.user });
+    }),
+  );
 
   router.post(
     '/session',
-    validate('signIn'),
-    throttles.perAddress,
-    throttles.perAccount,
-    async (req, res) => {
+    validate('signIn', throttles.perAddress, throttles.perAccount, async ({ body }, req, res) => {
       const check = await sessions.checkPassword(req, res);
       if ('failure' in check) {
-        const { email } = req.valid.body as { email: string };
-        await recordSignInFailed(db, req, check.failure, normalizeEmail(email));
+        await recordSignInFailed(db, req, check.failure, normalizeEmail(body.email));
         throw signInRefused();
       }
       await sessions.signIn(req, check.user);
       await recordSignedIn(db, req, check.user.id);
       res.json({ user: check.user });
-    },
+    }),
   );
 
-  router.delete('/session', validate('signOut'), async (req, res) => {
-    const user = req.user as ConsoleUser | undefined;
-    if (user) {
-      await recordSignedOut(db, req, user.id);
-      await sessions.signOut(req, res);
-    }
-    res.status(204).end();
-  });
+  router.delete(
+    '/session',
+    validate('signOut', async (_input, req, res) => {
+      const user = req.user as ConsoleUser | undefined;
+      if (user) {
+        await recordSignedOut(db, req, user.id);
+        await sessions.signOut(req, res);
+      }
+      res.status(204).end();
+    }),
+  );
 
   router.post(
     '/invitations/accept',
-    validate('acceptInvitation'),
-    throttles.invitationPerAddress,
-    async (req, res) => {
-      const { token, password } = req.valid.body as { token: string; password: string };
+    validate('acceptInvitation', throttles.invitationPerAddress, async ({ body }, req, res) => {
+      const { token, password } = body;
       const user = toConsoleUser(await acceptInvitation(services, req, token, password));
       await sessions.signIn(req, user);
       await recordSignedIn(db, req, user.id);
       res.json({ user });
-    },
+    }),
   );
 
   return router;

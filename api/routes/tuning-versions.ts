@@ -11,35 +11,36 @@ export function tuningVersionsRouter({ db }: Services, toDto: typeof versionDto)
   const router = Router();
   const tuning = requirePermission('tuning');
 
-  router.get('/tunings/:tuningId/versions', tuning, validate('listTuningVersions'), async (req, res) => {
-    const found = await findTuningFor(req, db.models, String(req.valid.params.tuningId));
-    const { limit, startingAfter } = req.valid.query as { limit: number; startingAfter?: string };
-    const after = startingAfter === undefined ? 0 : Number.parseInt(startingAfter, 10) || 0;
-    const rows = await db.models.TuningVersion.findAll({
-      where: { tuningId: found.id, version: { [Op.gt]: after } },
-      order: [['version', 'ASC']],
-      limit: limit + 1,
-    });
-    res.json({ data: rows.slice(0, limit).map(toDto), hasMore: rows.length > limit });
-  });
+  router.get(
+    '/tunings/:tuningId/versions',
+    tuning,
+    validate('listTuningVersions', async ({ params, query: { limit, startingAfter } }, req, res) => {
+      const found = await findTuningFor(req, db.models, params.tuningId);
+      const after = startingAfter === undefined ? 0 : Number.parseInt(startingAfter, 10) || 0;
+      const rows = await db.models.TuningVersion.findAll({
+        where: { tuningId: found.id, version: { [Op.gt]: after } },
+        order: [['version', 'ASC']],
+        limit: limit + 1,
+      });
+      res.json({ data: rows.slice(0, limit).map(toDto), hasMore: rows.length > limit });
+    }),
+  );
 
   router.get(
     '/tunings/:tuningId/versions/:version',
     tuning,
-    validate('getTuningVersion'),
-    async (req, res) => {
-      const found = await findTuningFor(req, db.models, String(req.valid.params.tuningId));
-      res.json(toDto(await findVersion(db.models, found, req.valid.params.version as number)));
-    },
+    validate('getTuningVersion', async ({ params }, req, res) => {
+      const found = await findTuningFor(req, db.models, params.tuningId);
+      res.json(toDto(await findVersion(db.models, found, params.version)));
+    }),
   );
 
   router.post(
     '/tunings/:tuningId/versions/:version/restore',
     tuning,
-    validate('restoreTuningVersion'),
-    async (req, res) => {
-      const found = await findTuningFor(req, db.models, String(req.valid.params.tuningId));
-      const old = await findVersion(db.models, found, req.valid.params.version as number);
+    validate('restoreTuningVersion', async ({ params }, req, res) => {
+      const found = await findTuningFor(req, db.models, params.tuningId);
+      const old = await findVersion(db.models, found, params.version);
       const { tuning: updated, version } = await addVersion(db, req, found.id, () => ({
         name: old.name,
         notes: old.notes,
@@ -48,7 +49,7 @@ export function tuningVersionsRouter({ db }: Services, toDto: typeof versionDto)
         restoredFromVersion: old.version,
       }));
       res.json(tuningDto(updated, version, await db.models.Room.findByPk(updated.roomId)));
-    },
+    }),
   );
 
   return router;

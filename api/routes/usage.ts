@@ -4,20 +4,11 @@ import { badRequest, forbidden } from '../http/problem';
 import { validate } from '../http/validate';
 import type { Services } from '../services';
 import { usageCsv } from '../usage/usage-csv';
-import { usageReport, type UsageGrouping } from '../usage/usage-report';
+import { usageReport } from '../usage/usage-report';
 
 const DAY_MS = 86_400_000;
 const DEFAULT_SPAN_MS = 7 * DAY_MS;
 const MAX_SPAN_MS = 400 * DAY_MS;
-
-interface UsageParams {
-  keyId?: string;
-  userId?: string;
-  route?: string;
-  from?: string;
-  to?: string;
-  groupBy: UsageGrouping;
-}
 
 /** `GET /v1/usage`: metered calls, the caller's own with `usage:own`, everyone's with `usage:all`. */
 export function usageRouter(services: Services): Router {
@@ -26,9 +17,7 @@ export function usageRouter(services: Services): Router {
   router.get(
     '/usage',
     requirePermission('usage:own', 'usage:all'),
-    validate('getUsage'),
-    async (req, res) => {
-      const params = req.valid.query as unknown as UsageParams;
+    validate('getUsage', async ({ query: params }, req, res) => {
       const principal = principalOf(req);
       const everyone = can(principal, 'usage:all');
       if (!everyone && params.userId !== undefined && params.userId !== principal.userId) {
@@ -59,7 +48,7 @@ export function usageRouter(services: Services): Router {
         return;
       }
       res.json({ from: from.toISOString(), to: to.toISOString(), groupBy: params.groupBy, data });
-    },
+    }),
   );
 
   return router;

@@ -6,6 +6,7 @@ import {
   type RateLimitRequestHandler,
 } from 'express-rate-limit';
 import { ProblemError } from '../http/problem';
+import { validInput } from '../http/validate';
 import { normalizeEmail } from './credentials';
 
 export interface ThrottleLimits {
@@ -62,8 +63,7 @@ function limiter(
 const clientAddress = (req: Request): string => ipKeyGenerator(req.ip ?? '');
 
 const triedEmail = (req: Request): string => {
-  const body = req.valid?.body as { email?: unknown } | undefined;
-  return typeof body?.email === 'string' ? normalizeEmail(body.email) : '';
+  return normalizeEmail(validInput(req, 'signIn').body.email);
 };
 
 /** Brakes on password and invitation guessing. Create once per app: each limiter keeps its own counts. */

@@ -1,17 +1,21 @@
 import request from 'supertest';
-import { listOperations, loadOpenApiDocument, type OpenApiOperation } from '../../api/openapi/document';
+import type { OpenAPIV3_1 } from 'openapi-types';
+import {
+  listOperations,
+  loadOpenApiDocument,
+  resolveParameter,
+  type OpenApiOperation,
+} from '../../api/openapi/document';
 import { expectToMatchContract } from '../support/contract';
 import { createTestContext, type TestContext } from '../support/test-context';
 
-interface MediaType {
-  example?: unknown;
-  examples?: Record<string, { value?: unknown }>;
-}
-
 function requestExamples(operation: OpenApiOperation): Array<[string, unknown]> {
-  const media = operation.requestBody?.content?.['application/json'] as MediaType | undefined;
+  const requestBody = operation.requestBody as OpenAPIV3_1.RequestBodyObject | undefined;
+  const media = requestBody?.content['application/json'];
   if (!media) return [];
-  if (media.examples) return Object.entries(media.examples).map(([name, e]) => [name, e.value]);
+  if (media.examples) {
+    return Object.entries(media.examples).map(([name, e]) => [name, (e as OpenAPIV3_1.ExampleObject).value]);
+  }
   return media.example === undefined ? [] : [['example', media.example]];
 }
 
@@ -25,7 +29,7 @@ const runnable = listOperations(document).filter(
     route.startsWith('/v1/') &&
     !route.includes('{') &&
     (method === 'get' || requestExamples(operation).length > 0) &&
-    !(operation.parameters ?? []).some((p) => p.required),
+    !(operation.parameters ?? []).some((p) => resolveParameter(document, p).required),
 );
 type Case = [
   name: string,

@@ -2,7 +2,14 @@ import type { ValidateFunction } from 'ajv';
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { projectRoot } from '../../api/config';
-import { listOperations, type OpenApiOperation, type OpenApiParameter } from '../../api/openapi/document';
+import type { OpenAPIV3_1 } from 'openapi-types';
+import {
+  listOperations,
+  resolveParameter,
+  resolveRef,
+  type OpenApiOperation,
+  type OpenApiParameter,
+} from '../../api/openapi/document';
 import { toFieldErrors } from '../../api/openapi/validators';
 import { getContract } from '../../api/http/validate';
 
@@ -169,6 +176,7 @@ interface Route {
   template: string;
   segments: string[];
   operation: OpenApiOperation;
+  operationId: string;
 }
 
 const routes: Route[] = listOperations(document).map(({ method, route, operation }) => ({
@@ -176,6 +184,7 @@ const routes: Route[] = listOperations(document).map(({ method, route, operation
   template: route,
   segments: route.split('/'),
   operation,
+  operationId: operation.operationId,
 }));
 
 function splitUrl(url: string): { path: string; query: URLSearchParams } {
@@ -208,11 +217,9 @@ function operationOf(example: CurlExample): { route: Route; params: Record<strin
 }
 
 function resolvedParameters(operation: OpenApiOperation, template: string): OpenApiParameter[] {
-  const pathItem = document.paths[template] as { parameters?: OpenApiParameter[] };
-  return [...(pathItem.parameters ?? []), ...(operation.parameters ?? [])].map((p) =>
-    p.$ref
-      ? (document.components.parameters[p.$ref.replace('#/components/parameters/', '')] as OpenApiParameter)
-      : p,
+  const pathItem = document.paths[template];
+  return [...(pathItem?.parameters ?? []), ...(operation.parameters ?? [])].map((p) =>
+    resolveParameter(document, p),
   );
 }
 
@@ -292,7 +299,7 @@ describe('README.md curl examples follow the OpenAPI contract', () => {
 
     it('sends query and path parameters the operation accepts', () => {
       if (!found) return;
-      const operationValidators = validators.get(found.route.operation.operationId)!;
+      const operationValidators = validators.get(found.route.operationId)!;
       const query = Object.fromEntries(splitUrl(example.url).query);
       const declared = resolvedParameters(found.route.operation, found.route.template)
         .filter((p) => p.in === 'query')
@@ -304,17 +311,13 @@ describe('README.md curl examples follow the OpenAPI contract', () => {
 
     it('sends a body the operation accepts', () => {
       if (!found) return;
-      const operationValidators = validators.get(found.route.operation.operationId)!;
+      const operationValidators = validators.get(found.route.operationId)!;
       const media = operationValidators.bodyMediaTypes;
       if (example.formFields.length > 0) {
         expect(media).toContain('multipart/form-data');
-        const schema = found.route.operation.requestBody!.content['multipart/form-data'].schema as {
-          $ref: string;
-        };
-        const upload = document.components.schemas[schema.$ref.split('/').pop()!] as {
-          properties: Record<string, unknown>;
-          required?: string[];
-        };
+        const requestBody = found.route.operation.requestBody as OpenAPIV3_1.RequestBodyObject;
+        const schema = requestBody.content['multipart/form-data'].schema as OpenAPIV3_1.ReferenceObject;
+        const upload = resolveRef<OpenAPIV3_1.SchemaObject & { properties: object }>(document, schema.$ref);
         const names = example.formFields.map((field) => field.split('=')[0]);
         expect(names.filter((name) => !(name in upload.properties))).toEqual([]);
         expect((upload.required ?? []).filter((name) => !names.includes(name))).toEqual([]);
@@ -328,8 +331,8 @@ describe('README.md curl examples follow the OpenAPI contract', () => {
       // Without it curl sends application/x-www-form-urlencoded, which the service refuses with 415.
       expect(hasHeader(example, 'Content-Type', /^application\/json$/)).toBe(true);
       const body: unknown = JSON.parse(example.data);
-      const valid = operationValidators.body!(body);
-      const pointers = toFieldErrors(operationValidators.body!.errors, '/body').map((e) => e.pointer);
+      const valid = operationValidators.json!.all(body);
+      const pointers = toFieldErrors(operationValidators.json!.all.errors, '/body').map((e) => e.pointer);
       if (!example.invalidOnPurpose) {
         if (!valid) throw new Error(`The body is refused at ${pointers.join(', ')}`);
         return;

@@ -1,0 +1,4082 @@
+/**
+ * Generated from the OpenAPI contract in openapi/ by scripts/contract-types.ts (openapi-typescript).
+ * Do not edit: change the contract and run `npm run contract:types`. `npm run check` fails when
+ * this file is stale.
+ */
+/* eslint-disable */
+export type paths = {
+    "/auth/invitations/accept": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Take up an invitation and choose a password
+         * @description The token comes from the link an admin's invitation sent (`/accept-invitation?token=...`). It works
+         *     once and for 7 days. The password needs 12 to 256 characters and must not contain the e-mail
+         *     address. On success the user becomes active and is signed in (the answer sets the session cookie).
+         */
+        post: operations["acceptInvitation"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/auth/session": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * Who is signed in
+         * @description The console user behind the session cookie `isochron.sid`. The session rolls forward on every
+         *     request and ends after 8 hours without one, 24 hours after signing in, when the user signs out,
+         *     or at once when an admin disables the user.
+         */
+        get: operations["getSession"];
+        put?: never;
+        /**
+         * Sign in to the console
+         * @description Checks the e-mail address and password and starts a session: the answer sets the cookie
+         *     `isochron.sid` (HttpOnly, SameSite=Strict, Secure in production) under a new session id.
+         *     An unknown address, a wrong password, an account that has not accepted its invitation and a
+         *     disabled account all get the same 401. After 10 failures for one address, or 30 from one client,
+         *     within 15 minutes, further attempts get 429 with `Retry-After`.
+         *
+         *     Every state-changing `/auth` request must carry `X-Requested-With: isochron-console`, and an
+         *     `Origin` header, when sent, must be this service's own origin; otherwise 403.
+         */
+        post: operations["signIn"];
+        /**
+         * Sign out
+         * @description Ends the session and clears the cookie. Answers 204 also when no one was signed in.
+         */
+        delete: operations["signOut"];
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/healthz": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** Liveness: the process answers. */
+        get: operations["getHealth"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/openapi.json": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** This document, as JSON. */
+        get: operations["getOpenApiDocument"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/readyz": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** Readiness: the database answers. */
+        get: operations["getReadiness"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/v1/analysis/impulse-response": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Analyse an impulse response (WAV) — arrival, level, smoothed response, decay times, room modes
+         * @description Upload one impulse response as `multipart/form-data` with the WAV file in the field `file`. Nothing is
+         *     stored.
+         *
+         *     **Files accepted.** RIFF/RIFX WAV, PCM 16, 24 or 32-bit integer or 32-bit float (plain or
+         *     WAVE_FORMAT_EXTENSIBLE), 44.1–192 kHz, mono or multichannel — give `channel` (0-based) to pick one
+         *     channel of a multichannel file. Caps: **20 MiB** per file (413 above it) and **30 s** of audio. An
+         *     empty, truncated, non-WAV, unsupported, too long or silent file (peak below −120 dBFS) is refused with
+         *     a 422 problem of type `unusable-audio` whose `reason` says which (`emptyFile`, `notWav`, `truncated`,
+         *     `unsupportedEncoding`, `unsupportedSampleRate`, `tooLong`, `tooShort`, `channelRequired`,
+         *     `channelOutOfRange`, `invalidSamples`, `silent`).
+         *
+         *     **What comes back.**
+         *     - `arrival`: the onset where the response first comes within 20 dB of its peak (ISO 3382-1 Annex A
+         *       style; the threshold rises to 15 dB above the noise when the noise is within 35 dB of the peak),
+         *       and the peak, in samples and milliseconds from the start of the file.
+         *     - `level`: peak and RMS in dBFS (raw RMS, full scale = 1.0), energy `10·log10(Σh²)` in dB re a
+         *       full-scale unit impulse, and the noise floor read from the last tenth of the file.
+         *     - `frequencyResponse`: magnitude (dB re a full-scale unit impulse, so a single sample of 1.0 reads
+         *       0 dB) and phase (degrees, with the arrival delay removed) on a log grid of 48 points per octave from
+         *       20 Hz to 20 kHz (or Nyquist), fractional-octave smoothed by power averaging over
+         *       `smoothingOctaves` (1/48..1 octave; default 1/12). The transform (fft.js) covers the response up to
+         *       where its decay meets the noise, at most 2^20 samples.
+         *     - `decay`: EDT, T20 and T30 in seconds, broadband and per octave band 63 Hz–8 kHz (IEC 61260-1 band
+         *       edges, sixth-order Butterworth band filters), by Schroeder backward integration (ISO 3382-1/-2)
+         *       truncated where the decay meets the noise (Lundeby's method) with the missing tail added. A time is
+         *       `null` when the impulse-to-noise ratio is too small for its range (EDT 20 dB, T20 35 dB, T30 45 dB).
+         *     - `room` (when `roomWidthM`, `roomLengthM` and `roomHeightM` are all given): volume, the Schroeder
+         *       frequency `2000·sqrt(T/V)` from the broadband T30 (else T20, else EDT), and the rectangular-room
+         *       modes up to it (axial, tangential, oblique), with the speed of sound at `temperatureC` (default
+         *       20 °C).
+         *     - `file`: what was read.
+         */
+        post: operations["analyzeImpulseResponse"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/v1/bass-management": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * High-passes, subwoofer feed and the headroom bass management needs
+         * @description Channels with `bassManaged: true` get the crossover's high-pass and send their low end to the
+         *     subwoofer(s); the crossover defaults to Linkwitz-Riley 4th order at 80 Hz (common practice), any part
+         *     of it may be changed for the request (`crossover`) or for one channel (`channels[].crossover`).
+         *     Channels whose `id` is `LFE`, `LFE1`, `LFE2`… feed the subwoofer directly at `lfeGainDb` (default +10 dB,
+         *     the in-band replay gain of ITU-R BS.775 / BS.2051 note 5); the LFE content is band-limited at the
+         *     source, so no low-pass is added (add one, commonly at 120 Hz, if yours is not). Other channels play
+         *     full range.
+         *
+         *     Subwoofer inputs: `sharedLowPass` inputs are summed and pass `subwoofer.lowPass`; an input with its
+         *     own crossover (`ownLowPass`) has its own `lowPass`; `direct` inputs (LFE) are added as they are.
+         *
+         *     `headroomDb = 20·log10(Σ 10^(gainDb/20))` over all inputs is how far the summed feed can rise above
+         *     one full-scale channel when every input carries the same in-phase signal (the coherent worst case;
+         *     7 managed channels + LFE at +10 dB → 20.1 dB). It is warned (`headroomLarge`) above
+         *     `headroomWarningDb` (default 12 dB), and a caution about summing is always given when two or more
+         *     inputs are summed.
+         *
+         *     With `subwooferCount` n > 1 each subwoofer gets the whole feed at `feedGainDb = −20·log10(n)`, so n
+         *     subwoofers summing in phase at the listening position give the level of one (common practice);
+         *     their delays and polarity still have to be set and checked by measurement. For LR2 (and
+         *     Butterworth 2 or 6) the high-pass polarity is `inverted`.
+         */
+        post: operations["planBassManagement"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/v1/biquads": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Second-order sections for parametric filters
+         * @description Designs one normalised biquad section per filter from the *Audio EQ Cookbook* (W3C Working Group
+         *     Note, 8 June 2021, after R. Bristow-Johnson). Sections mean
+         *     `H(z) = (b0 + b1·z⁻¹ + b2·z⁻²) / (1 + a1·z⁻¹ + a2·z⁻²)` (a0 = 1; note the `+a1, +a2` denominator —
+         *     some processors expect a1 and a2 negated).
+         *
+         *     - `peaking`, `lowShelf` and `highShelf` need `gainDb` (−48..+24 dB); the other types refuse it.
+         *     - Give at most one of `q` (0.025..100), `bandwidthOctaves` (0.01..8; peaking, bandPass and notch; the
+         *       cookbook's bilinear approximation, within about 1 % up to sampleRateHz/8) or `shelfSlope` (0.01..1;
+         *       shelves; S = 1 is the steepest slope that stays monotonic). Without any, Q = 1/√2 (or S = 1).
+         *     - `bandPass` is the cookbook's constant 0 dB peak gain variant (the one Web Audio's `bandpass` uses).
+         *     - `lowPass`/`highPass` Q is the plain Q (Web Audio's BiquadFilterNode takes Q in dB instead).
+         *
+         *     `frequencyHz` must lie below Nyquist (`sampleRateHz/2`); a frequency at or above it is a 422 naming
+         *     the filter. With `response` the answer includes the cascade's magnitude (dB, a true zero reads
+         *     −300), phase (degrees, wrapped to (−180, 180]) and group delay (ms) at the listed frequencies or on a
+         *     log-spaced sweep (`fromHz`..`toHz`, both included, `pointsPerOctave` default 12, at most 4096 points,
+         *     every point at or below Nyquist). `limits` only warns: filters beyond `eqBandsPerChannel`, or gains
+         *     beyond `eqMaxBoostDb`/`eqMaxCutDb`, are still designed. Boosts carry a caution.
+         */
+        post: operations["designBiquads"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/v1/crossovers": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Low-pass and high-pass cascades of a two-way crossover
+         * @description `family` `butterworth` (order 1–8) or `linkwitzRiley` (order 2, 4 or 8), at `frequencyHz` (below
+         *     `sampleRateHz/2`). Each output is a cascade of normalised second-order sections
+         *     (`H(z) = (b0 + b1·z⁻¹ + b2·z⁻²) / (1 + a1·z⁻¹ + a2·z⁻²)`); an odd Butterworth order adds one
+         *     first-order section with `b2 = a2 = 0`. Butterworth sections have `Q_k = 1/(2·sin((2k−1)π/(2N)))`
+         *     (as scipy.signal.butter), bilinear-transformed with pre-warping so every order is −3.01 dB at
+         *     `frequencyHz`. A Linkwitz-Riley filter is a Butterworth of half the order, squared: −6.02 dB at
+         *     `frequencyHz` on both outputs.
+         *
+         *     `highPassPolarity` is what to give the high-pass output for the flattest sum: `inverted` for orders
+         *     2 and 6 (LR2, Butterworth 2 and 6), `normal` otherwise. Linkwitz-Riley outputs then sum to an
+         *     all-pass (flat magnitude); odd Butterworth orders also sum flat; even Butterworth orders sum to
+         *     +3.01 dB at the crossover frequency (warned as `sumNotFlat`). With `response`, the answer holds both
+         *     outputs (the high-pass without its polarity) and their complex sum (with it).
+         *
+         *     An order outside the family's set is refused: above 8 or below 1 by the schema (400), 3, 5, 6 or 7
+         *     for Linkwitz-Riley by the calculation (422 naming `/body/order`).
+         */
+        post: operations["designCrossover"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/v1/delays": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Delays that make every loudspeaker arrive together
+         * @description Each channel gives either its `distance` to the listening position (metres as a number, or a string
+         *     with a length unit such as `"10.5 ft"`) or a measured `arrivalMs`; both kinds may be mixed. Arrival
+         *     from distance is `distance / c`, with the speed of sound `c = 343.2·sqrt((t + 273.15)/293.15)` m/s
+         *     (ISO 9613-1 form as in the pyfar library) from `temperatureC` (20 °C when absent), unless
+         *     `speedOfSoundMps` is given instead.
+         *
+         *     The latest arrival is the `referenceChannel` and gets 0; every other channel gets
+         *     `delayMs = latest arrival − its arrival`. `delaySamples` is `delayMs` rounded to the nearest sample
+         *     at `sampleRateHz` (48000 when absent) and `quantizationErrorUs` is what that rounding leaves
+         *     (`delaySamples/sampleRateHz − delayMs`, at most half a sample). A delay beyond `limits.delayMaxMs`
+         *     is clamped (`clamped: true`, rounded down to whole samples) and warned: that loudspeaker will
+         *     arrive early. ITU-R BS.2051-3 asks for alignment within 100 µs at the listening position.
+         *
+         *     A distance that is not a length (`"3 kg"`), or a value out of range, is refused with a 422 naming
+         *     the field (e.g. `/body/channels/2/distance`).
+         */
+        post: operations["computeDelays"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/v1/eq/fit": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Fit parametric EQ bands that bring a measured response toward a target curve
+         * @description Fits up to `maxBands` peaking filters (Audio EQ Cookbook sections, a0 = 1,
+         *     `H(z) = (b0 + b1·z⁻¹ + b2·z⁻²) / (1 + a1·z⁻¹ + a2·z⁻²)`) to a measured magnitude response, cut first.
+         *
+         *     **How it fits.** The measurement is resampled to a 1/48-octave grid over `fromHz`..`toHz` (default:
+         *     the measured range within 20 Hz..min(20 kHz, 0.45 × sampleRateHz)) and compared with the target curve
+         *     placed at the measurement's median level over that band. The largest peak gets a cut band (centre at
+         *     the peak, gain = −height, Q from its width at half height); a dip gets a boost band only when boosts
+         *     are allowed (`maxBoostDb` > 0) and it is twice as deep as the highest remaining peak is high. After
+         *     each band, all bands are refined together by bounded Levenberg–Marquardt. Excursions under 1 dB are
+         *     left alone. With cuts only, the target's level follows the corrected response (the channel trim sets
+         *     the level), so the cuts flatten the response toward its lower parts.
+         *
+         *     **Limits.** Every band respects `maxCutDb` (default 12), `maxBoostDb` (default 0: cuts only), `qRange`
+         *     (default 0.5..10) and the fit band; Q is further capped where the measurement has too few points per
+         *     octave to show a narrower band (warning `qLimitedByResolution`). Band values are rounded (0.1 Hz,
+         *     0.01 dB, 0.001 Q) before the sections are designed, so the sections match what you would type into a
+         *     processor.
+         *
+         *     **Nulls.** A dip at least 6 dB deep and at most 1/3 octave wide at half depth is taken as a
+         *     cancellation: it is left out of the fit, never boosted (nor its shoulders, down to 3 dB), and
+         *     reported with a `nullNotBoosted` warning. Moving the loudspeaker or the listening position changes a
+         *     null; EQ does not.
+         *
+         *     **Results.** `predicted` is the measurement with the sections applied, at the measured frequencies.
+         *     `residualRmsDb` is the RMS of (response − target − level) on the fit grid before and after, nulls
+         *     included; `targetOffsetDb` is that level. The answer is deterministic: the same request always gives
+         *     the same bands. Boosts carry a caution: they can overdrive amplifiers and drivers.
+         */
+        post: operations["fitEq"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/v1/geometry": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Distances and angles of loudspeakers, checked against a layout
+         * @description Room coordinates are metres from the floor's front-left corner seen from the listening position:
+         *     x to the right, y toward the back wall, z up. For every loudspeaker the response gives its distance,
+         *     azimuth (positive left) and elevation (positive up) seen from the listener and, with a `layout`, its
+         *     deviation from the nominal direction and whether it lies within the permitted ranges of ITU-R
+         *     BS.2051-3. Warnings report the standard's rules: permitted ranges, symmetry of left/right pairs
+         *     beyond ±45° within 10°, and in systems G, I and J 30°..60° between the two middle-layer surrounds on
+         *     one side. `angleToleranceDeg` (default 2°) widens every range to allow for measuring error — a
+         *     product choice, not part of the standard; send 0 for the strict check.
+         *
+         *     A loudspeaker or listener outside the room, or a repeated channel id, is refused with a 422 naming
+         *     the field. Mounting loudspeakers overhead is for qualified installers under local codes.
+         */
+        post: operations["computeGeometry"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/v1/keys": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * List API keys
+         * @description Keys in order of creation, oldest first, a page at a time: pass the `id` of the last key of a page
+         *     as `startingAfter` to get the next one. A caller with `keys:own` (a developer) sees its own keys;
+         *     `keys:all` (an admin) sees everyone's and may filter by `ownerId`. Revoked keys are left out unless
+         *     `includeRevoked=true`. A key is shown by its `prefix` and `lastFour`; the clear key is never shown
+         *     again after its creation and its hash never leaves the server.
+         */
+        get: operations["listKeys"];
+        put?: never;
+        /**
+         * Create an API key
+         * @description Creates a key and answers with its clear value in `secret` — **the only time it is shown**; store it
+         *     at once (the server keeps only an HMAC-SHA-256 of it). Send it as `Authorization: Bearer <secret>`.
+         *
+         *     A developer creates keys for itself with role `calculate` or `tuning`. An admin creates keys of any
+         *     role for anyone (`ownerId`), sets `rateLimitPerMinute` (requests per minute; when absent the
+         *     server's default applies) and may create `admin` keys for admin users. A key never does more than
+         *     its owner may: viewers own no keys, developers no admin keys (422). `kind: test` makes an
+         *     `iso_test_` key, which behaves the same and is easy to tell apart in logs and scripts.
+         */
+        post: operations["createKey"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/v1/keys/{keyId}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * One API key
+         * @description A key of the caller's (or anyone's, with `keys:all`). Other owners' keys answer 404.
+         */
+        get: operations["getKey"];
+        put?: never;
+        post?: never;
+        /**
+         * Revoke a key
+         * @description Revokes the key at once: its very next request is refused with 401 `invalid_token`. Answers 200 with
+         *     the revoked key (its `revokedAt` set). The key stays listed with `includeRevoked=true`, for the
+         *     record; it cannot be brought back. Revoking a revoked key answers the same 200 and changes nothing.
+         */
+        delete: operations["revokeKey"];
+        options?: never;
+        head?: never;
+        /**
+         * Rename a key, change its rate limit or expiry
+         * @description Sets any of `name`, `rateLimitPerMinute` (admins only; `null` returns to the server default) and
+         *     `expiresAt` (`null` removes the expiry). A revoked key cannot be changed (409). The change applies
+         *     to the key's very next request.
+         */
+        patch: operations["updateKey"];
+        trace?: never;
+    };
+    "/v1/layouts": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * List the standard loudspeaker layouts
+         * @description The ITU-R BS.2051-3 sound systems A–J, each with its loudspeakers' labels, nominal azimuth and
+         *     elevation and permitted ranges, plus 9.1.6 as the subset of system H defined by the AOM IAMF
+         *     specification. Trade names (5.1, 5.1.2, 5.1.4, 7.1, 7.1.4, 22.2, 9.1.6) are listed as `aliases` and
+         *     are accepted wherever a layout is asked for. Azimuth is positive to the left, elevation positive up.
+         */
+        get: operations["listLayouts"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/v1/layouts/{layoutId}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * One loudspeaker layout
+         * @description `layoutId` is a layout id (`bs2051-j`), a BS.2051 name (`4+7+0`), a system letter (`J`) or a trade
+         *     alias (`7.1.4`, `9.1.6`), case-insensitive. A `+` in the path may be sent as is or as `%2B`.
+         */
+        get: operations["getLayout"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/v1/levels": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Level trims that bring every channel to a reference level
+         * @description Each channel gives either `measuredDb` (a level read at the listening position with the test signal —
+         *     SPL, or any reference common to all channels) or its `distance`, from which its level is estimated by
+         *     the inverse-square law `L(r) = L(1 m) − 20·log10(r / 1 m)` (direct sound only; such channels are
+         *     flagged `estimated: true`, and a reading is preferred).
+         *
+         *     With `targetDb` every channel is trimmed to `targetDb + targetOffsetDb − level`. Without it the
+         *     channels are aligned to the quietest one (lowest `level − targetOffsetDb`), so every trim is a cut.
+         *     `targetOffsetDb` sets one channel apart from the others, e.g. +10 dB in-band for LFE or −3 dB for
+         *     cinema surrounds (ISO 21727). Channels given by distance need `levelAt1mDb` (the level of a
+         *     loudspeaker at 1 m) whenever they are compared with a target or with measured channels.
+         *
+         *     Trims outside `limits.trimMinDb..trimMaxDb` are clamped (`clamped: true`) and warned; `expectedDb`
+         *     is the level after the trim. Level calibration uses loud test signals: the response always carries
+         *     a caution, and another when a trim is a boost. Levels are in dB as given; this API does not define
+         *     a full-scale convention.
+         */
+        post: operations["computeLevels"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/v1/outbox": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * Mail the development mail server received
+         * @description Development and tests only (404 in production, where mail is delivered by `SMTP_URL`). Admins only.
+         *     The service runs its own mail server on the loopback interface and keeps the last 200 messages it
+         *     received in memory, newest first: invitations and "a key was created for you" notices.
+         */
+        get: operations["listOutbox"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/v1/plans": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Plan the corrections of a whole room
+         * @description Everything a room needs, in one call: per channel the delay that aligns arrivals at the listening
+         *     position (from a position, a distance or a measured `arrivalMs`; temperature-corrected speed of
+         *     sound; whole samples at `sampleRateHz`), the trim to `targets.referenceDb` (or to the quietest
+         *     channel; LFE channels are read 10 dB above the reference unless `targetOffsetDb` says otherwise),
+         *     parametric EQ sections fitted toward the target curve where a `measuredResponse` is given (cut
+         *     first: boosts only up to `targets.eqMaxBoostDb`, default 0), the high-pass of bass-managed channels,
+         *     and the subwoofer path: low-pass, LFE gain, the headroom the summed feed needs, and a suggested
+         *     subwoofer delay and polarity that line its low-pass up in phase with the mains' high-pass at the
+         *     crossover. Positions are checked against the layout (ITU-R BS.2051-3) and its warnings included.
+         *     Nothing is stored; `POST /v1/rooms/{roomId}/tunings` with `plan` stores a plan as a tuning.
+         *     Deterministic: the same request always gives the same plan.
+         *
+         *     **Cautions.** Level calibration plays loud test signals: start quietly and protect hearing. EQ
+         *     boosts can overdrive amplifiers and drivers. Mounting loudspeakers overhead and running their
+         *     cabling are for qualified installers under local codes.
+         */
+        post: operations["createPlan"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/v1/rooms": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * List your rooms
+         * @description The caller's rooms, oldest first (an admin sees every owner's rooms). Cursor pagination.
+         */
+        get: operations["listRooms"];
+        put?: never;
+        /**
+         * Store a room
+         * @description A room with its layout, dimensions, listening position, loudspeaker positions and the processor's
+         *     limits, in the coordinate convention of the API (metres from the floor's front-left corner seen from
+         *     the listening position; x right, y toward the back wall, z up). The response carries the room's
+         *     geometry (distances, angles, deviation from the layout, rule warnings). A loudspeaker outside the
+         *     room, a repeated channel id or an unknown layout is refused with a 422 naming the field.
+         */
+        post: operations["createRoom"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/v1/rooms/{roomId}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** One room, with its geometry */
+        get: operations["getRoom"];
+        put?: never;
+        post?: never;
+        /** Delete a room with its tunings and measurements */
+        delete: operations["deleteRoom"];
+        options?: never;
+        head?: never;
+        /**
+         * Change a room
+         * @description Fields given replace the stored ones (`loudspeakers` as a whole list). Stored tunings are not changed.
+         */
+        patch: operations["updateRoom"];
+        trace?: never;
+    };
+    "/v1/rooms/{roomId}/measurements": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * List a room's measurements
+         * @description The room's measurements, oldest first, without their arrays (`summary` instead of `result`). Filter by `channel`.
+         */
+        get: operations["listMeasurements"];
+        put?: never;
+        /**
+         * Store a measurement of one loudspeaker at one microphone position
+         * @description Stores one measurement of the loudspeaker `channel` (a loudspeaker id of the room, e.g. `M+030`) at
+         *     microphone position `micPosition` (free text up to 32 characters; default `"1"`). Three kinds:
+         *
+         *     - **Impulse response** — `multipart/form-data` with a WAV file in `file` (the formats and caps of
+         *       `POST /v1/analysis/impulse-response`: PCM 16/24/32-bit or float 32, 44.1–192 kHz, at most 20 MiB
+         *       and 30 s). `fileChannel` picks the channel of a multichannel file. The file is analysed on arrival
+         *       (arrival, level, smoothed response, decay times, and the room's modes from its stored dimensions)
+         *       and the analysis is stored; the audio itself is not kept.
+         *     - **Frequency response** — either the same multipart upload with a text file (columns: frequency
+         *       in Hz, magnitude in dB, optional phase in degrees; separated by commas, semicolons, tabs or spaces;
+         *       lines starting with `#`, `*`, `;`, `//`, `%` or `!` and headings before the data are skipped;
+         *       decimal commas allowed with semicolons or tabs), or JSON with `kind: frequencyResponse` and the
+         *       response as arrays (`response`) or as that text (`text`).
+         *     - **SPL reading** — JSON with `kind: spl`, `splDb`, `weighting` (`A`, `C` or `Z`; default `C`, the
+         *       weighting calibration references use) and `timeWeighting` (`slow` or `fast`; default `slow`).
+         *
+         *     The measurement is analysed and checked completely before anything is written, and written in one
+         *     step: a refused upload leaves nothing behind. A bad file is a 422 naming `/body/file` (audio problems
+         *     have type `unusable-audio` and a `reason`); an unknown channel is a 422 naming `/body/channel`.
+         */
+        post: operations["createMeasurement"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/v1/rooms/{roomId}/measurements/{measurementId}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** Read one measurement with its analysis */
+        get: operations["getMeasurement"];
+        put?: never;
+        post?: never;
+        /** Delete one measurement */
+        delete: operations["deleteMeasurement"];
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/v1/rooms/{roomId}/measurements/average": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * Spatial average of one channel's responses over its microphone positions
+         * @description The power average `10·log10(mean(10^(L/10)))` of every stored frequency response and impulse-response
+         *     analysis of `channel`, each first brought to a common grid of 48 points per octave (1/48-octave power
+         *     smoothing) over the range all of them cover. SPL readings are not included. 404 when the channel has
+         *     no responses. Impulse-response analyses are in dB re full scale and frequency responses in the level
+         *     their tool wrote, so the two are never averaged together: when a channel has both, name `kind`.
+         */
+        get: operations["averageMeasurements"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/v1/rooms/{roomId}/report": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * Print-ready report of a room and its tuning (HTML)
+         * @description One self-contained HTML page for the client (no external assets; print it or save it as PDF from a
+         *     browser): the room and its layout drawn from above with every loudspeaker and its nominal direction,
+         *     distances, angles and deviation from ITU-R BS.2051-3, the tuning's settings per channel, the
+         *     response of each channel's correction, warnings, cautions, the date and who tuned it. Uses the
+         *     most recently changed tuning of the room unless `tuningId` (and `version`) are given.
+         */
+        get: operations["getRoomReport"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/v1/rooms/{roomId}/tunings": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * List a room's tunings
+         * @description Each tuning at its latest version, oldest tuning first. Cursor pagination.
+         */
+        get: operations["listRoomTunings"];
+        put?: never;
+        /**
+         * Store a tuning for a room
+         * @description Either from settings per channel (`channels`, with `delayMs`, `trimDb`, `polarity`, `eq` filters,
+         *     `highPass` and `bassManaged`; filters are stored as parameters and designed at any rate on export),
+         *     or from a whole-room plan (`plan`, the body of `POST /v1/plans` in which layout, room, listener,
+         *     limits, sample rate and loudspeaker positions default to the stored room's). A plan-made tuning
+         *     takes the plan's suggested subwoofer delay and polarity; its warnings come back as `planWarnings`.
+         *     Give exactly one of `channels` or `plan`. The tuning starts at version 1.
+         */
+        post: operations["createRoomTuning"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/v1/tunings/{tuningId}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** One tuning (latest version, or `version`) */
+        get: operations["getTuning"];
+        put?: never;
+        post?: never;
+        /** Delete a tuning and all its versions */
+        delete: operations["deleteTuning"];
+        options?: never;
+        head?: never;
+        /**
+         * Edit a tuning (creates a new version)
+         * @description Every edit creates a new, immutable version; earlier versions stay readable and restorable.
+         *     `channels` are merged by `id` (fields given replace the stored ones; a new id is added);
+         *     `removeChannels` drops channels; `subwoofer` replaces the subwoofer path (`null` removes it).
+         */
+        patch: operations["updateTuning"];
+        trace?: never;
+    };
+    "/v1/tunings/{tuningId}/duplicate": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Duplicate a tuning to try a variant
+         * @description A new tuning (version 1) with the settings of the source's latest version, or of `version`.
+         */
+        post: operations["duplicateTuning"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/v1/tunings/{tuningId}/export": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * Export coefficients for a processor (JSON or CSV)
+         * @description Designs every section from the stored parameters at `sampleRateHz` (default the tuning's own rate):
+         *     EQ by the Audio EQ Cookbook, crossovers as Linkwitz-Riley or Butterworth cascades. Coefficients are
+         *     never resampled from another rate, so they equal what `POST /v1/biquads` and `POST /v1/crossovers`
+         *     return for the same parameters at that rate. Sections are normalised a0 = 1:
+         *     `H(z) = (b0 + b1·z⁻¹ + b2·z⁻²) / (1 + a1·z⁻¹ + a2·z⁻²)`. CSV is RFC 4180 with one row per section.
+         */
+        get: operations["exportTuning"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/v1/tunings/{tuningId}/versions": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * List a tuning's versions
+         * @description Oldest first; `startingAfter` is a version number.
+         */
+        get: operations["listTuningVersions"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/v1/tunings/{tuningId}/versions/{version}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** One version of a tuning */
+        get: operations["getTuningVersion"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/v1/tunings/{tuningId}/versions/{version}/restore": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Restore a version (as a new version)
+         * @description Copies the settings of `version` into a new latest version; nothing is overwritten.
+         */
+        post: operations["restoreTuningVersion"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/v1/tunings/compare": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * Compare two tunings channel by channel
+         * @description Differences right minus left for every channel: delay, trim, polarity, bass management, high-pass,
+         *     EQ, and the largest difference between the two corrections' magnitude responses (trim, EQ and
+         *     crossover filters) from 20 Hz to 20 kHz at 1/6 octave. Either side may be any version.
+         */
+        get: operations["compareTunings"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/v1/usage": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * Metered calls per key, route and time
+         * @description Every authenticated `/v1` call is counted per key (or, for console calls, per signed-in user), route
+         *     template (`POST /v1/biquads`, `GET /v1/keys/{keyId}`), status class and hour. Counts are kept in
+         *     memory and written to the database every few seconds (`USAGE_FLUSH_INTERVAL_MS`, 5 s by default) and
+         *     at shutdown, so the latest seconds may not show yet. Calls refused before a caller is known (401)
+         *     or by the rate limit (429) are not counted.
+         *
+         *     `groupBy` chooses the rows: `hour` (default) or `day` give one row per key, route and hour or UTC
+         *     day; `route` one row per route over the whole range (key columns null); `key` one row per key
+         *     (route and bucket null). `errorCount` is the part of `count` answered with 4xx or 5xx.
+         *
+         *     The range is `[from, to)` on the hours' starts; by default the 7 days before now, at most 400 days,
+         *     and at most 10,000 rows (422 beyond: narrow the range or group coarser). A caller with `usage:own`
+         *     sees its own keys' usage; `usage:all` (admins, viewers) sees everyone's and may filter by `userId`.
+         *
+         *     Send `Accept: text/csv` for the same rows as CSV (columns `bucket,keyId,keyName,userId,route,count,errorCount`).
+         */
+        get: operations["getUsage"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/v1/users": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * List console users
+         * @description Admins only. Oldest first; page with `limit` and `startingAfter` (the last id of the previous page).
+         */
+        get: operations["listUsers"];
+        put?: never;
+        /**
+         * Invite a console user
+         * @description Admins only. Creates the user with status `invited` and e-mails a one-time link to choose a
+         *     password, valid for 7 days. The link is also returned here, so it can be passed on by hand when
+         *     `emailSent` is false (no mail server, or it refused the message). E-mail addresses are stored in
+         *     lower case. A console session must send `X-Requested-With: isochron-console`.
+         */
+        post: operations["inviteUser"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/v1/users/{userId}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                userId: components["parameters"]["UserId"];
+            };
+            cookie?: never;
+        };
+        /**
+         * One console user
+         * @description Admins only.
+         */
+        get: operations["getUser"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        /**
+         * Change a user's role, name or status
+         * @description Admins only. `status: disabled` refuses the user's sign-ins and ends their sessions at their next
+         *     request; `status: active` lifts that (a user who never accepted the invitation goes back to
+         *     `invited`). Admins cannot change their own role or disable themselves (409). Send `name: null`
+         *     to clear the name. A console session must send `X-Requested-With: isochron-console`.
+         */
+        patch: operations["updateUser"];
+        trace?: never;
+    };
+    "/v1/users/{userId}/invitations": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                userId: components["parameters"]["UserId"];
+            };
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Send a new invitation link
+         * @description Admins only, for a user whose status is still `invited` (the first link expired or went astray).
+         *     Earlier links of that user stop working. Answers like `POST /v1/users`.
+         */
+        post: operations["reissueInvitation"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/v1/users/me": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * The calling user
+         * @description The signed-in console user, or the owner of the calling API key. Any role.
+         */
+        get: operations["getCurrentUser"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+};
+export type webhooks = Record<string, never>;
+export type components = {
+    schemas: {
+        /** @description `[min, max]` in degrees; an azimuth range runs anticlockwise (leftward) from min to max. A single value in the standard is `[v, v]`. */
+        AngleRange: number[];
+        ApiKey: {
+            /** Format: date-time */
+            createdAt: string;
+            /** @description Who created it; null when made by the operator command line. */
+            createdById: string | null;
+            /** Format: date-time */
+            expiresAt: string | null;
+            id: string;
+            /** @enum {string} */
+            kind: "live" | "test";
+            /** @description The last four characters of the key. */
+            lastFour: string;
+            /**
+             * Format: date-time
+             * @description Last use, as of the latest usage flush (every few seconds).
+             */
+            lastUsedAt: string | null;
+            name: string;
+            ownerId: string;
+            /** @description The first characters of the key, e.g. `iso_live_Q7pz`. */
+            prefix: string;
+            /** @description The key's own limit; null means the server default. */
+            rateLimitPerMinute: number | null;
+            /** Format: date-time */
+            revokedAt: string | null;
+            role: components["schemas"]["KeyRole"];
+            /** @enum {string} */
+            status: "active" | "expired" | "revoked";
+            /** Format: date-time */
+            updatedAt: string;
+        };
+        /** @description Any part of the crossover; the rest comes from the request's crossover or from LR4 at 80 Hz. */
+        BassCrossover: {
+            family?: components["schemas"]["CrossoverFamily"];
+            frequencyHz?: number;
+            order?: number;
+        };
+        BassManagementRequest: {
+            /** @description Each channel `id` (its BS.2051 label) must be unique; `LFE`, `LFE1`, `LFE2`… are LFE channels. */
+            channels: {
+                /** @default false */
+                bassManaged?: boolean;
+                crossover?: components["schemas"]["BassCrossover"];
+                id: components["schemas"]["ChannelLabel"];
+            }[];
+            crossover?: components["schemas"]["BassCrossover"];
+            /** @default 12 */
+            headroomWarningDb?: number;
+            /** @default 10 */
+            lfeGainDb?: number;
+            sampleRateHz?: components["schemas"]["SampleRateHz"];
+            /** @default 1 */
+            subwooferCount?: number;
+        };
+        BassManagementResult: {
+            cautions: components["schemas"]["Caution"][];
+            channels: {
+                highPass?: components["schemas"]["FilterPath"] & {
+                    /** @enum {string} */
+                    polarity: "normal" | "inverted";
+                };
+                id: string;
+                /** @enum {string} */
+                role: "managed" | "fullRange" | "lfe";
+            }[];
+            headroomDb: number;
+            sampleRateHz: number;
+            subwoofer: {
+                count: number;
+                /** @description Gain from the feed to each subwoofer: −20·log10(count). */
+                feedGainDb: number;
+                inputs: {
+                    gainDb: number;
+                    id: string;
+                    lowPass?: components["schemas"]["FilterPath"];
+                    /** @enum {string} */
+                    route: "sharedLowPass" | "ownLowPass" | "direct";
+                }[];
+                lowPass: components["schemas"]["FilterPath"];
+            };
+            warnings: components["schemas"]["Warning"][];
+        };
+        /** @description One normalised second-order section (a0 = 1). A first-order section has b2 = a2 = 0. */
+        BiquadSection: {
+            a1: number;
+            a2: number;
+            b0: number;
+            b1: number;
+            b2: number;
+            type?: string;
+        };
+        BiquadsRequest: {
+            filters: components["schemas"]["FilterSpec"][];
+            limits?: components["schemas"]["Limits"];
+            response?: components["schemas"]["ResponseGrid"];
+            sampleRateHz?: components["schemas"]["SampleRateHz"];
+        };
+        BiquadsResult: {
+            cautions: components["schemas"]["Caution"][];
+            response?: components["schemas"]["FrequencyResponse"];
+            sampleRateHz: number;
+            sections: components["schemas"]["BiquadSection"][];
+            warnings: components["schemas"]["Warning"][];
+        };
+        Caution: {
+            /** @example testSignalLevel */
+            code: string;
+            message: string;
+        };
+        /** @description ITU-R BS.2051 label such as `M+030`, `M-110`, `U+045`, `LFE1`, or another identifier of the feed. */
+        ChannelLabel: string;
+        CreatedApiKey: components["schemas"]["ApiKey"] & {
+            /** @description The clear key, `iso_live_` or `iso_test_` and 43 characters. Shown only in this answer. */
+            secret: string;
+        };
+        CreateKeyRequest: {
+            /**
+             * Format: date-time
+             * @description When the key stops working (RFC 3339); in the future.
+             */
+            expiresAt?: string;
+            /**
+             * @description `test` makes an `iso_test_` key.
+             * @default live
+             * @enum {string}
+             */
+            kind?: "live" | "test";
+            name: components["schemas"]["KeyName"];
+            /** @description Whose key it is; the caller when absent. Someone else needs `keys:all`. */
+            ownerId?: components["schemas"]["KeyOwnerId"];
+            rateLimitPerMinute?: components["schemas"]["KeyRateLimit"];
+            role: components["schemas"]["KeyRole"];
+        };
+        /** @enum {string} */
+        CrossoverFamily: "linkwitzRiley" | "butterworth";
+        CrossoverRequest: {
+            family: components["schemas"]["CrossoverFamily"];
+            /** @description Crossover frequency; below sampleRateHz/2. */
+            frequencyHz: number;
+            /** @description 1–8 for Butterworth; 2, 4 or 8 for Linkwitz-Riley. */
+            order: number;
+            response?: components["schemas"]["ResponseGrid"];
+            sampleRateHz?: components["schemas"]["SampleRateHz"];
+        };
+        CrossoverResult: {
+            family: components["schemas"]["CrossoverFamily"];
+            frequencyHz: number;
+            highPass: components["schemas"]["SectionCascade"];
+            /** @enum {string} */
+            highPassPolarity: "normal" | "inverted";
+            lowPass: components["schemas"]["SectionCascade"];
+            order: number;
+            response?: {
+                frequenciesHz: number[];
+                highPass: components["schemas"]["OutputResponse"];
+                lowPass: components["schemas"]["OutputResponse"];
+                sum: components["schemas"]["OutputResponse"];
+            };
+            sampleRateHz: number;
+            warnings: components["schemas"]["Warning"][];
+        };
+        DecayTimes: {
+            /** @description Early decay time, s (0 to −10 dB, ×6). */
+            edtS: number | null;
+            /** @description T20, s (−5 to −25 dB, ×3). */
+            t20S: number | null;
+            /** @description T30, s (−5 to −35 dB, ×2). */
+            t30S: number | null;
+        };
+        DelayChannel: {
+            /** @description Measured arrival time at the listening position, in ms. */
+            arrivalMs?: number;
+            distance?: components["schemas"]["Distance"];
+            id: components["schemas"]["ChannelLabel"];
+        };
+        DelaysRequest: {
+            /** @description Each channel `id` (its BS.2051 label) must be unique. Each channel gives exactly one of `distance` or `arrivalMs`. */
+            channels: components["schemas"]["DelayChannel"][];
+            limits?: components["schemas"]["Limits"];
+            sampleRateHz?: components["schemas"]["SampleRateHz"];
+            /** @description Speed of sound in m/s, instead of `temperatureC`. */
+            speedOfSoundMps?: number;
+            /** @description Air temperature in °C; 20 when neither this nor `speedOfSoundMps` is given. */
+            temperatureC?: number;
+        };
+        DelaysResult: {
+            channels: {
+                arrivalMs: number;
+                clamped: boolean;
+                /** @description Exact delay to apply */
+                delayMs: number;
+                delaySamples: number;
+                /** @description Present when the channel gave a distance. */
+                distanceM?: number;
+                id: string;
+                /** @description `delaySamples` as time minus `delayMs`, in µs. */
+                quantizationErrorUs: number;
+            }[];
+            /** @description The latest arrival; its delay is 0. */
+            referenceChannel: string;
+            sampleRateHz: number;
+            speedOfSoundMps: number;
+            warnings: components["schemas"]["Warning"][];
+        };
+        /** @description Metres as a number, or a string with a length unit (`"3.2 m"`, `"10.5 ft"`, `"126 in"`, `"320 cm"`). */
+        Distance: number | string;
+        EqFitRequest: {
+            /** @description Lower end of the fit band. */
+            fromHz?: number;
+            /** @description Most peaking bands to use. */
+            maxBands: number;
+            /**
+             * @description Largest boost per band; 0 = cuts only.
+             * @default 0
+             */
+            maxBoostDb?: number;
+            /**
+             * @description Largest cut per band.
+             * @default 12
+             */
+            maxCutDb?: number;
+            measured: components["schemas"]["MagnitudeResponse"];
+            /** @description Allowed Q of the bands (default 0.5..10). */
+            qRange?: {
+                max: number;
+                min: number;
+            };
+            sampleRateHz?: components["schemas"]["SampleRateHz"];
+            target?: components["schemas"]["TargetCurve"];
+            /** @description Upper end of the fit band. */
+            toHz?: number;
+        };
+        EqFitResult: {
+            bands: components["schemas"]["PeakingBand"][];
+            cautions: components["schemas"]["Caution"][];
+            fromHz: number;
+            predicted: {
+                frequenciesHz: number[];
+                magnitudeDb: number[];
+            };
+            residualRmsDb: {
+                after: number;
+                before: number;
+            };
+            sampleRateHz: number;
+            sections: components["schemas"]["BiquadSection"][];
+            /** @description Level at which the corrected response matches the target, dB. */
+            targetOffsetDb: number;
+            toHz: number;
+            warnings: components["schemas"]["Warning"][];
+        };
+        FilterPath: {
+            family: components["schemas"]["CrossoverFamily"];
+            frequencyHz: number;
+            order: number;
+            sections: components["schemas"]["BiquadSection"][];
+        };
+        FilterSpec: {
+            bandwidthOctaves?: number;
+            /** @description Centre, corner or shelf midpoint in Hz; must also be below sampleRateHz/2. */
+            frequencyHz: number;
+            /** @description Required by peaking and shelves. */
+            gainDb?: number;
+            q?: number;
+            shelfSlope?: number;
+            type: components["schemas"]["FilterType"];
+        };
+        /** @enum {string} */
+        FilterType: "peaking" | "lowShelf" | "highShelf" | "lowPass" | "highPass" | "bandPass" | "notch" | "allPass";
+        FrequencyResponse: {
+            frequenciesHz: number[];
+            groupDelayMs?: number[];
+            magnitudeDb: number[];
+            phaseDeg: number[];
+        };
+        GeometryRequest: {
+            /** @default 2 */
+            angleToleranceDeg?: number;
+            /** @description Layout id, name or alias (`7.1.4`, `4+7+0`, `bs2051-j`). */
+            layout?: string;
+            listener: components["schemas"]["RoomPoint"];
+            room: components["schemas"]["RoomDimensions"];
+            speakers: {
+                id: components["schemas"]["ChannelLabel"];
+                x: number;
+                y: number;
+                z: number;
+            }[];
+        };
+        GeometryResult: {
+            angleToleranceDeg: number;
+            layout: {
+                id: string;
+                name: string;
+                title: string;
+            } | null;
+            speakers: components["schemas"]["SpeakerGeometry"][];
+            warnings: components["schemas"]["Warning"][];
+        };
+        ImpulseResponseAnalysis: {
+            arrival: {
+                arrivalMs: number;
+                arrivalSample: number;
+                peakMs: number;
+                peakSample: number;
+                /** @description Onset threshold used, dB re the peak. */
+                thresholdDb: number;
+            };
+            decay: components["schemas"]["DecayTimes"] & {
+                bands: (components["schemas"]["DecayTimes"] & {
+                    /** @description Exact IEC 61260-1 mid-band frequency. */
+                    centreHz: number;
+                    nominalHz: number;
+                })[];
+                impulseToNoiseDb: number;
+                /** @description Where the decay meets the noise, ms after the arrival. */
+                truncationMs: number;
+            };
+            durationS: number;
+            file: {
+                channelCount: number;
+                channelIndex: number;
+                durationS: number;
+                /** @enum {unknown} */
+                encoding: "pcm16" | "pcm24" | "pcm32" | "float32";
+                sampleRateHz: number;
+                sizeBytes: number;
+            };
+            frequencyResponse: {
+                frequenciesHz: number[];
+                magnitudeDb: number[];
+                phaseDeg: number[];
+                smoothingOctaves: number;
+            };
+            level: {
+                energyDb: number;
+                noiseFloorDbfs: number;
+                peakDbfs: number;
+                peakToNoiseDb: number;
+                rmsDbfs: number;
+            };
+            room?: {
+                modes: {
+                    frequencyHz: number;
+                    /** @enum {unknown} */
+                    kind: "axial" | "tangential" | "oblique";
+                    nx: number;
+                    ny: number;
+                    nz: number;
+                }[];
+                modesUpToHz: number;
+                schroederFrequencyHz: number | null;
+                speedOfSoundMps: number;
+                volumeM3: number;
+            };
+            sampleRateHz: number;
+            warnings: components["schemas"]["Warning"][];
+        };
+        ImpulseResponseUpload: {
+            /** @description 0-based channel to analyse; required when the file has more than one channel. */
+            channel?: number;
+            /** @description The WAV file (at most 20 MiB and 30 s). */
+            file: string;
+            /** @description Inside height (z), metres. */
+            roomHeightM?: number;
+            /** @description Inside length (y), metres. */
+            roomLengthM?: number;
+            /** @description Inside width (x), metres. */
+            roomWidthM?: number;
+            /**
+             * @description Smoothing window in octaves, 1/48 (0.0208) to 1; default 1/12. Values below 1/48 count as 1/48.
+             * @default 0.08333333333333333
+             */
+            smoothingOctaves?: number;
+            /**
+             * @description Air temperature for the modes.
+             * @default 20
+             */
+            temperatureC?: number;
+        };
+        /** @description A label for people; stored exactly as given. Control characters are refused. */
+        KeyName: string;
+        /** @description A user's id. */
+        KeyOwnerId: string;
+        /** @description Requests per minute this key may make; the server default applies when absent or null. */
+        KeyRateLimit: number;
+        /**
+         * @description `calculate`: stateless calculations only. `tuning`: also rooms, tunings and measurements of the key's
+         *     owner. `admin`: also keys, usage and users of everyone.
+         * @enum {string}
+         */
+        KeyRole: "calculate" | "tuning" | "admin";
+        Layout: {
+            aliases: string[];
+            channels: components["schemas"]["LayoutChannel"][];
+            /** @example bs2051-j */
+            id: string;
+            /**
+             * @description Upper+Middle+Bottom loudspeaker count, LFE not counted.
+             * @example 4+7+0
+             */
+            name: string;
+            notes: string[];
+            reference: string;
+            rules: {
+                sideSurroundSpacingDeg: components["schemas"]["AngleRange"] | null;
+                symmetryAboveAzimuthDeg: number;
+                symmetryToleranceDeg: number;
+            };
+            /** @description BS.2051 system letter; null for 9.1.6. */
+            system: string | null;
+            title: string;
+        };
+        LayoutChannel: {
+            /** @description Nominal azimuth */
+            azimuthDeg: number | null;
+            /** @description Permitted azimuth intervals (two only for the screen loudspeakers of system G). */
+            azimuthRangesDeg: components["schemas"]["AngleRange"][] | null;
+            /** @description Nominal elevation, positive up. */
+            elevationDeg: number | null;
+            elevationRangeDeg: components["schemas"]["AngleRange"] | null;
+            isLfe: boolean;
+            label: components["schemas"]["ChannelLabel"];
+            /** @enum {string} */
+            layer: "middle" | "upper" | "upperHigh" | "top" | "bottom" | "lfe";
+            note?: string;
+        };
+        LevelChannel: {
+            distance?: components["schemas"]["Distance"];
+            id: components["schemas"]["ChannelLabel"];
+            measuredDb?: number;
+            /** @description This channel's target relative to the others, in dB (e.g. +10 for LFE in band). */
+            targetOffsetDb?: number;
+        };
+        LevelsRequest: {
+            /** @description Each channel `id` (its BS.2051 label) must be unique. Each channel gives exactly one of `measuredDb` or `distance`. */
+            channels: components["schemas"]["LevelChannel"][];
+            /** @description Level each loudspeaker gives at 1 m, for channels given by distance. */
+            levelAt1mDb?: number;
+            limits?: components["schemas"]["Limits"];
+            /** @description Level every channel should reach, in dB. Absent → align to the quietest channel. */
+            targetDb?: number;
+        };
+        LevelsResult: {
+            /** @enum {string} */
+            alignedTo: "target" | "quietestChannel";
+            cautions: components["schemas"]["Caution"][];
+            channels: {
+                clamped: boolean;
+                distanceM?: number;
+                estimated: boolean;
+                expectedDb: number;
+                id: string;
+                /** @description Measured */
+                levelDb: number;
+                trimDb: number;
+            }[];
+            /** @description The reference level used: the target, or the quietest channel. */
+            targetDb: number;
+            warnings: components["schemas"]["Warning"][];
+        };
+        /**
+         * @description What the target processor can do. Typical trade hardware allows 0–75 ms of delay, ±12 dB of trim and
+         *     eight parametric bands per output (common practice); these are examples, not defaults.
+         * @example {
+         *       "delayMaxMs": 75,
+         *       "trimMinDb": -12,
+         *       "trimMaxDb": 12,
+         *       "eqBandsPerChannel": 8
+         *     }
+         */
+        Limits: {
+            delayMaxMs?: number;
+            eqBandsPerChannel?: number;
+            eqMaxBoostDb?: number;
+            eqMaxCutDb?: number;
+            trimMaxDb?: number;
+            trimMinDb?: number;
+        };
+        ListMeta: {
+            hasMore: boolean;
+        };
+        /** @description A magnitude response; frequencies ascending, one level per frequency. */
+        MagnitudeResponse: {
+            frequenciesHz: number[];
+            magnitudeDb: number[];
+        };
+        Measurement: {
+            channel: string;
+            /** Format: date-time */
+            createdAt: string;
+            id: string;
+            /** @enum {unknown} */
+            kind: "impulseResponse" | "frequencyResponse" | "spl";
+            micPosition: string;
+            name: string | null;
+            notes: string | null;
+            /**
+             * @description Impulse response: the analysis of `POST /v1/analysis/impulse-response` (without `file`). Frequency
+             *     response: `frequenciesHz`, `magnitudeDb` and, when given, `phaseDeg`. SPL: `splDb`, `weighting`,
+             *     `timeWeighting`. Left out of lists.
+             */
+            result?: Record<string, never>;
+            roomId: string;
+            /** @description What was uploaded (the audio itself is not kept). */
+            source: {
+                channelCount?: number;
+                channelIndex?: number;
+                durationS?: number;
+                encoding?: string;
+                fileName?: string;
+                sampleRateHz?: number;
+                sizeBytes?: number;
+                /** @enum {unknown} */
+                type: "wav" | "text" | "json";
+            };
+            /** @description A few numbers for lists: arrival, level and decay times; points and range; or the SPL. */
+            summary: Record<string, never>;
+        };
+        /** @description A frequency response (arrays or text) or an SPL reading, for one channel at one microphone position. */
+        MeasurementCreate: {
+            channel: components["schemas"]["ChannelLabel"];
+            /** @constant */
+            kind: "frequencyResponse";
+            micPosition?: string;
+            name?: string;
+            notes?: string;
+            response?: {
+                frequenciesHz: number[];
+                magnitudeDb: number[];
+                phaseDeg?: number[];
+            };
+            /** @description The response as text columns. */
+            text?: string;
+        } | {
+            channel: components["schemas"]["ChannelLabel"];
+            /** @constant */
+            kind: "spl";
+            micPosition?: string;
+            name?: string;
+            notes?: string;
+            /** @description Sound pressure level, dB re 20 µPa. */
+            splDb: number;
+            /**
+             * @description Time weighting; default slow.
+             * @enum {unknown}
+             */
+            timeWeighting?: "slow" | "fast";
+            /**
+             * @description Frequency weighting; default C.
+             * @enum {unknown}
+             */
+            weighting?: "A" | "C" | "Z";
+        };
+        MeasurementUpload: {
+            /** @description Loudspeaker id in the room, e.g. M+030. */
+            channel: string;
+            /** @description A WAV impulse response (at most 20 MiB and 30 s) or a text frequency response. */
+            file: string;
+            /** @description 0-based channel of a multichannel WAV file. */
+            fileChannel?: number;
+            /** @default 1 */
+            micPosition?: string;
+            name?: string;
+            notes?: string;
+            /** @default 0.08333333333333333 */
+            smoothingOctaves?: number;
+            /**
+             * @description Air temperature for the modes.
+             * @default 20
+             */
+            temperatureC?: number;
+        };
+        OutboxMessage: {
+            id: string;
+            /** Format: date-time */
+            sentAt: string;
+            subject: string;
+            text: string;
+            to: string;
+        };
+        OutputResponse: {
+            groupDelayMs: number[];
+            magnitudeDb: number[];
+            phaseDeg: number[];
+        };
+        PeakingBand: {
+            frequencyHz: number;
+            gainDb: number;
+            q: number;
+            /** @constant */
+            type: "peaking";
+        };
+        PlanChannel: {
+            arrivalMs: number;
+            delayMs: number;
+            delaySamples: number;
+            distanceM: number | null;
+            eq: {
+                bands: components["schemas"]["PeakingBand"][];
+                fromHz: number | null;
+                predicted: {
+                    frequenciesHz: number[];
+                    magnitudeDb: number[];
+                } | null;
+                residualRmsDb: {
+                    after: number;
+                    before: number;
+                } | null;
+                sections: components["schemas"]["BiquadSection"][];
+                toHz: number | null;
+            };
+            expectedDb: number | null;
+            highPass: components["schemas"]["PlanHighPass"] | null;
+            id: string;
+            /** @enum {string} */
+            polarity: "normal" | "inverted";
+            quantizationErrorUs: number;
+            /** @enum {string} */
+            role: "managed" | "fullRange" | "lfe";
+            trimDb: number;
+        };
+        PlanChannelInput: {
+            /** @description Measured arrival; preferred over position and distance for the delay. */
+            arrivalMs?: number;
+            /** @default false */
+            bassManaged?: boolean;
+            distance?: components["schemas"]["Distance"];
+            id: components["schemas"]["ChannelLabel"];
+            /** @description SPL reading of the reference test signal at the listening position. */
+            measuredDb?: number;
+            measuredResponse?: components["schemas"]["MagnitudeResponse"];
+            position?: components["schemas"]["RoomPoint"];
+            /** @description Level relative to the reference; default +10 for LFE channels, 0 otherwise. */
+            targetOffsetDb?: number;
+        };
+        PlanHighPass: {
+            family: components["schemas"]["CrossoverFamily"];
+            frequencyHz: number;
+            order: number;
+            /** @enum {string} */
+            polarity: "normal" | "inverted";
+            sections: components["schemas"]["BiquadSection"][];
+        };
+        PlanRequest: {
+            channels: components["schemas"]["PlanChannelInput"][];
+            layout: string;
+            limits?: components["schemas"]["Limits"];
+            listener?: components["schemas"]["RoomPoint"];
+            room?: components["schemas"]["RoomDimensions"];
+            sampleRateHz?: components["schemas"]["SampleRateHz"];
+            targets?: components["schemas"]["PlanTargets"];
+            temperatureC?: number;
+        };
+        PlanTargets: {
+            crossoverFamily?: components["schemas"]["CrossoverFamily"];
+            /** @default 80 */
+            crossoverHz?: number;
+            /** @default 4 */
+            crossoverOrder?: number;
+            curve?: components["schemas"]["TargetCurve"];
+            /**
+             * @description Largest EQ boost the fit may use (0: cuts only).
+             * @default 0
+             */
+            eqMaxBoostDb?: number;
+            /** @default 10 */
+            lfeGainDb?: number;
+            referenceDb?: number;
+        };
+        /** @description RFC 9457 problem details. */
+        Problem: {
+            detail?: string;
+            errors?: {
+                message: string;
+                /** @description JSON pointer (RFC 6901) to the bad field in the request. */
+                pointer: string;
+            }[];
+            instance?: string;
+            requestId?: string;
+            status: number;
+            title: string;
+            /** @description A URI reference that identifies the problem type. */
+            type: string;
+        };
+        /** @description Frequencies at which to evaluate a response, either listed or as a log-spaced sweep. */
+        ResponseGrid: {
+            frequenciesHz: number[];
+        } | {
+            fromHz: number;
+            /** @description Points per octave; 12 when absent. */
+            pointsPerOctave?: number;
+            toHz: number;
+        };
+        Room: {
+            /** Format: date-time */
+            createdAt: string;
+            dimensions: components["schemas"]["RoomDimensions"];
+            geometry: {
+                angleToleranceDeg: number;
+                speakers: components["schemas"]["SpeakerGeometry"][];
+                warnings: components["schemas"]["Warning"][];
+            };
+            /** @example room_0mf3x1c2a9f8a7b6c5d4e */
+            id: string;
+            /** @description Canonical layout id, e.g. `bs2051-j`. */
+            layout: string;
+            /** @example 4+7+0 */
+            layoutName: string;
+            limits: components["schemas"]["Limits"] | null;
+            listener: components["schemas"]["RoomPoint"];
+            loudspeakers: components["schemas"]["RoomLoudspeaker"][];
+            name: string;
+            notes: string | null;
+            ownerId: string;
+            sampleRateHz: number;
+            /** Format: date-time */
+            updatedAt: string;
+        };
+        RoomCreate: {
+            dimensions: components["schemas"]["RoomDimensions"];
+            /** @description Layout id, name or alias (`7.1.4`). */
+            layout: string;
+            limits?: components["schemas"]["Limits"];
+            listener: components["schemas"]["RoomPoint"];
+            loudspeakers: components["schemas"]["RoomLoudspeakers"];
+            name: string;
+            notes?: string;
+            sampleRateHz?: components["schemas"]["SampleRateHz"];
+        };
+        RoomDimensions: {
+            /** @description Floor to ceiling, along z. */
+            heightM: number;
+            /** @description Front wall to back wall, along y. */
+            lengthM: number;
+            /** @description Front wall to side, along x. */
+            widthM: number;
+        };
+        RoomLoudspeaker: {
+            id: components["schemas"]["ChannelLabel"];
+            name?: string;
+            x: number;
+            y: number;
+            z: number;
+        };
+        RoomLoudspeakers: components["schemas"]["RoomLoudspeaker"][];
+        RoomPlan: {
+            cautions: components["schemas"]["Caution"][];
+            channels: components["schemas"]["PlanChannel"][];
+            layout: {
+                id: string;
+                name: string;
+                title: string;
+            };
+            referenceChannel: string;
+            referenceDb: number | null;
+            sampleRateHz: number;
+            speedOfSoundMps: number;
+            subwoofer: {
+                channel: string | null;
+                crossoverPhaseDifferenceDeg: number;
+                headroomDb: number;
+                lfeGainDb: number;
+                lowPass: components["schemas"]["FilterPath"];
+                suggestedDelayMs: number;
+                suggestedDelaySamples: number;
+                /** @enum {string} */
+                suggestedPolarity: "normal" | "inverted";
+            } | null;
+            warnings: components["schemas"]["Warning"][];
+        };
+        /** @description Metres from the floor's front-left corner; x right, y toward the back wall, z up. */
+        RoomPoint: {
+            x: number;
+            y: number;
+            z: number;
+        };
+        RoomUpdate: {
+            dimensions?: components["schemas"]["RoomDimensions"];
+            layout?: string;
+            limits?: components["schemas"]["Limits"];
+            listener?: components["schemas"]["RoomPoint"];
+            loudspeakers?: components["schemas"]["RoomLoudspeakers"];
+            name?: string;
+            notes?: string;
+            sampleRateHz?: number;
+        };
+        /**
+         * @description Processor sample rate in hertz.
+         * @default 48000
+         */
+        SampleRateHz: number;
+        SectionCascade: {
+            sections: components["schemas"]["BiquadSection"][];
+        };
+        SessionBody: {
+            user: components["schemas"]["SessionUser"];
+        };
+        SessionUser: {
+            email: string;
+            id: string;
+            name: string | null;
+            /** @enum {string} */
+            role: "admin" | "developer" | "viewer";
+        };
+        SpeakerGeometry: {
+            /** @description Positive to the left, in (−180, 180]. */
+            azimuthDeg: number;
+            /** @description Actual minus nominal; `azimuthDeg` is null for a loudspeaker whose nominal direction is straight up. */
+            deviation: {
+                /** @description Great-circle angle between actual and nominal direction. */
+                angleDeg: number;
+                azimuthDeg: number | null;
+                elevationDeg: number;
+            } | null;
+            distanceM: number;
+            /** @description Positive upward. */
+            elevationDeg: number;
+            id: string;
+            nominal: {
+                azimuthDeg: number;
+                elevationDeg: number;
+            } | null;
+            permitted: {
+                azimuthRangesDeg: components["schemas"]["AngleRange"][];
+                elevationRangeDeg: components["schemas"]["AngleRange"];
+            } | null;
+            /** @description Null where there is nothing to check (no layout */
+            withinTolerance: boolean | null;
+        };
+        StoredCrossover: {
+            family: components["schemas"]["CrossoverFamily"];
+            frequencyHz: number;
+            /** @description 1–8 for Butterworth; 2, 4 or 8 for Linkwitz-Riley. */
+            order: number;
+        };
+        /**
+         * @description The response a channel should reach, in dB relative to its own level. `flat`: 0 dB. `tilt`: a
+         *     straight line of `dbPerOctave` through 0 dB at `pivotHz` (default 1000 Hz). `lowFrequencyLift`:
+         *     `gainDb` at low frequencies falling to 0 dB, shaped like a second-order low shelf (Audio EQ Cookbook
+         *     analogue prototype, S = 1) with half the gain at `cornerHz`. Default: flat.
+         */
+        TargetCurve: {
+            /** @constant */
+            kind: "flat";
+        } | {
+            dbPerOctave: number;
+            /** @constant */
+            kind: "tilt";
+            /** @description Default 1000 Hz. */
+            pivotHz?: number;
+        } | {
+            cornerHz: number;
+            gainDb: number;
+            /** @constant */
+            kind: "lowFrequencyLift";
+        };
+        Tuning: components["schemas"]["TuningSettingsFields"] & {
+            cautions: components["schemas"]["Caution"][];
+            /** Format: date-time */
+            createdAt: string;
+            duplicatedFromId: string | null;
+            id: string;
+            latestVersion: number;
+            name: string;
+            notes: string | null;
+            /** @enum {string} */
+            origin: "settings" | "plan" | "edit" | "restore" | "duplicate";
+            ownerId: string;
+            /** @description Only on a tuning just made from a plan. */
+            planWarnings?: components["schemas"]["Warning"][];
+            roomId: string;
+            /** Format: date-time */
+            updatedAt: string;
+            /** @description The version shown. */
+            version: number;
+            /** Format: date-time */
+            versionCreatedAt: string;
+        };
+        TuningChannel: {
+            bassManaged: boolean;
+            delayMs: number;
+            eq: components["schemas"]["FilterSpec"][];
+            highPass: components["schemas"]["StoredCrossover"] | null;
+            id: string;
+            name?: string;
+            /** @enum {string} */
+            polarity: "normal" | "inverted";
+            trimDb: number;
+        };
+        TuningChannelInput: {
+            bassManaged?: boolean;
+            delayMs?: number;
+            eq?: components["schemas"]["FilterSpec"][];
+            highPass?: components["schemas"]["StoredCrossover"] | null;
+            id: components["schemas"]["ChannelLabel"];
+            name?: string;
+            /** @enum {string} */
+            polarity?: "normal" | "inverted";
+            trimDb?: number;
+        };
+        TuningChannelInputs: components["schemas"]["TuningChannelInput"][];
+        TuningComparison: {
+            channels: {
+                bassManagedChanged: boolean;
+                delayMsDifference: number | null;
+                eqBands: {
+                    left: number;
+                    right: number;
+                };
+                eqChanged: boolean;
+                highPassChanged: boolean;
+                id: string;
+                maxResponseDifferenceDb: number | null;
+                polarityChanged: boolean;
+                /** @enum {string} */
+                presentIn: "both" | "left" | "right";
+                trimDbDifference: number | null;
+            }[];
+            identical: boolean;
+            left: components["schemas"]["TuningRef"];
+            right: components["schemas"]["TuningRef"];
+            subwoofer: {
+                lfeGainDbDifference: number | null;
+                lowPassChanged: boolean;
+            };
+        };
+        /** @description Give exactly one of `channels` or `plan`. */
+        TuningCreate: {
+            channels?: components["schemas"]["TuningChannelInputs"];
+            name: string;
+            notes?: string;
+            /** @description The body of POST /v1/plans; anything left out is taken from the stored room. */
+            plan?: {
+                channels?: components["schemas"]["PlanChannelInput"][];
+                layout?: string;
+                limits?: components["schemas"]["Limits"];
+                listener?: components["schemas"]["RoomPoint"];
+                room?: components["schemas"]["RoomDimensions"];
+                sampleRateHz?: number;
+                targets?: components["schemas"]["PlanTargets"];
+                temperatureC?: number;
+            };
+            sampleRateHz?: components["schemas"]["SampleRateHz"];
+            subwoofer?: components["schemas"]["TuningSubwoofer"] | null;
+        };
+        TuningExport: {
+            channels: {
+                delayMs: number;
+                delaySamples: number;
+                id: string;
+                /** @enum {string} */
+                polarity: "normal" | "inverted";
+                sections: (components["schemas"]["BiquadSection"] & {
+                    /** @enum {string} */
+                    stage: "eq" | "highPass" | "lowPass";
+                })[];
+                trimDb: number;
+            }[];
+            convention: string;
+            name: string;
+            sampleRateHz: number;
+            subwoofer: {
+                channel: string;
+                headroomDb: number | null;
+                lfeGainDb: number;
+            } | null;
+            tuningId: string;
+            version: number;
+        };
+        TuningRef: {
+            name: string;
+            tuningId: string;
+            version: number;
+        };
+        TuningSettingsFields: {
+            channels: components["schemas"]["TuningChannel"][];
+            sampleRateHz: number;
+            subwoofer: components["schemas"]["TuningSubwoofer"] | null;
+        };
+        TuningSubwoofer: {
+            channel: components["schemas"]["ChannelLabel"];
+            headroomDb?: number;
+            lfeGainDb: number;
+            lowPass: components["schemas"]["StoredCrossover"] | null;
+        };
+        TuningUpdate: {
+            channels?: components["schemas"]["TuningChannelInputs"];
+            name?: string;
+            notes?: string | null;
+            removeChannels?: string[];
+            sampleRateHz?: number;
+            subwoofer?: components["schemas"]["TuningSubwoofer"] | null;
+        };
+        TuningVersion: components["schemas"]["TuningSettingsFields"] & {
+            /** Format: date-time */
+            createdAt: string;
+            createdBy: {
+                keyId: string | null;
+                userId: string | null;
+            };
+            name: string;
+            notes: string | null;
+            /** @enum {string} */
+            origin: "settings" | "plan" | "edit" | "restore" | "duplicate";
+            restoredFromVersion: number | null;
+            tuningId: string;
+            version: number;
+        };
+        UpdateKeyRequest: {
+            expiresAt?: string | null;
+            name?: components["schemas"]["KeyName"];
+            rateLimitPerMinute?: components["schemas"]["KeyRateLimit"] | null;
+        };
+        UsageReport: {
+            data: components["schemas"]["UsageRow"][];
+            /** Format: date-time */
+            from: string;
+            /** @enum {string} */
+            groupBy: "hour" | "day" | "route" | "key";
+            /** Format: date-time */
+            to: string;
+        };
+        UsageRow: {
+            /**
+             * Format: date-time
+             * @description Start of the hour or UTC day; null when grouped by route or key.
+             */
+            bucket: string | null;
+            count: number;
+            /** @description Calls answered with 4xx or 5xx. */
+            errorCount: number;
+            /** @description Null for console calls and when grouped by route. */
+            keyId: string | null;
+            keyName: string | null;
+            /** @description Method and route template, e.g. `POST /v1/biquads`. */
+            route: string | null;
+            /** @description The key's owner or the signed-in user; null when grouped by route. */
+            userId: string | null;
+        };
+        User: {
+            /** Format: date-time */
+            createdAt: string;
+            email: string;
+            id: string;
+            /** Format: date-time */
+            lastSignInAt: string | null;
+            name: string | null;
+            /** @enum {string} */
+            role: "admin" | "developer" | "viewer";
+            /** @enum {string} */
+            status: "active" | "invited" | "disabled";
+            /** Format: date-time */
+            updatedAt: string;
+        };
+        UserInvitationResult: {
+            invitation: {
+                /** @description False when the mail could not be handed to a mail server. */
+                emailSent: boolean;
+                /** Format: date-time */
+                expiresAt: string;
+                /** @description The one-time link; give it only to the invited person. */
+                url: string;
+            };
+            user: components["schemas"]["User"];
+        };
+        Warning: {
+            /** @description Channel the warning is about, if any. */
+            channel?: string;
+            /** @example delayClamped */
+            code: string;
+            message: string;
+        };
+    };
+    responses: {
+        /** @description The request is malformed or a field is invalid. */
+        BadRequest: {
+            headers: {
+                [name: string]: unknown;
+            };
+            content: {
+                "application/problem+json": components["schemas"]["Problem"];
+            };
+        };
+        /**
+         * @description A state-changing request authenticated by the session cookie lacks `X-Requested-With:
+         *     isochron-console` or comes from another origin.
+         */
+        CrossSiteRequest: {
+            headers: {
+                [name: string]: unknown;
+            };
+            content: {
+                "application/problem+json": components["schemas"]["Problem"];
+            };
+        };
+        /** @description The key or user lacks the role this operation needs. */
+        Forbidden: {
+            headers: {
+                [name: string]: unknown;
+            };
+            content: {
+                "application/problem+json": components["schemas"]["Problem"];
+            };
+        };
+        /** @description No such resource (or not visible to the caller). */
+        NotFound: {
+            headers: {
+                [name: string]: unknown;
+            };
+            content: {
+                "application/problem+json": components["schemas"]["Problem"];
+            };
+        };
+        /** @description Rate limit exceeded. */
+        TooManyRequests: {
+            headers: {
+                "Retry-After": components["headers"]["RetryAfter"];
+                [name: string]: unknown;
+            };
+            content: {
+                "application/problem+json": components["schemas"]["Problem"];
+            };
+        };
+        /** @description No valid credentials. */
+        Unauthorized: {
+            headers: {
+                "WWW-Authenticate"?: string;
+                [name: string]: unknown;
+            };
+            content: {
+                "application/problem+json": components["schemas"]["Problem"];
+            };
+        };
+        /** @description The request is well formed but a value cannot be used (for example a frequency at or above Nyquist). */
+        Unprocessable: {
+            headers: {
+                [name: string]: unknown;
+            };
+            content: {
+                "application/problem+json": components["schemas"]["Problem"];
+            };
+        };
+    };
+    parameters: {
+        /**
+         * @description Must be `isochron-console` on every state-changing request authenticated by the session cookie
+         *     (all `/auth` writes, and `/v1` writes made without an API key). Pages on other sites cannot set it.
+         */
+        ConsoleRequest: "isochron-console";
+        /** @description The key's `id` (not its secret). */
+        KeyId: string;
+        /** @description Page size. */
+        Limit: number;
+        MeasurementIdPath: string;
+        /**
+         * @description A room id from `POST /v1/rooms` or `GET /v1/rooms`.
+         * @example room_0mf3x1c2a9f8a7b6c5d4e
+         */
+        RoomIdPath: string;
+        /** @description Cursor; the id of the last item of the previous page. */
+        StartingAfter: string;
+        TuningIdPath: string;
+        TuningVersionPath: number;
+        UserId: string;
+    };
+    requestBodies: never;
+    headers: {
+        /** @description IETF RateLimit header (draft 8) for the calling key. */
+        RateLimit: string;
+        /** @description IETF RateLimit-Policy header (draft 8) for the calling key. */
+        RateLimitPolicy: string;
+        /** @description Identifier of this request; also echoed as `requestId` in problem documents. */
+        RequestId: string;
+        /** @description Seconds to wait before retrying. */
+        RetryAfter: number;
+    };
+    pathItems: never;
+};
+export type $defs = Record<string, never>;
+export interface operations {
+    acceptInvitation: {
+        parameters: {
+            query?: never;
+            header: {
+                /**
+                 * @description Must be `isochron-console` on every state-changing request authenticated by the session cookie
+                 *     (all `/auth` writes, and `/v1` writes made without an API key). Pages on other sites cannot set it.
+                 */
+                "X-Requested-With": components["parameters"]["ConsoleRequest"];
+            };
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": {
+                    password: string;
+                    token: string;
+                };
+            };
+        };
+        responses: {
+            /** @description Password set, user active and signed in. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["SessionBody"];
+                };
+            };
+            /** @description The request is malformed, or the token is unknown, already used or expired (named in `detail`). */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            403: components["responses"]["CrossSiteRequest"];
+            404: components["responses"]["NotFound"];
+            422: components["responses"]["Unprocessable"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    getSession: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description Signed in. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["SessionBody"];
+                };
+            };
+            /** @description Not signed in, or the session has ended. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            404: components["responses"]["NotFound"];
+        };
+    };
+    signIn: {
+        parameters: {
+            query?: never;
+            header: {
+                /**
+                 * @description Must be `isochron-console` on every state-changing request authenticated by the session cookie
+                 *     (all `/auth` writes, and `/v1` writes made without an API key). Pages on other sites cannot set it.
+                 */
+                "X-Requested-With": components["parameters"]["ConsoleRequest"];
+            };
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": {
+                    email: string;
+                    password: string;
+                };
+            };
+        };
+        responses: {
+            /** @description Signed in; `Set-Cookie` carries the session. */
+            200: {
+                headers: {
+                    /** @description `isochron.sid=...; Path=/; HttpOnly; SameSite=Strict` (plus `Secure` in production). */
+                    "Set-Cookie"?: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["SessionBody"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            /** @description The e-mail address or the password is wrong (the same answer for every reason). */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            403: components["responses"]["CrossSiteRequest"];
+            404: components["responses"]["NotFound"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    signOut: {
+        parameters: {
+            query?: never;
+            header: {
+                /**
+                 * @description Must be `isochron-console` on every state-changing request authenticated by the session cookie
+                 *     (all `/auth` writes, and `/v1` writes made without an API key). Pages on other sites cannot set it.
+                 */
+                "X-Requested-With": components["parameters"]["ConsoleRequest"];
+            };
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description Signed out; the cookie is cleared. */
+            204: {
+                headers: {
+                    "Set-Cookie"?: string;
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            403: components["responses"]["CrossSiteRequest"];
+            404: components["responses"]["NotFound"];
+        };
+    };
+    getHealth: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The process is up. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": {
+                        /** @constant */
+                        status: "ok";
+                    };
+                };
+            };
+            404: components["responses"]["NotFound"];
+        };
+    };
+    getOpenApiDocument: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The OpenAPI 3.1 document. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": Record<string, never>;
+                };
+            };
+            404: components["responses"]["NotFound"];
+        };
+    };
+    getReadiness: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description Ready to serve. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": {
+                        /** @constant */
+                        status: "ready";
+                    };
+                };
+            };
+            404: components["responses"]["NotFound"];
+            /** @description The database does not answer. */
+            503: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    analyzeImpulseResponse: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "multipart/form-data": components["schemas"]["ImpulseResponseUpload"];
+            };
+        };
+        responses: {
+            /** @description The analysis. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ImpulseResponseAnalysis"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            /** @description The file is larger than 20 MiB. */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is not multipart/form-data. */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The file cannot be analysed (type `unusable-audio`, with `reason`), or a value cannot be used. */
+            422: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    planBassManagement: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["BassManagementRequest"];
+            };
+        };
+        responses: {
+            /** @description Each channel's role and high-pass, the subwoofer path and the headroom. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["BassManagementResult"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            422: components["responses"]["Unprocessable"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    designBiquads: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["BiquadsRequest"];
+            };
+        };
+        responses: {
+            /** @description One section per filter, in order, and the response of the cascade when asked. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["BiquadsResult"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            422: components["responses"]["Unprocessable"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    designCrossover: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["CrossoverRequest"];
+            };
+        };
+        responses: {
+            /** @description Both cascades, the high-pass polarity and, when asked, the responses. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["CrossoverResult"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            422: components["responses"]["Unprocessable"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    computeDelays: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["DelaysRequest"];
+            };
+        };
+        responses: {
+            /** @description The delay of every channel. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["DelaysResult"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            422: components["responses"]["Unprocessable"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    fitEq: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["EqFitRequest"];
+            };
+        };
+        responses: {
+            /** @description Bands, their sections, the predicted response and the residual error. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["EqFitResult"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            422: components["responses"]["Unprocessable"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    computeGeometry: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["GeometryRequest"];
+            };
+        };
+        responses: {
+            /** @description Distances, angles, deviations and rule warnings. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["GeometryResult"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            422: components["responses"]["Unprocessable"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    listKeys: {
+        parameters: {
+            query?: {
+                /** @description Also list revoked keys. */
+                includeRevoked?: boolean;
+                /** @description Page size. */
+                limit?: components["parameters"]["Limit"];
+                /** @description Only keys of this user. Another user's id needs `keys:all`. */
+                ownerId?: string;
+                /** @description Cursor; the id of the last item of the previous page. */
+                startingAfter?: components["parameters"]["StartingAfter"];
+            };
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description One page of keys. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": {
+                        data: components["schemas"]["ApiKey"][];
+                        /** @description True when another page follows. */
+                        hasMore: boolean;
+                    };
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    createKey: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["CreateKeyRequest"];
+            };
+        };
+        responses: {
+            /** @description The new key, with its clear `secret` shown this once. */
+            201: {
+                headers: {
+                    /** @description Path of the new key. */
+                    Location?: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["CreatedApiKey"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            422: components["responses"]["Unprocessable"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    getKey: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description The key's `id` (not its secret). */
+                keyId: components["parameters"]["KeyId"];
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The key. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ApiKey"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    revokeKey: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description The key's `id` (not its secret). */
+                keyId: components["parameters"]["KeyId"];
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The revoked key. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ApiKey"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    updateKey: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @description The key's `id` (not its secret). */
+                keyId: components["parameters"]["KeyId"];
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["UpdateKeyRequest"];
+            };
+        };
+        responses: {
+            /** @description The key as changed. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ApiKey"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
+            /** @description The key is revoked. */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            422: components["responses"]["Unprocessable"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    listLayouts: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description Every layout. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": {
+                        data: components["schemas"]["Layout"][];
+                        /** @description Always false; the list is short and fixed. */
+                        hasMore: boolean;
+                    };
+                };
+            };
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    getLayout: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                layoutId: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The layout. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Layout"];
+                };
+            };
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    computeLevels: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["LevelsRequest"];
+            };
+        };
+        responses: {
+            /** @description The trim of every channel. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["LevelsResult"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            422: components["responses"]["Unprocessable"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    listOutbox: {
+        parameters: {
+            query?: {
+                /** @description Page size. */
+                limit?: components["parameters"]["Limit"];
+                /** @description Cursor; the id of the last item of the previous page. */
+                startingAfter?: components["parameters"]["StartingAfter"];
+            };
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description One page of messages, newest first. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": {
+                        data: components["schemas"]["OutboxMessage"][];
+                        hasMore: boolean;
+                    };
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    createPlan: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["PlanRequest"];
+            };
+        };
+        responses: {
+            /** @description The plan. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["RoomPlan"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            422: components["responses"]["Unprocessable"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    listRooms: {
+        parameters: {
+            query?: {
+                /** @description Page size. */
+                limit?: components["parameters"]["Limit"];
+                /** @description Cursor; the id of the last item of the previous page. */
+                startingAfter?: components["parameters"]["StartingAfter"];
+            };
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description One page of rooms. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": {
+                        data: components["schemas"]["Room"][];
+                        hasMore: boolean;
+                    };
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    createRoom: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["RoomCreate"];
+            };
+        };
+        responses: {
+            /** @description The stored room. */
+            201: {
+                headers: {
+                    /** @description URL of the new room. */
+                    Location?: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Room"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            422: components["responses"]["Unprocessable"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    getRoom: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /**
+                 * @description A room id from `POST /v1/rooms` or `GET /v1/rooms`.
+                 * @example room_0mf3x1c2a9f8a7b6c5d4e
+                 */
+                roomId: components["parameters"]["RoomIdPath"];
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The room. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Room"];
+                };
+            };
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    deleteRoom: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /**
+                 * @description A room id from `POST /v1/rooms` or `GET /v1/rooms`.
+                 * @example room_0mf3x1c2a9f8a7b6c5d4e
+                 */
+                roomId: components["parameters"]["RoomIdPath"];
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description Deleted, with every tuning, tuning version and measurement of the room. */
+            204: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    updateRoom: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /**
+                 * @description A room id from `POST /v1/rooms` or `GET /v1/rooms`.
+                 * @example room_0mf3x1c2a9f8a7b6c5d4e
+                 */
+                roomId: components["parameters"]["RoomIdPath"];
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["RoomUpdate"];
+            };
+        };
+        responses: {
+            /** @description The changed room. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Room"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
+            422: components["responses"]["Unprocessable"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    listMeasurements: {
+        parameters: {
+            query?: {
+                channel?: string;
+                /** @description Page size. */
+                limit?: components["parameters"]["Limit"];
+                /** @description Cursor; the id of the last item of the previous page. */
+                startingAfter?: components["parameters"]["StartingAfter"];
+            };
+            header?: never;
+            path: {
+                /**
+                 * @description A room id from `POST /v1/rooms` or `GET /v1/rooms`.
+                 * @example room_0mf3x1c2a9f8a7b6c5d4e
+                 */
+                roomId: components["parameters"]["RoomIdPath"];
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description One page of measurements. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": {
+                        data: components["schemas"]["Measurement"][];
+                        hasMore: boolean;
+                    };
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    createMeasurement: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /**
+                 * @description A room id from `POST /v1/rooms` or `GET /v1/rooms`.
+                 * @example room_0mf3x1c2a9f8a7b6c5d4e
+                 */
+                roomId: components["parameters"]["RoomIdPath"];
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["MeasurementCreate"];
+                "multipart/form-data": components["schemas"]["MeasurementUpload"];
+            };
+        };
+        responses: {
+            /** @description The stored measurement with its analysis. */
+            201: {
+                headers: {
+                    Location?: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Measurement"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
+            /** @description The file is larger than 20 MiB. */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is neither JSON nor multipart/form-data. */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            422: components["responses"]["Unprocessable"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    getMeasurement: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                measurementId: components["parameters"]["MeasurementIdPath"];
+                /**
+                 * @description A room id from `POST /v1/rooms` or `GET /v1/rooms`.
+                 * @example room_0mf3x1c2a9f8a7b6c5d4e
+                 */
+                roomId: components["parameters"]["RoomIdPath"];
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The measurement. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Measurement"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    deleteMeasurement: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                measurementId: components["parameters"]["MeasurementIdPath"];
+                /**
+                 * @description A room id from `POST /v1/rooms` or `GET /v1/rooms`.
+                 * @example room_0mf3x1c2a9f8a7b6c5d4e
+                 */
+                roomId: components["parameters"]["RoomIdPath"];
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description Deleted. */
+            204: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            /** @description No such measurement in this room (or the room is not yours). */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    averageMeasurements: {
+        parameters: {
+            query: {
+                channel: string;
+                /** @description Which responses to average; required when the channel has both kinds. */
+                kind?: "frequencyResponse" | "impulseResponse";
+            };
+            header?: never;
+            path: {
+                /**
+                 * @description A room id from `POST /v1/rooms` or `GET /v1/rooms`.
+                 * @example room_0mf3x1c2a9f8a7b6c5d4e
+                 */
+                roomId: components["parameters"]["RoomIdPath"];
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The averaged response. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": {
+                        channel: string;
+                        frequenciesHz: number[];
+                        magnitudeDb: number[];
+                        measurementIds: string[];
+                        micPositions: string[];
+                    };
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
+            422: components["responses"]["Unprocessable"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    getRoomReport: {
+        parameters: {
+            query?: {
+                tuningId?: string;
+                version?: number;
+            };
+            header?: never;
+            path: {
+                /**
+                 * @description A room id from `POST /v1/rooms` or `GET /v1/rooms`.
+                 * @example room_0mf3x1c2a9f8a7b6c5d4e
+                 */
+                roomId: components["parameters"]["RoomIdPath"];
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The report. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "text/html": string;
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
+            422: components["responses"]["Unprocessable"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    listRoomTunings: {
+        parameters: {
+            query?: {
+                /** @description Page size. */
+                limit?: components["parameters"]["Limit"];
+                /** @description Cursor; the id of the last item of the previous page. */
+                startingAfter?: components["parameters"]["StartingAfter"];
+            };
+            header?: never;
+            path: {
+                /**
+                 * @description A room id from `POST /v1/rooms` or `GET /v1/rooms`.
+                 * @example room_0mf3x1c2a9f8a7b6c5d4e
+                 */
+                roomId: components["parameters"]["RoomIdPath"];
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description One page of tunings. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": {
+                        data: components["schemas"]["Tuning"][];
+                        hasMore: boolean;
+                    };
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    createRoomTuning: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /**
+                 * @description A room id from `POST /v1/rooms` or `GET /v1/rooms`.
+                 * @example room_0mf3x1c2a9f8a7b6c5d4e
+                 */
+                roomId: components["parameters"]["RoomIdPath"];
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["TuningCreate"];
+            };
+        };
+        responses: {
+            /** @description The stored tuning at version 1. */
+            201: {
+                headers: {
+                    /** @description URL of the new tuning. */
+                    Location?: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Tuning"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
+            422: components["responses"]["Unprocessable"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    getTuning: {
+        parameters: {
+            query?: {
+                /** @description A version number; default the latest. */
+                version?: number;
+            };
+            header?: never;
+            path: {
+                tuningId: components["parameters"]["TuningIdPath"];
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The tuning. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Tuning"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    deleteTuning: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                tuningId: components["parameters"]["TuningIdPath"];
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description Deleted. */
+            204: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            /** @description No such tuning (or not visible to the caller). */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    updateTuning: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                tuningId: components["parameters"]["TuningIdPath"];
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["TuningUpdate"];
+            };
+        };
+        responses: {
+            /** @description The tuning at its new version. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Tuning"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
+            422: components["responses"]["Unprocessable"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    duplicateTuning: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                tuningId: components["parameters"]["TuningIdPath"];
+            };
+            cookie?: never;
+        };
+        requestBody?: {
+            content: {
+                "application/json": {
+                    name?: string;
+                    version?: number;
+                };
+            };
+        };
+        responses: {
+            /** @description The copy. */
+            201: {
+                headers: {
+                    /** @description URL of the copy. */
+                    Location?: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Tuning"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    exportTuning: {
+        parameters: {
+            query?: {
+                format?: "json" | "csv";
+                /** @example 96000 */
+                sampleRateHz?: number;
+                version?: number;
+            };
+            header?: never;
+            path: {
+                tuningId: components["parameters"]["TuningIdPath"];
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The designed tuning. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["TuningExport"];
+                    "text/csv": string;
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
+            422: components["responses"]["Unprocessable"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    listTuningVersions: {
+        parameters: {
+            query?: {
+                /** @description Page size. */
+                limit?: components["parameters"]["Limit"];
+                /** @description Cursor; the id of the last item of the previous page. */
+                startingAfter?: components["parameters"]["StartingAfter"];
+            };
+            header?: never;
+            path: {
+                tuningId: components["parameters"]["TuningIdPath"];
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description One page of versions. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": {
+                        data: components["schemas"]["TuningVersion"][];
+                        hasMore: boolean;
+                    };
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    getTuningVersion: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                tuningId: components["parameters"]["TuningIdPath"];
+                version: components["parameters"]["TuningVersionPath"];
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The version, as stored. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["TuningVersion"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    restoreTuningVersion: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                tuningId: components["parameters"]["TuningIdPath"];
+                version: components["parameters"]["TuningVersionPath"];
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The tuning at its new version. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Tuning"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
+            422: components["responses"]["Unprocessable"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    compareTunings: {
+        parameters: {
+            query: {
+                /** @example tun_0mf3x2a1b9f8a7b6c5d4e */
+                left: string;
+                leftVersion?: number;
+                /** @example tun_0mf3x2b7c1d2e3f4a5b6c */
+                right: string;
+                rightVersion?: number;
+            };
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The differences. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["TuningComparison"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    getUsage: {
+        parameters: {
+            query?: {
+                /** @description Start of the range (inclusive), RFC 3339. Default 7 days before `to`. */
+                from?: string;
+                /** @description One row per key, route and `hour` or `day`; or per `route`; or per `key`. */
+                groupBy?: "hour" | "day" | "route" | "key";
+                /** @description Only this key. */
+                keyId?: string;
+                /** @description Only this route template, exactly as it appears in `route`, e.g. `POST /v1/biquads`. */
+                route?: string;
+                /** @description End of the range (exclusive), RFC 3339. Default now. */
+                to?: string;
+                /** @description Only keys of this user and this user's console calls. Another user needs `usage:all`. */
+                userId?: string;
+            };
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The usage report. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["UsageReport"];
+                    "text/csv": string;
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            422: components["responses"]["Unprocessable"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    listUsers: {
+        parameters: {
+            query?: {
+                /** @description Page size. */
+                limit?: components["parameters"]["Limit"];
+                /** @description Cursor; the id of the last item of the previous page. */
+                startingAfter?: components["parameters"]["StartingAfter"];
+            };
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description One page of users. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": {
+                        data: components["schemas"]["User"][];
+                        hasMore: boolean;
+                    };
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    inviteUser: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": {
+                    /** Format: email */
+                    email: string;
+                    name?: string;
+                    /** @enum {string} */
+                    role: "admin" | "developer" | "viewer";
+                };
+            };
+        };
+        responses: {
+            /** @description Invited. */
+            201: {
+                headers: {
+                    Location?: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["UserInvitationResult"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            /** @description A user with this e-mail address exists. */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    getUser: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                userId: components["parameters"]["UserId"];
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The user. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["User"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    updateUser: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                userId: components["parameters"]["UserId"];
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": {
+                    name?: string | null;
+                    /** @enum {string} */
+                    role?: "admin" | "developer" | "viewer";
+                    /** @enum {string} */
+                    status?: "active" | "disabled";
+                };
+            };
+        };
+        responses: {
+            /** @description The user after the change. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["User"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
+            /** @description The change is not allowed (your own role or status, or activating someone who has not accepted). */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    reissueInvitation: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                userId: components["parameters"]["UserId"];
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description A new link was issued. */
+            201: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["UserInvitationResult"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
+            /** @description The user has already accepted or is disabled. */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    getCurrentUser: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The user. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["User"];
+                };
+            };
+            401: components["responses"]["Unauthorized"];
+            404: components["responses"]["NotFound"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+}
+
+/** Per operation, the query parameters and top-level body properties that validation fills in with their default. */
+export type ValidatedDefaults = {
+  acceptInvitation: { query: never; body: never };
+  analyzeImpulseResponse: { query: never; body: "smoothingOctaves" | "temperatureC" };
+  averageMeasurements: { query: never; body: never };
+  compareTunings: { query: never; body: never };
+  computeDelays: { query: never; body: never };
+  computeGeometry: { query: never; body: "angleToleranceDeg" };
+  computeLevels: { query: never; body: never };
+  createKey: { query: never; body: "kind" };
+  createMeasurement: { query: never; body: "micPosition" | "smoothingOctaves" | "temperatureC" };
+  createPlan: { query: never; body: never };
+  createRoom: { query: never; body: never };
+  createRoomTuning: { query: never; body: never };
+  deleteMeasurement: { query: never; body: never };
+  deleteRoom: { query: never; body: never };
+  deleteTuning: { query: never; body: never };
+  designBiquads: { query: never; body: never };
+  designCrossover: { query: never; body: never };
+  duplicateTuning: { query: never; body: never };
+  exportTuning: { query: "format"; body: never };
+  fitEq: { query: never; body: "maxBoostDb" | "maxCutDb" };
+  getCurrentUser: { query: never; body: never };
+  getHealth: { query: never; body: never };
+  getKey: { query: never; body: never };
+  getLayout: { query: never; body: never };
+  getMeasurement: { query: never; body: never };
+  getOpenApiDocument: { query: never; body: never };
+  getReadiness: { query: never; body: never };
+  getRoom: { query: never; body: never };
+  getRoomReport: { query: never; body: never };
+  getSession: { query: never; body: never };
+  getTuning: { query: never; body: never };
+  getTuningVersion: { query: never; body: never };
+  getUsage: { query: "groupBy"; body: never };
+  getUser: { query: never; body: never };
+  inviteUser: { query: never; body: never };
+  listKeys: { query: "limit" | "includeRevoked"; body: never };
+  listLayouts: { query: never; body: never };
+  listMeasurements: { query: "limit"; body: never };
+  listOutbox: { query: "limit"; body: never };
+  listRoomTunings: { query: "limit"; body: never };
+  listRooms: { query: "limit"; body: never };
+  listTuningVersions: { query: "limit"; body: never };
+  listUsers: { query: "limit"; body: never };
+  planBassManagement: { query: never; body: "lfeGainDb" | "subwooferCount" | "headroomWarningDb" };
+  reissueInvitation: { query: never; body: never };
+  restoreTuningVersion: { query: never; body: never };
+  revokeKey: { query: never; body: never };
+  signIn: { query: never; body: never };
+  signOut: { query: never; body: never };
+  updateKey: { query: never; body: never };
+  updateRoom: { query: never; body: never };
+  updateTuning: { query: never; body: never };
+  updateUser: { query: never; body: never };
+};
