@@ -77,7 +77,7 @@ function parameterSchema(parameters: OpenApiParameter[], location: 'query' | 'pa
   const selected = parameters.filter((p) => p.in === location);
   return {
     type: 'object',
-    properties: Object.fromEntries(selected.map((p) => [p.name, p.schema ?? {}])),
+    properties: Object.fromEntries(selected.map((p) => [p.name, anchoredRefs(p.schema ?? {})])),
     required: selected.filter((p) => p.required || location === 'path').map((p) => p.name),
     // Unknown query parameters are refused; Express adds nothing to the path parameters but the route's own.
     additionalProperties: location === 'path',

@@ -1441,6 +1441,8 @@ export type components = {
              */
             temperatureC?: number;
         };
+        /** @description A key's `id` (not its secret). */
+        KeyId: string;
         /** @description A label for people; stored exactly as given. Control characters are refused. */
         KeyName: string;
         /** @description A user's id. */
@@ -1615,6 +1617,7 @@ export type components = {
              */
             weighting?: "A" | "C" | "Z";
         };
+        MeasurementId: string;
         MeasurementUpload: {
             /** @description Loudspeaker id in the room, e.g. M+030. */
             channel: string;
@@ -1799,6 +1802,8 @@ export type components = {
             /** @description Front wall to side, along x. */
             widthM: number;
         };
+        /** @description A room id, as `POST /v1/rooms` answers it. */
+        RoomId: string;
         RoomLoudspeaker: {
             id: components["schemas"]["ChannelLabel"];
             name?: string;
@@ -2031,6 +2036,8 @@ export type components = {
             tuningId: string;
             version: number;
         };
+        /** @description A tuning id, as `POST /v1/rooms/{roomId}/tunings` answers it. */
+        TuningId: string;
         TuningRef: {
             name: string;
             tuningId: string;
@@ -2116,6 +2123,7 @@ export type components = {
             /** Format: date-time */
             updatedAt: string;
         };
+        UserId: string;
         UserInvitationResult: {
             invitation: {
                 /** @description False when the mail could not be handed to a mail server. */
@@ -2212,20 +2220,20 @@ export type components = {
          */
         ConsoleRequest: "isochron-console";
         /** @description The key's `id` (not its secret). */
-        KeyId: string;
+        KeyId: components["schemas"]["KeyId"];
         /** @description Page size. */
         Limit: number;
-        MeasurementIdPath: string;
+        MeasurementIdPath: components["schemas"]["MeasurementId"];
         /**
          * @description A room id from `POST /v1/rooms` or `GET /v1/rooms`.
          * @example room_0mf3x1c2a9f8a7b6c5d4e
          */
-        RoomIdPath: string;
+        RoomIdPath: components["schemas"]["RoomId"];
         /** @description Cursor; the id of the last item of the previous page. */
         StartingAfter: string;
-        TuningIdPath: string;
+        TuningIdPath: components["schemas"]["TuningId"];
         TuningVersionPath: number;
-        UserId: string;
+        UserId: components["schemas"]["UserId"];
     };
     requestBodies: never;
     headers: {
@@ -2708,7 +2716,7 @@ export interface operations {
                 /** @description Page size. */
                 limit?: components["parameters"]["Limit"];
                 /** @description Only keys of this user. Another user's id needs `keys:all`. */
-                ownerId?: string;
+                ownerId?: components["schemas"]["UserId"];
                 /** @description Cursor; the id of the last item of the previous page. */
                 startingAfter?: components["parameters"]["StartingAfter"];
             };
@@ -3170,7 +3178,7 @@ export interface operations {
     listMeasurements: {
         parameters: {
             query?: {
-                channel?: string;
+                channel?: components["schemas"]["ChannelLabel"];
                 /** @description Page size. */
                 limit?: components["parameters"]["Limit"];
                 /** @description Cursor; the id of the last item of the previous page. */
@@ -3336,7 +3344,7 @@ export interface operations {
     averageMeasurements: {
         parameters: {
             query: {
-                channel: string;
+                channel: components["schemas"]["ChannelLabel"];
                 /** @description Which responses to average; required when the channel has both kinds. */
                 kind?: "frequencyResponse" | "impulseResponse";
             };
@@ -3378,7 +3386,7 @@ export interface operations {
     getRoomReport: {
         parameters: {
             query?: {
-                tuningId?: string;
+                tuningId?: components["schemas"]["TuningId"];
                 version?: number;
             };
             header?: never;
@@ -3747,10 +3755,10 @@ export interface operations {
         parameters: {
             query: {
                 /** @example tun_0mf3x2a1b9f8a7b6c5d4e */
-                left: string;
+                left: components["schemas"]["TuningId"];
                 leftVersion?: number;
                 /** @example tun_0mf3x2b7c1d2e3f4a5b6c */
-                right: string;
+                right: components["schemas"]["TuningId"];
                 rightVersion?: number;
             };
             header?: never;
@@ -3783,13 +3791,13 @@ export interface operations {
                 /** @description One row per key, route and `hour` or `day`; or per `route`; or per `key`. */
                 groupBy?: "hour" | "day" | "route" | "key";
                 /** @description Only this key. */
-                keyId?: string;
+                keyId?: components["schemas"]["KeyId"];
                 /** @description Only this route template, exactly as it appears in `route`, e.g. `POST /v1/biquads`. */
                 route?: string;
                 /** @description End of the range (exclusive), RFC 3339. Default now. */
                 to?: string;
                 /** @description Only keys of this user and this user's console calls. Another user needs `usage:all`. */
-                userId?: string;
+                userId?: components["schemas"]["UserId"];
             };
             header?: never;
             path?: never;
