@@ -1,25 +1,4 @@
-import { csvCell, usageCsv } from './usage-csv';
-
-describe('csvCell (RFC 4180 quoting, OWASP CSV-injection guard)', () => {
-  it('quotes commas, quotes and line breaks, doubling quotes', () => {
-    expect(csvCell('plain')).toBe('plain');
-    expect(csvCell('a,b')).toBe('"a,b"');
-    expect(csvCell('say "hi"')).toBe('"say ""hi"""');
-    expect(csvCell('two\nlines')).toBe('"two\nlines"');
-  });
-
-  it('defuses text a spreadsheet would run as a formula', () => {
-    expect(csvCell('=HYPERLINK("http://x")')).toBe(`"'=HYPERLINK(""http://x"")"`);
-    expect(csvCell('+1')).toBe("'+1");
-    expect(csvCell('-2')).toBe("'-2");
-    expect(csvCell('@SUM(A1)')).toBe("'@SUM(A1)");
-  });
-
-  it('writes numbers as they are and null as an empty cell', () => {
-    expect(csvCell(-3)).toBe('-3');
-    expect(csvCell(null)).toBe('');
-  });
-});
+import { usageCsv } from './usage-csv';
 
 describe('usageCsv', () => {
   it('has a header line and CRLF line ends', () => {
@@ -38,5 +17,13 @@ describe('usageCsv', () => {
       'bucket,keyId,keyName,userId,route,count,errorCount\r\n' +
         '2026-03-12T09:00:00.000Z,key_a,Sweep rig — Stage 3,usr_1,POST /v1/plans,14,2\r\n',
     );
+  });
+
+  it('guards a key name that would run as a formula, but not the counts', () => {
+    const csv = usageCsv([
+      { bucket: null, keyId: 'key_a', keyName: ' =1+1', userId: null, route: null, count: 3, errorCount: 0 },
+      { bucket: null, keyId: 'key_b', keyName: '＝1+1', userId: null, route: null, count: 1, errorCount: 1 },
+    ]);
+    expect(csv.split('\r\n').slice(1, 3)).toEqual([`,key_a,"' =1+1",,,3,0`, `,key_b,"'＝1+1",,,1,1`]);
   });
 });

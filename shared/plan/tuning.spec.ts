@@ -85,6 +85,17 @@ describe('tuningToCsv', () => {
   });
 });
 
+describe('tuningToCsv and formulas', () => {
+  it('guards a channel id that would run as a formula; negative trims and coefficients stay numbers', () => {
+    const s = base();
+    s.channels[0] = { ...s.channels[0], id: '=HYPERLINK("http://x")', trimDb: -1.6 };
+    const first = tuningToCsv(designTuning(s, 48000)).split('\r\n')[1];
+    expect(first.startsWith(`"'=HYPERLINK(""http://x"")",`)).toBe(true);
+    expect(first).toContain(',-1.6,');
+    expect(first).not.toMatch(/,'-/);
+  });
+});
+
 describe('compareTunings', () => {
   it('identical settings: identical, no differences', () => {
     const result = compareTunings(base(), base());
