@@ -7,10 +7,10 @@ import { requestId } from './http/request-id';
 import { notFoundHandler, problemHandler } from './http/problem';
 import { createRateLimiter } from './rate-limit/rate-limiter';
 import { getContract } from './http/validate';
-import { docsRouter } from './routes/docs';
-import { healthRouter } from './routes/health';
-import { sessionRouter } from './routes/session';
-import { v1Router } from './routes';
+import { docsRouter } from './service/docs.router';
+import { healthRouter } from './service/health.router';
+import { sessionRouter } from './session/session.router';
+import { v1Router } from './v1-router';
 import type { Services } from './services';
 
 /** JSON bodies above this size get 413; 128 channels with measured responses fit well inside it. */

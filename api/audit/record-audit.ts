@@ -1,6 +1,6 @@
-import type { Request } from 'express';
 import type { Transaction } from 'sequelize';
 import { newId } from '../db/ids';
+import type { Actor } from '../auth/actor';
 import type { Models } from '../db/models';
 
 export type AuditAction =
@@ -27,7 +27,7 @@ export interface AuditEntry {
 /** Records who did what, inside the caller's write transaction so the event and the change land together. */
 export async function recordAudit(
   models: Models,
-  req: Request | null,
+  actor: Actor,
   entry: AuditEntry,
   transaction: Transaction,
 ): Promise<void> {
@@ -35,12 +35,12 @@ export async function recordAudit(
     {
       id: newId('evt'),
       action: entry.action,
-      actorUserId: req?.principal?.userId ?? null,
-      actorKeyId: req?.principal?.keyId ?? null,
+      actorUserId: actor.kind === 'caller' ? actor.principal.userId : null,
+      actorKeyId: actor.kind === 'caller' ? (actor.principal.keyId ?? null) : null,
       targetType: entry.targetType ?? null,
       targetId: entry.targetId ?? null,
       details: entry.details ? JSON.stringify(entry.details) : null,
-      ipAddress: req?.ip ?? null,
+      ipAddress: actor.kind === 'operator' ? null : actor.ip,
     },
     { transaction },
   );

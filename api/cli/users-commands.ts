@@ -25,11 +25,15 @@ async function create(services: Services, args: string[], io: CliIo): Promise<vo
   if (!(USER_ROLES as readonly string[]).includes(values.role)) {
     throw new UsageError(`--role must be admin, developer or viewer; got "${values.role}".`);
   }
-  const { user, invitation } = await inviteUser(services, null, {
-    email: values.email,
-    role: values.role as UserRole,
-    name: values.name ?? null,
-  });
+  const { user, invitation } = await inviteUser(
+    services,
+    { kind: 'operator' },
+    {
+      email: values.email,
+      role: values.role as UserRole,
+      name: values.name ?? null,
+    },
+  );
   if (values.json) {
     io.out(JSON.stringify({ user, invitation }));
     return;

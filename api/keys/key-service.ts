@@ -1,11 +1,12 @@
-import type { Request } from 'express';
 import { Op, type Transaction, type WhereOptions } from 'sequelize';
 import { recordAudit, type AuditEntry } from '../audit/record-audit';
 import { generateKeySecret, hashKeySecret } from '../auth/key-secret';
 import type { KeyStore } from '../auth/key-store';
-import { isAdmin, type Principal } from '../auth/permissions';
+import type { Actor } from '../auth/actor';
+import { isAdmin } from '../auth/permissions';
 import type { Database } from '../db/database';
 import { newId } from '../db/ids';
+import { pageOf, type Page } from '../db/pagination';
 import type { ApiKey, KeyRole } from '../db/models/api-key';
 import type { UserRole } from '../db/models/user';
 import { conflict, forbidden, notFound, ProblemError } from '../http/problem';
@@ -14,7 +15,7 @@ import type { KeyCreatedNotice } from '../mail/messages';
 import { toKeyView, type CreatedKeyView, type KeyView } from './key-view';
 
 /** Who asks: a caller of the API (a key or a signed-in user), or the operator at the command line. */
-export type KeyActor = { kind: 'caller'; principal: Principal; req: Request } | { kind: 'operator' };
+export type KeyActor = Extract<Actor, { kind: 'caller' | 'operator' }>;
 
 export interface CreateKeyInput {
   name: string;
@@ -169,7 +170,7 @@ export class KeyService {
     return { ...toKeyView(key, now), secret };
   }
 
-  async list(actor: KeyActor, options: ListKeysOptions): Promise<{ data: KeyView[]; hasMore: boolean }> {
+  async list(actor: KeyActor, options: ListKeysOptions): Promise<Page<KeyView>> {
     const conditions: WhereOptions<ApiKey>[] = [];
     const self = this.scope(actor);
     if (self !== null) {
@@ -181,17 +182,10 @@ export class KeyService {
       conditions.push({ ownerId: options.ownerId });
     }
     if (!options.includeRevoked) conditions.push({ revokedAt: null });
-    if (options.startingAfter !== undefined) conditions.push({ id: { [Op.gt]: options.startingAfter } });
-    const rows = await this.deps.db.models.ApiKey.findAll({
-      where: { [Op.and]: conditions },
-      order: [['id', 'ASC']],
-      limit: options.limit + 1,
-    });
     const now = this.now();
-    return {
-      data: rows.slice(0, options.limit).map((row) => toKeyView(row, now)),
-      hasMore: rows.length > options.limit,
-    };
+    return pageOf(this.deps.db.models.ApiKey, { [Op.and]: conditions }, options, (row) =>
+      toKeyView(row, now),
+    );
   }
 
   async get(actor: KeyActor, id: string): Promise<KeyView> {
@@ -267,6 +261,6 @@ export class KeyService {
   }
 
   private audit(actor: KeyActor, transaction: Transaction, entry: AuditEntry): Promise<void> {
-    return recordAudit(this.deps.db.models, actor.kind === 'caller' ? actor.req : null, entry, transaction);
+    return recordAudit(this.deps.db.models, actor, entry, transaction);
   }
 }

@@ -1,4 +1,5 @@
 import { newId } from '../db/ids';
+import { pageOfList, type Page } from '../db/pagination';
 
 /** A message as the local fake mail server received it. */
 export interface OutboxMessage {
@@ -29,14 +30,8 @@ export class Outbox {
   }
 
   /** One page, newest first; `startingAfter` is the id of the last message of the previous page. */
-  list(limit: number, startingAfter?: string): { data: OutboxMessage[]; hasMore: boolean } {
-    let start = 0;
-    if (startingAfter !== undefined) {
-      const index = this.messages.findIndex((m) => m.id === startingAfter);
-      start = index === -1 ? this.messages.length : index + 1;
-    }
-    const data = this.messages.slice(start, start + limit);
-    return { data, hasMore: start + limit < this.messages.length };
+  list(limit: number, startingAfter?: string): Page<OutboxMessage> {
+    return pageOfList(this.messages, (m) => m.id, { limit, startingAfter });
   }
 
   get size(): number {

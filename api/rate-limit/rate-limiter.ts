@@ -1,6 +1,6 @@
 import type { Request, RequestHandler } from 'express';
 import { MemoryStore, rateLimit, type Store } from 'express-rate-limit';
-import { ProblemError, sendProblem } from '../http/problem';
+import { ProblemError } from '../http/problem';
 import type { Services } from '../services';
 
 const WINDOW_MS = 60_000;
@@ -36,17 +36,16 @@ export function createRateLimiter(services: Services, options: RateLimiterOption
     standardHeaders: 'draft-8',
     legacyHeaders: false,
     store,
-    handler: (req, res, _next, used) => {
+    // Through the one error path, like every other refusal (express-rate-limit has set Retry-After).
+    handler: (req, _res, next, used) => {
       const limit = (req as Request & { rateLimit?: { limit: number } }).rateLimit?.limit ?? used.limit;
-      sendProblem(
-        res,
+      next(
         new ProblemError({
           status: 429,
           title: 'Too many requests',
           detail: `This key may make ${String(limit)} requests per minute. Retry after the time given in Retry-After (seconds).`,
           type: 'rate-limited',
         }),
-        req.originalUrl.split('?')[0],
       );
     },
   });

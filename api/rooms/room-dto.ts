@@ -2,6 +2,8 @@ import { findLayout } from '../../shared/layouts';
 import { roomGeometry } from '../../shared/geometry';
 import type { Room } from '../db/models/room';
 
+export type RoomView = ReturnType<typeof roomDto>;
+
 /** The API shape of a stored room, with its geometry computed on the way out. */
 export function roomDto(room: Room) {
   const layout = findLayout(room.layoutId);

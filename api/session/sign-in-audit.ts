@@ -1,5 +1,6 @@
 import type { Request } from 'express';
 import { recordAudit } from '../audit/record-audit';
+import { actorOf } from '../auth/actor';
 import type { Database } from '../db/database';
 import type { CredentialCheck } from './credentials';
 
@@ -9,7 +10,7 @@ export function recordSignedIn(db: Database, req: Request, userId: string): Prom
     await db.models.User.update({ lastSignInAt: new Date() }, { where: { id: userId }, transaction });
     await recordAudit(
       db.models,
-      req,
+      actorOf(req),
       { action: 'session.signedIn', targetType: 'user', targetId: userId },
       transaction,
     );
@@ -29,7 +30,7 @@ export function recordSignInFailed(
   return db.write((transaction) =>
     recordAudit(
       db.models,
-      req,
+      actorOf(req),
       {
         action: 'session.signInFailed',
         targetType: failure.userId ? 'user' : undefined,
@@ -45,7 +46,7 @@ export function recordSignedOut(db: Database, req: Request, userId: string): Pro
   return db.write((transaction) =>
     recordAudit(
       db.models,
-      req,
+      actorOf(req),
       { action: 'session.signedOut', targetType: 'user', targetId: userId },
       transaction,
     ),

@@ -1,5 +1,5 @@
-import type { Request } from 'express';
 import { recordAudit } from '../audit/record-audit';
+import type { Actor } from '../auth/actor';
 import { hashPassword } from '../auth/password';
 import type { Invitation } from '../db/models/invitation';
 import type { User } from '../db/models/user';
@@ -47,7 +47,7 @@ function usable(invitation: Invitation | null, user: User | null): { invitation:
  */
 export async function acceptInvitation(
   services: Pick<Services, 'db'>,
-  req: Request,
+  visitor: Actor,
   token: string,
   password: string,
 ): Promise<User> {
@@ -68,10 +68,14 @@ export async function acceptInvitation(
     );
     await invitation.update({ usedAt: new Date() }, { transaction });
     await user.update({ passwordHash, status: 'active' }, { transaction });
-    req.principal = { kind: 'user', role: user.role, userId: user.id };
+    const newcomer: Actor = {
+      kind: 'caller',
+      principal: { kind: 'user', role: user.role, userId: user.id },
+      ip: visitor.kind === 'operator' ? null : visitor.ip,
+    };
     await recordAudit(
       services.db.models,
-      req,
+      newcomer,
       { action: 'user.passwordSet', targetType: 'user', targetId: user.id, details: { via: 'invitation' } },
       transaction,
     );

@@ -6,6 +6,6 @@ export {
   invitationUrl,
   INVITATION_LIFETIME_MS,
 } from './invitation-token';
-export { listUsers, type ListUsersQuery } from './list-users';
+export { getUser, listUsers, type ListUsersQuery } from './list-users';
 export { updateUser, type UpdateUserInput } from './update-user';
 export { toUserView, type UserView } from './user-view';

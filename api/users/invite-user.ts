@@ -1,6 +1,6 @@
-import type { Request } from 'express';
 import type { Transaction } from 'sequelize';
 import { recordAudit } from '../audit/record-audit';
+import { actorUserId, type Actor } from '../auth/actor';
 import { newId } from '../db/ids';
 import type { User, UserRole } from '../db/models/user';
 import { conflict, notFound } from '../http/problem';
@@ -59,12 +59,13 @@ async function createInvitation(
 
 async function mailInvitation(
   services: InvitationServices,
-  req: Request | null,
+  actor: Actor,
   user: User,
   issued: { token: string; expiresAt: Date },
 ): Promise<IssuedInvitation> {
   const url = invitationUrl(services.config.publicUrl, issued.token);
-  const inviter = req?.principal ? await services.db.models.User.findByPk(req.principal.userId) : null;
+  const inviterId = actorUserId(actor);
+  const inviter = inviterId ? await services.db.models.User.findByPk(inviterId) : null;
   const emailSent = await services.mail.send(
     invitationMessage({
       to: user.email,
@@ -80,16 +81,16 @@ async function mailInvitation(
 
 /**
  * Creates a user who has not chosen a password yet and e-mails them a one-time link to do so. Also
- * used by the operator command line (with `req` null).
+ * used by the operator command line.
  */
 export async function inviteUser(
   services: InvitationServices,
-  req: Request | null,
+  actor: Actor,
   input: InviteUserInput,
 ): Promise<InviteUserResult> {
   const { User } = services.db.models;
   const email = normalizeEmail(input.email);
-  const createdById = req?.principal?.userId ?? null;
+  const createdById = actorUserId(actor);
   const { user, issued } = await services.db.write(async (transaction) => {
     if (await User.findOne({ where: { email }, transaction })) {
       throw conflict('A user with this e-mail address already exists.', [
@@ -111,7 +112,7 @@ export async function inviteUser(
     const invitation = await createInvitation(services, created, createdById, transaction);
     await recordAudit(
       services.db.models,
-      req,
+      actor,
       {
         action: 'user.invited',
         targetType: 'user',
@@ -122,7 +123,7 @@ export async function inviteUser(
     );
     return { user: created, issued: invitation };
   });
-  return { user: toUserView(user), invitation: await mailInvitation(services, req, user, issued) };
+  return { user: toUserView(user), invitation: await mailInvitation(services, actor, user, issued) };
 }
 
 /**
@@ -131,7 +132,7 @@ export async function inviteUser(
  */
 export async function reissueInvitation(
   services: InvitationServices,
-  req: Request,
+  actor: Actor,
   userId: string,
 ): Promise<InviteUserResult> {
   const { User, Invitation } = services.db.models;
@@ -144,10 +145,10 @@ export async function reissueInvitation(
       );
     }
     await Invitation.update({ usedAt: new Date() }, { where: { userId, usedAt: null }, transaction });
-    const invitation = await createInvitation(services, found, req.principal?.userId ?? null, transaction);
+    const invitation = await createInvitation(services, found, actorUserId(actor), transaction);
     await recordAudit(
       services.db.models,
-      req,
+      actor,
       {
         action: 'user.invited',
         targetType: 'user',
@@ -158,5 +159,5 @@ export async function reissueInvitation(
     );
     return { user: found, issued: invitation };
   });
-  return { user: toUserView(user), invitation: await mailInvitation(services, req, user, issued) };
+  return { user: toUserView(user), invitation: await mailInvitation(services, actor, user, issued) };
 }

@@ -1,19 +1,22 @@
-import { Op, type WhereOptions } from 'sequelize';
 import type { Models } from '../db/models';
-import type { User } from '../db/models/user';
+import { pageOf, type Page, type PageRequest } from '../db/pagination';
+import { notFound } from '../http/problem';
 import { toUserView, type UserView } from './user-view';
 
-export interface ListUsersQuery {
-  limit: number;
-  startingAfter?: string;
-}
+export type ListUsersQuery = PageRequest;
 
 /** One page of users in creation order (ids sort by time). */
-export async function listUsers(
+export function listUsers(models: Models, query: ListUsersQuery): Promise<Page<UserView>> {
+  return pageOf(models.User, {}, query, toUserView);
+}
+
+/** One user, or a 404 saying which. */
+export async function getUser(
   models: Models,
-  query: ListUsersQuery,
-): Promise<{ data: UserView[]; hasMore: boolean }> {
-  const where: WhereOptions<User> = query.startingAfter ? { id: { [Op.gt]: query.startingAfter } } : {};
-  const rows = await models.User.findAll({ where, order: [['id', 'ASC']], limit: query.limit + 1 });
-  return { data: rows.slice(0, query.limit).map(toUserView), hasMore: rows.length > query.limit };
+  userId: string,
+  missing = `No user ${userId}.`,
+): Promise<UserView> {
+  const user = await models.User.findByPk(userId);
+  if (!user) throw notFound(missing);
+  return toUserView(user);
 }

@@ -1,5 +1,5 @@
-import type { Request } from 'express';
 import { recordAudit, type AuditEntry } from '../audit/record-audit';
+import { actorUserId, type Actor } from '../auth/actor';
 import type { UserRole } from '../db/models/user';
 import { conflict, notFound } from '../http/problem';
 import type { Services } from '../services';
@@ -18,7 +18,7 @@ export interface UpdateUserInput {
  */
 export async function updateUser(
   services: Pick<Services, 'db' | 'keys'>,
-  req: Request,
+  actor: Actor,
   userId: string,
   input: UpdateUserInput,
 ): Promise<UserView> {
@@ -26,7 +26,7 @@ export async function updateUser(
   const view = await services.db.write(async (transaction) => {
     const user = await User.findByPk(userId, { transaction });
     if (!user) throw notFound(`No user ${userId}.`);
-    const self = req.principal?.userId === user.id;
+    const self = actorUserId(actor) === user.id;
     if (self && input.role !== undefined && input.role !== user.role) {
       throw conflict('You cannot change your own role; ask another admin.', [
         { pointer: '/body/role', message: 'cannot change your own role' },
@@ -64,7 +64,7 @@ export async function updateUser(
 
     if (events.length > 0) {
       await user.save({ transaction });
-      for (const event of events) await recordAudit(services.db.models, req, event, transaction);
+      for (const event of events) await recordAudit(services.db.models, actor, event, transaction);
     }
     return toUserView(user);
   });

@@ -1,6 +1,6 @@
 import { roomGeometry } from '../../shared/geometry';
 import { findLayout } from '../../shared/layouts';
-import { esc, num, signed } from './html';
+import { esc, num, signed } from './report-html';
 import { renderRoomReport } from './room-report';
 import { topViewSvg } from './top-view-svg';
 

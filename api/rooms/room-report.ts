@@ -3,7 +3,7 @@ import type { Layout } from '../../shared/layouts';
 import type { Caution } from '../../shared/notices';
 import type { DesignedTuning, TuningSettings } from '../../shared/plan';
 import { cascadeResponse, responseGrid } from '../../shared/filters/response';
-import { esc, num, signed } from './html';
+import { esc, num, signed } from './report-html';
 import { responseSvg } from './response-svg';
 import { topViewSvg } from './top-view-svg';
 

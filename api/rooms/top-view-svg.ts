@@ -1,6 +1,6 @@
 import type { Layout } from '../../shared/layouts';
 import type { SpeakerGeometry } from '../../shared/geometry';
-import { esc, num } from './html';
+import { esc, num } from './report-html';
 
 export interface TopViewInput {
   dimensions: { widthM: number; lengthM: number; heightM: number };

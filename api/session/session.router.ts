@@ -1,4 +1,5 @@
 import { Router } from 'express';
+import { actorOf } from '../auth/actor';
 import { ProblemError } from '../http/problem';
 import { validate } from '../http/validate';
 import type { Services } from '../services';
@@ -11,7 +12,7 @@ import {
   recordSignInFailed,
   toConsoleUser,
   type ConsoleUser,
-} from '../session';
+} from '.';
 import { acceptInvitation } from '../users';
 
 // One answer for an unknown address, a wrong password, an account not yet activated and a disabled one.
@@ -77,7 +78,7 @@ export function sessionRouter(services: Services): Router {
     '/invitations/accept',
     validate('acceptInvitation', throttles.invitationPerAddress, async ({ body }, req, res) => {
       const { token, password } = body;
-      const user = toConsoleUser(await acceptInvitation(services, req, token, password));
+      const user = toConsoleUser(await acceptInvitation(services, actorOf(req), token, password));
       await sessions.signIn(req, user);
       await recordSignedIn(db, req, user.id);
       res.json({ user });

@@ -1,4 +1,4 @@
-import { CalculationInputError, withFieldPrefix } from '../../shared/errors';
+import { CalculationInputError } from '../../shared/errors';
 import type { FilterSpec } from '../../shared/filters/biquad-design';
 import {
   checkTuningSettings,
@@ -55,7 +55,7 @@ export function settingsFromInput(
  * Runs the whole-room plan for a stored room: layout, room, listener, limits and sample rate come from
  * the room unless the request gives them, and a channel without position, distance or arrival takes
  * the stored loudspeaker's position. Without channels, every stored loudspeaker is planned.
- * Errors name fields under `/plan`.
+ * Errors name fields of the plan (the caller places them in the request).
  */
 export function planForRoom(
   room: Room,
@@ -77,7 +77,7 @@ export function planForRoom(
     sampleRateHz: plan.sampleRateHz ?? room.sampleRateHz,
     channels,
   };
-  const result = withFieldPrefix('/plan', () => planRoom(input));
+  const result = planRoom(input);
   return { plan: result, settings: planToTuningSettings(result) };
 }
 

@@ -1,4 +1,4 @@
-import { esc, num } from './html';
+import { esc, num } from './report-html';
 
 const W = 260;
 const H = 120;

@@ -5,10 +5,18 @@ import { MIN_SMOOTHING_OCTAVES } from '../../shared/analysis/smoothing';
 import { decodeWav } from '../../shared/analysis/wav-decode';
 import { requirePermission } from '../auth/permissions';
 import { badRequest } from '../http/problem';
-import { validate } from '../http/validate';
+import { validate, type UploadedFile } from '../http/validate';
 
 /** POST /v1/analysis/impulse-response: arrival, level, smoothed response and decay times of one WAV file. */
-export const analysisRouter = Router();
+export function analysisRouter(): Router {
+  const router = Router();
+  router.post(
+    '/analysis/impulse-response',
+    requirePermission('calculate'),
+    validate('analyzeImpulseResponse', ({ body, file }, _req, res) => res.json(analyseUpload(body, file))),
+  );
+  return router;
+}
 
 interface RoomFields {
   roomWidthM?: number;
@@ -16,24 +24,23 @@ interface RoomFields {
   roomHeightM?: number;
 }
 
-analysisRouter.post(
-  '/analysis/impulse-response',
-  requirePermission('calculate'),
-  validate('analyzeImpulseResponse', ({ body: form, file }, _req, res) => {
-    if (!file) throw new Error('validate() hands multipart handlers the file');
-    const wav = decodeWav(file.buffer, { channel: form.channel });
-    const analysis = analyzeImpulseResponse(wav.samples, wav.sampleRateHz, {
-      smoothingOctaves: Math.max(MIN_SMOOTHING_OCTAVES, form.smoothingOctaves),
-      room: roomOf(form),
-      speedOfSoundMps: speedOfSoundMps(form.temperatureC),
-    });
-    const { sampleRateHz, channelCount, channelIndex, encoding, durationS } = wav;
-    res.json({
-      ...analysis,
-      file: { sizeBytes: file.size, sampleRateHz, channelCount, channelIndex, encoding, durationS },
-    });
-  }),
-);
+/** A WAV upload's analysis, with what was read from the file. */
+function analyseUpload(
+  form: RoomFields & { channel?: number; smoothingOctaves: number; temperatureC: number },
+  file: UploadedFile,
+) {
+  const wav = decodeWav(file.buffer, { channel: form.channel });
+  const analysis = analyzeImpulseResponse(wav.samples, wav.sampleRateHz, {
+    smoothingOctaves: Math.max(MIN_SMOOTHING_OCTAVES, form.smoothingOctaves),
+    room: roomOf(form),
+    speedOfSoundMps: speedOfSoundMps(form.temperatureC),
+  });
+  const { sampleRateHz, channelCount, channelIndex, encoding, durationS } = wav;
+  return {
+    ...analysis,
+    file: { sizeBytes: file.size, sampleRateHz, channelCount, channelIndex, encoding, durationS },
+  };
+}
 
 /** The room dimensions, all three or none. */
 function roomOf(form: RoomFields) {

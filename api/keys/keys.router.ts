@@ -1,11 +1,10 @@
-import { Router, type Request } from 'express';
-import { principalOf, requirePermission } from '../auth/permissions';
+import { Router } from 'express';
+import { callerOf } from '../auth/actor';
+import { requirePermission } from '../auth/permissions';
 import { validate } from '../http/validate';
 import { notifyKeyCreated } from '../mail';
-import { KeyService, type KeyActor } from '../keys/key-service';
+import { KeyService } from './key-service';
 import type { Services } from '../services';
-
-const caller = (req: Request): KeyActor => ({ kind: 'caller', principal: principalOf(req), req });
 
 /** `/v1/keys`: a caller's own keys with `keys:own`, everyone's with `keys:all`. */
 export function keysRouter(services: Services): Router {
@@ -23,7 +22,7 @@ export function keysRouter(services: Services): Router {
     '/keys',
     mayManageKeys,
     validate('listKeys', async ({ query }, req, res) => {
-      res.json(await keys.list(caller(req), query));
+      res.json(await keys.list(callerOf(req), query));
     }),
   );
 
@@ -31,7 +30,7 @@ export function keysRouter(services: Services): Router {
     '/keys',
     mayManageKeys,
     validate('createKey', async ({ body }, req, res) => {
-      const created = await keys.create(caller(req), body);
+      const created = await keys.create(callerOf(req), body);
       // The clear key is in this body and nowhere else: no cache may keep it.
       res.setHeader('Cache-Control', 'no-store');
       res.status(201).location(`/v1/keys/${created.id}`).json(created);
@@ -42,7 +41,7 @@ export function keysRouter(services: Services): Router {
     '/keys/:keyId',
     mayManageKeys,
     validate('getKey', async ({ params }, req, res) => {
-      res.json(await keys.get(caller(req), params.keyId));
+      res.json(await keys.get(callerOf(req), params.keyId));
     }),
   );
 
@@ -50,7 +49,7 @@ export function keysRouter(services: Services): Router {
     '/keys/:keyId',
     mayManageKeys,
     validate('updateKey', async ({ params, body }, req, res) => {
-      res.json(await keys.update(caller(req), params.keyId, body));
+      res.json(await keys.update(callerOf(req), params.keyId, body));
     }),
   );
 
@@ -58,7 +57,7 @@ export function keysRouter(services: Services): Router {
     '/keys/:keyId',
     mayManageKeys,
     validate('revokeKey', async ({ params }, req, res) => {
-      res.json(await keys.revoke(caller(req), params.keyId));
+      res.json(await keys.revoke(callerOf(req), params.keyId));
     }),
   );
 

@@ -1,22 +1,20 @@
 import { Router } from 'express';
+import { callerOf } from '../auth/actor';
 import { requirePermission } from '../auth/permissions';
-import { notFound } from '../http/problem';
 import { validate } from '../http/validate';
 import type { Services } from '../services';
-import { inviteUser, listUsers, reissueInvitation, toUserView, updateUser } from '../users';
+import { getUser, inviteUser, listUsers, reissueInvitation, updateUser } from '.';
 
 /** Console users: anyone sees themselves; admins list, invite, change role or name, disable. */
 export function usersRouter(services: Services): Router {
-  const { User } = services.db.models;
   const router = Router();
   const admin = requirePermission('users');
 
   router.get(
     '/users/me',
     validate('getCurrentUser', async (_input, req, res) => {
-      const user = await User.findByPk(req.principal?.userId ?? '');
-      if (!user) throw notFound('The user behind this key or session no longer exists.');
-      res.json(toUserView(user));
+      const missing = 'The user behind this key or session no longer exists.';
+      res.json(await getUser(services.db.models, callerOf(req).principal.userId, missing));
     }),
   );
 
@@ -32,7 +30,7 @@ export function usersRouter(services: Services): Router {
     '/users',
     admin,
     validate('inviteUser', async ({ body }, req, res) => {
-      const result = await inviteUser(services, req, body);
+      const result = await inviteUser(services, callerOf(req), body);
       res.status(201).location(`/v1/users/${result.user.id}`).json(result);
     }),
   );
@@ -41,9 +39,7 @@ export function usersRouter(services: Services): Router {
     '/users/:userId',
     admin,
     validate('getUser', async ({ params }, _req, res) => {
-      const user = await User.findByPk(params.userId);
-      if (!user) throw notFound(`No user ${params.userId}.`);
-      res.json(toUserView(user));
+      res.json(await getUser(services.db.models, params.userId));
     }),
   );
 
@@ -51,7 +47,7 @@ export function usersRouter(services: Services): Router {
     '/users/:userId',
     admin,
     validate('updateUser', async ({ params, body }, req, res) => {
-      res.json(await updateUser(services, req, params.userId, body));
+      res.json(await updateUser(services, callerOf(req), params.userId, body));
     }),
   );
 
@@ -59,7 +55,7 @@ export function usersRouter(services: Services): Router {
     '/users/:userId/invitations',
     admin,
     validate('reissueInvitation', async ({ params }, req, res) => {
-      res.status(201).json(await reissueInvitation(services, req, params.userId));
+      res.status(201).json(await reissueInvitation(services, callerOf(req), params.userId));
     }),
   );
 

@@ -1,5 +1,6 @@
 import { Router } from 'express';
 import type { Database } from '../db/database';
+import { ProblemError } from '../http/problem';
 
 /** Liveness answers without touching anything; readiness proves the database answers. */
 export function healthRouter(db: Database): Router {
@@ -10,15 +11,10 @@ export function healthRouter(db: Database): Router {
   router.get('/readyz', async (_req, res) => {
     try {
       await db.sequelize.query('SELECT 1');
-      res.json({ status: 'ready' });
     } catch {
-      res.status(503).type('application/problem+json').json({
-        type: 'https://isochron.dev/problems/unavailable',
-        title: 'Not ready',
-        status: 503,
-        detail: 'The database does not answer.',
-      });
+      throw new ProblemError({ status: 503, title: 'Not ready', detail: 'The database does not answer.' });
     }
+    res.json({ status: 'ready' });
   });
   return router;
 }

@@ -1,4 +1,3 @@
-import type { Request } from 'express';
 import type { Transaction } from 'sequelize';
 import { findLayout } from '../../shared/layouts';
 import { checkTuningSettings, tuningCautions, type TuningSettings } from '../../shared/plan';
@@ -9,6 +8,7 @@ import type { Tuning } from '../db/models/tuning';
 import type { TuningOrigin, TuningVersion } from '../db/models/tuning-version';
 import type { Models } from '../db/models';
 import { notFound } from '../http/problem';
+import type { Caller } from '../rooms/room-access';
 
 export interface VersionContent {
   name: string;
@@ -66,7 +66,7 @@ export function versionDto(version: TuningVersion) {
 
 async function insertVersion(
   models: Models,
-  req: Request,
+  caller: Caller,
   tuningId: string,
   number: number,
   content: VersionContent,
@@ -84,8 +84,8 @@ async function insertVersion(
       subwoofer: content.settings.subwoofer,
       origin: content.origin,
       restoredFromVersion: content.restoredFromVersion ?? null,
-      createdByUserId: req.principal?.userId ?? null,
-      createdByKeyId: req.principal?.keyId ?? null,
+      createdByUserId: caller.principal.userId,
+      createdByKeyId: caller.principal.keyId ?? null,
     },
     { transaction },
   );
@@ -94,7 +94,7 @@ async function insertVersion(
 /** Stores a new tuning with its first version, after checking the settings (422 naming the field). */
 export async function createTuning(
   db: Database,
-  req: Request,
+  caller: Caller,
   room: Room,
   content: VersionContent,
   duplicatedFromId: string | null = null,
@@ -112,7 +112,7 @@ export async function createTuning(
       },
       { transaction },
     );
-    const version = await insertVersion(db.models, req, tuning.id, 1, content, transaction);
+    const version = await insertVersion(db.models, caller, tuning.id, 1, content, transaction);
     return { tuning, version };
   });
 }
@@ -123,7 +123,7 @@ export async function createTuning(
  */
 export async function addVersion(
   db: Database,
-  req: Request,
+  caller: Caller,
   tuningId: string,
   build: (current: TuningVersion) => VersionContent,
 ): Promise<{ tuning: Tuning; version: TuningVersion }> {
@@ -135,7 +135,7 @@ export async function addVersion(
     checkTuningSettings(content.settings);
     const version = await insertVersion(
       db.models,
-      req,
+      caller,
       tuning.id,
       tuning.currentVersion + 1,
       content,

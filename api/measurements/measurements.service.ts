@@ -1,0 +1,125 @@
+import { powerAverageResampled } from '../../shared/analysis/spatial-average';
+import type { Database } from '../db/database';
+import { newId } from '../db/ids';
+import type { Measurement } from '../db/models/measurement';
+import { pageOf, type Page, type PageRequest } from '../db/pagination';
+import type { UploadedFile } from '../http/validate';
+import { notFound, ProblemError } from '../http/problem';
+import { findRoomFor, type Caller } from '../rooms/room-access';
+import { measurementDto } from './measurement-dto';
+import {
+  contentFromFile,
+  contentFromJson,
+  requireRoomChannel,
+  type JsonMeasurement,
+  type UploadForm,
+} from './measurement-input';
+
+type MeasurementView = ReturnType<typeof measurementDto>;
+
+interface Labels {
+  channel: string;
+  micPosition?: string;
+  name?: string;
+  notes?: string;
+}
+
+/** Measurements of a stored room: uploads analysed on arrival and stored whole, or not at all. */
+export class MeasurementsService {
+  constructor(private readonly db: Database) {}
+
+  /** A multipart upload (`file` with its form fields) or a JSON measurement. */
+  async create(
+    caller: Caller,
+    roomId: string,
+    input: { body: UploadForm; file: UploadedFile } | { body: JsonMeasurement & Labels; file?: undefined },
+  ): Promise<MeasurementView> {
+    const room = await findRoomFor(caller, this.db.models, roomId);
+    requireRoomChannel(room, input.body.channel);
+    const content = input.file ? contentFromFile(input.file, input.body, room) : contentFromJson(input.body);
+    const labels: Labels = input.body;
+    const row = await this.db.write((transaction) =>
+      this.db.models.Measurement.create(
+        {
+          id: newId('meas'),
+          roomId: room.id,
+          ownerId: room.ownerId,
+          channel: labels.channel,
+          micPosition: labels.micPosition ?? '1',
+          name: labels.name ?? null,
+          notes: labels.notes ?? null,
+          ...content,
+          createdByKeyId: caller.principal.keyId ?? null,
+        },
+        { transaction },
+      ),
+    );
+    return measurementDto(row, true);
+  }
+
+  async list(
+    caller: Caller,
+    roomId: string,
+    query: PageRequest & { channel?: string },
+  ): Promise<Page<MeasurementView>> {
+    const room = await findRoomFor(caller, this.db.models, roomId);
+    const where = { roomId: room.id, ...(query.channel && { channel: query.channel }) };
+    return pageOf(this.db.models.Measurement, where, query, (m) => measurementDto(m, false));
+  }
+
+  /** The power average of a channel's responses over its microphone positions. */
+  async average(caller: Caller, roomId: string, channel: string, kind?: Measurement['kind']) {
+    const room = await findRoomFor(caller, this.db.models, roomId);
+    const rows = await this.db.models.Measurement.findAll({
+      where: { roomId: room.id, channel },
+      order: [['id', 'ASC']],
+    });
+    const withResponse = rows.filter((m) => m.kind !== 'spl' && (kind === undefined || m.kind === kind));
+    if (withResponse.length === 0)
+      throw notFound(`Room ${room.id} has no frequency or impulse responses for channel ${channel}.`);
+    if (new Set(withResponse.map((m) => m.kind)).size > 1) {
+      // dB re full scale and sound-pressure levels cannot be averaged into one meaningful curve.
+      throw new ProblemError({
+        status: 422,
+        title: 'Value cannot be used',
+        detail: `Channel ${channel} has both impulse-response analyses and frequency responses; choose one with kind.`,
+        type: 'calculation-input',
+        errors: [
+          { pointer: '/query/kind', message: 'is required when the channel has both kinds of response' },
+        ],
+      });
+    }
+    return {
+      channel,
+      measurementIds: withResponse.map((m) => m.id),
+      micPositions: [...new Set(withResponse.map((m) => m.micPosition))],
+      ...powerAverageResampled(withResponse.map(responseOf)),
+    };
+  }
+
+  async get(caller: Caller, roomId: string, measurementId: string): Promise<MeasurementView> {
+    return measurementDto(await this.find(caller, roomId, measurementId), true);
+  }
+
+  async delete(caller: Caller, roomId: string, measurementId: string): Promise<void> {
+    const measurement = await this.find(caller, roomId, measurementId);
+    await this.db.write((transaction) => measurement.destroy({ transaction }));
+  }
+
+  private async find(caller: Caller, roomId: string, measurementId: string): Promise<Measurement> {
+    const room = await findRoomFor(caller, this.db.models, roomId);
+    const measurement = await this.db.models.Measurement.findOne({
+      where: { id: measurementId, roomId: room.id },
+    });
+    if (!measurement) throw notFound(`No measurement ${measurementId} in room ${room.id}.`);
+    return measurement;
+  }
+}
+
+/** The magnitude response a stored measurement carries: an analysis's smoothed response, or the response itself. */
+function responseOf(m: Measurement): { frequenciesHz: number[]; magnitudeDb: number[] } {
+  type Response = { frequenciesHz: number[]; magnitudeDb: number[] };
+  return m.kind === 'impulseResponse'
+    ? (m.result as { frequencyResponse: Response }).frequencyResponse
+    : (m.result as unknown as Response);
+}

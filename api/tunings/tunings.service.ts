@@ -1,0 +1,188 @@
+import type { components } from '../../shared/contract/api-types';
+import { compareTunings, tuningToCsv } from '../../shared/plan';
+import type { Database } from '../db/database';
+import { pageOf, type Page, type PageRequest } from '../db/pagination';
+import { badRequest, calculateAt } from '../http/problem';
+import { findRoomFor, findTuningFor, type Caller } from '../rooms/room-access';
+import { designAtRate } from './design-at-rate';
+import { checkPatchedChannel, planForRoom, settingsFromInput, toTuningChannel } from './tuning-input';
+import { addVersion, createTuning, findVersion, settingsOf, tuningDto, versionDto } from './tuning-store';
+
+type Schemas = components['schemas'];
+type TuningView = ReturnType<typeof tuningDto>;
+type VersionView = ReturnType<typeof versionDto>;
+
+const BIQUAD_CONVENTION = 'a0 = 1; H(z) = (b0 + b1 z^-1 + b2 z^-2) / (1 + a1 z^-1 + a2 z^-2)';
+
+/** Tunings of stored rooms: versioned on every edit, duplicable, comparable, exportable. */
+export class TuningsService {
+  constructor(private readonly db: Database) {}
+
+  async list(caller: Caller, roomId: string, page: PageRequest): Promise<Page<TuningView>> {
+    const room = await findRoomFor(caller, this.db.models, roomId);
+    const found = await pageOf(this.db.models.Tuning, { roomId: room.id }, page, (t) => t);
+    const data = await Promise.all(
+      found.data.map(async (t) => tuningDto(t, await findVersion(this.db.models, t, undefined), room)),
+    );
+    return { data, hasMore: found.hasMore };
+  }
+
+  /** From settings per channel, or from a whole-room plan of the stored room (its errors name `/body/plan`). */
+  async create(caller: Caller, roomId: string, body: Schemas['TuningCreate']) {
+    const room = await findRoomFor(caller, this.db.models, roomId);
+    if ((body.plan === undefined) === (body.channels === undefined)) {
+      const pointer = body.plan === undefined ? '/body/channels' : '/body/plan';
+      throw badRequest('Give exactly one of channels (settings per channel) or plan (a whole-room plan).', [
+        { pointer, message: 'give exactly one of channels or plan' },
+      ]);
+    }
+    const plan = body.plan;
+    const fromPlan = plan ? calculateAt('/body/plan', () => planForRoom(room, plan)) : null;
+    const settings = fromPlan
+      ? fromPlan.settings
+      : settingsFromInput({ ...body, channels: body.channels ?? [] }, room);
+    const { tuning, version } = await createTuning(this.db, caller, room, {
+      name: body.name,
+      notes: body.notes ?? null,
+      settings,
+      origin: fromPlan ? 'plan' : 'settings',
+    });
+    const dto = tuningDto(tuning, version, room);
+    return fromPlan
+      ? { ...dto, planWarnings: fromPlan.plan.warnings, cautions: [...fromPlan.plan.cautions] }
+      : dto;
+  }
+
+  async get(caller: Caller, tuningId: string, versionNumber?: number): Promise<TuningView> {
+    const found = await findTuningFor(caller, this.db.models, tuningId);
+    const version = await findVersion(this.db.models, found, versionNumber);
+    return tuningDto(found, version, await this.db.models.Room.findByPk(found.roomId));
+  }
+
+  async compare(
+    caller: Caller,
+    q: { left: string; right: string; leftVersion?: number; rightVersion?: number },
+  ) {
+    const left = await findTuningFor(caller, this.db.models, q.left);
+    const right = await findTuningFor(caller, this.db.models, q.right);
+    const leftVersion = await findVersion(this.db.models, left, q.leftVersion);
+    const rightVersion = await findVersion(this.db.models, right, q.rightVersion);
+    return {
+      left: { tuningId: left.id, version: leftVersion.version, name: leftVersion.name },
+      right: { tuningId: right.id, version: rightVersion.version, name: rightVersion.name },
+      ...compareTunings(settingsOf(leftVersion), settingsOf(rightVersion)),
+    };
+  }
+
+  /** Every edit is a new version; channels are merged by id, and errors name the request's entries. */
+  async update(caller: Caller, tuningId: string, body: Schemas['TuningUpdate']): Promise<TuningView> {
+    const found = await findTuningFor(caller, this.db.models, tuningId);
+    const { tuning, version } = await addVersion(this.db, caller, found.id, (current) => {
+      const removed = new Set(body.removeChannels ?? []);
+      const channels = current.channels.filter((c) => !removed.has(c.id));
+      const sampleRateHz = body.sampleRateHz ?? current.sampleRateHz;
+      (body.channels ?? []).forEach((change, bodyIndex) => {
+        const index = channels.findIndex((c) => c.id === change.id);
+        const merged = toTuningChannel(change, index >= 0 ? channels[index] : undefined);
+        checkPatchedChannel(merged, bodyIndex, sampleRateHz);
+        if (index >= 0) channels[index] = merged;
+        else channels.push(merged);
+      });
+      return {
+        name: body.name ?? current.name,
+        notes: body.notes !== undefined ? body.notes : current.notes,
+        origin: 'edit',
+        settings: {
+          sampleRateHz,
+          channels,
+          subwoofer: body.subwoofer !== undefined ? body.subwoofer : current.subwoofer,
+        },
+      };
+    });
+    return tuningDto(tuning, version, await this.db.models.Room.findByPk(tuning.roomId));
+  }
+
+  async delete(caller: Caller, tuningId: string): Promise<void> {
+    const found = await findTuningFor(caller, this.db.models, tuningId);
+    await this.db.write(async (transaction) => {
+      await this.db.models.TuningVersion.destroy({ where: { tuningId: found.id }, transaction });
+      await found.destroy({ transaction });
+    });
+  }
+
+  async duplicate(caller: Caller, tuningId: string, body: { name?: string; version?: number }) {
+    const source = await findTuningFor(caller, this.db.models, tuningId);
+    const version = await findVersion(this.db.models, source, body.version);
+    const room = await findRoomFor(caller, this.db.models, source.roomId);
+    const copy = await createTuning(
+      this.db,
+      caller,
+      room,
+      {
+        name: body.name ?? `${version.name} (copy)`,
+        notes: version.notes,
+        settings: settingsOf(version),
+        origin: 'duplicate',
+      },
+      source.id,
+    );
+    return tuningDto(copy.tuning, copy.version, room);
+  }
+
+  /** The designed sections at the stored or a requested sample rate, as JSON or as CSV. */
+  async export(
+    caller: Caller,
+    tuningId: string,
+    q: { format: 'json' | 'csv'; sampleRateHz?: number; version?: number },
+  ): Promise<{ csv: string; fileName: string } | { json: object }> {
+    const found = await findTuningFor(caller, this.db.models, tuningId);
+    const version = await findVersion(this.db.models, found, q.version);
+    const designed = designAtRate(settingsOf(version), q.sampleRateHz ?? version.sampleRateHz);
+    if (q.format === 'csv') {
+      return {
+        csv: tuningToCsv(designed),
+        fileName: `${found.id}-v${version.version}-${designed.sampleRateHz}.csv`,
+      };
+    }
+    const json = {
+      tuningId: found.id,
+      name: version.name,
+      version: version.version,
+      convention: BIQUAD_CONVENTION,
+      ...designed,
+    };
+    return { json };
+  }
+
+  async versions(caller: Caller, tuningId: string, page: PageRequest): Promise<Page<VersionView>> {
+    const found = await findTuningFor(caller, this.db.models, tuningId);
+    // The cursor of this list is a version number.
+    const after = page.startingAfter === undefined ? 0 : Number.parseInt(String(page.startingAfter), 10) || 0;
+    return pageOf(
+      this.db.models.TuningVersion,
+      { tuningId: found.id },
+      { limit: page.limit, startingAfter: after },
+      versionDto,
+      'version',
+    );
+  }
+
+  async version(caller: Caller, tuningId: string, versionNumber: number): Promise<VersionView> {
+    const found = await findTuningFor(caller, this.db.models, tuningId);
+    return versionDto(await findVersion(this.db.models, found, versionNumber));
+  }
+
+  /** An old version's content becomes the newest version. */
+  async restore(caller: Caller, tuningId: string, versionNumber: number): Promise<TuningView> {
+    const found = await findTuningFor(caller, this.db.models, tuningId);
+    const old = await findVersion(this.db.models, found, versionNumber);
+    const { tuning, version } = await addVersion(this.db, caller, found.id, () => ({
+      name: old.name,
+      notes: old.notes,
+      settings: settingsOf(old),
+      origin: 'restore',
+      restoredFromVersion: old.version,
+    }));
+    return tuningDto(tuning, version, await this.db.models.Room.findByPk(tuning.roomId));
+  }
+}

@@ -1,0 +1,31 @@
+import { Router } from 'express';
+import { analysisRouter } from './analysis/analysis.router';
+import { calculationsRouter } from './calculations/calculations.router';
+import { keysRouter } from './keys/keys.router';
+import { layoutsRouter } from './layouts/layouts.router';
+import { outboxRouter } from './mail/outbox.router';
+import { measurementsRouter } from './measurements/measurements.router';
+import { roomsRouter } from './rooms/rooms.router';
+import type { Services } from './services';
+import { tuningsRouter } from './tunings/tunings.router';
+import { usageRouter } from './usage/usage.router';
+import { usersRouter } from './users/users.router';
+
+/**
+ * Every `/v1` resource router, mounted after authentication, rate limiting and metering. Each resource
+ * has its folder (`api/<resource>/`) with its router; add one line here per resource.
+ */
+export function v1Router(services: Services): Router {
+  const router = Router();
+  router.use(layoutsRouter());
+  router.use(calculationsRouter());
+  router.use(analysisRouter());
+  router.use(usersRouter(services));
+  router.use(outboxRouter(services));
+  router.use(keysRouter(services));
+  router.use(usageRouter(services));
+  router.use(roomsRouter(services));
+  router.use(measurementsRouter(services));
+  router.use(tuningsRouter(services));
+  return router;
+}
