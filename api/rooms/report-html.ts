@@ -23,3 +23,12 @@ export function signed(value: number | null | undefined, digits: number): string
   if (value === null || value === undefined || !Number.isFinite(value)) return '—';
   return value > 0 && Number(value.toFixed(digits)) !== 0 ? '+' + value.toFixed(digits) : num(value, digits);
 }
+
+/**
+ * A coordinate for an SVG attribute: one decimal and an ASCII hyphen-minus, as the SVG number grammar
+ * requires (the typographic minus of `num` is for text people read, and makes `x2="−100.5"` invalid).
+ */
+export function coord(value: number): string {
+  const text = value.toFixed(1);
+  return text === '-0.0' ? '0.0' : text;
+}

@@ -1,4 +1,4 @@
-import { esc, num } from './report-html';
+import { coord, esc } from './report-html';
 
 const W = 260;
 const H = 120;
@@ -24,23 +24,23 @@ export function responseSvg(
     4 + ((DB_MAX - Math.min(DB_MAX, Math.max(DB_MIN, db))) / (DB_MAX - DB_MIN)) * (H - BOTTOM - 4);
   const grid: string[] = [];
   for (const f of [100, 1000, 10000])
-    grid.push(`<line x1="${num(x(f), 1)}" y1="4" x2="${num(x(f), 1)}" y2="${H - BOTTOM}" class="g"/>`);
+    grid.push(`<line x1="${coord(x(f))}" y1="4" x2="${coord(x(f))}" y2="${H - BOTTOM}" class="g"/>`);
   for (const [f, label] of [
     [20, '20'],
     [100, '100'],
     [1000, '1k'],
     [10000, '10k'],
   ] as const) {
-    grid.push(`<text x="${num(x(f), 1)}" y="${H - 5}" class="t">${label}</text>`);
+    grid.push(`<text x="${coord(x(f))}" y="${H - 5}" class="t">${label}</text>`);
   }
   for (let db = DB_MIN; db <= DB_MAX; db += 6) {
     grid.push(
-      `<line x1="${LEFT}" y1="${num(y(db), 1)}" x2="${W - 4}" y2="${num(y(db), 1)}" class="${db === 0 ? 'z' : 'g'}"/>`,
+      `<line x1="${LEFT}" y1="${coord(y(db))}" x2="${W - 4}" y2="${coord(y(db))}" class="${db === 0 ? 'z' : 'g'}"/>`,
     );
-    grid.push(`<text x="${LEFT - 3}" y="${num(y(db) + 3, 1)}" class="d">${db}</text>`);
+    grid.push(`<text x="${LEFT - 3}" y="${coord(y(db) + 3)}" class="d">${db}</text>`);
   }
   const points = frequenciesHz
-    .map((f, i) => `${i === 0 ? 'M' : 'L'}${num(x(f), 1)} ${num(y(magnitudeDb[i]), 1)}`)
+    .map((f, i) => `${i === 0 ? 'M' : 'L'}${coord(x(f))} ${coord(y(magnitudeDb[i]))}`)
     .join(' ');
   return [
     `<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 ${W} ${H}" width="${W}" height="${H}" role="img" aria-label="${esc(title)}">`,

@@ -1,6 +1,6 @@
 import type { Layout } from '../../shared/layouts';
 import type { SpeakerGeometry } from '../../shared/geometry';
-import { esc, num } from './report-html';
+import { coord, esc, num } from './report-html';
 
 export interface TopViewInput {
   dimensions: { widthM: number; lengthM: number; heightM: number };
@@ -39,26 +39,24 @@ export function topViewSvg(input: TopViewInput): string {
   const ly = py(input.listener.y);
   const parts: string[] = [];
   parts.push(
-    `<rect x="${PAD_PX}" y="${PAD_PX}" width="${num(widthM * scale, 1)}" height="${num(lengthM * scale, 1)}" class="room"/>`,
+    `<rect x="${PAD_PX}" y="${PAD_PX}" width="${coord(widthM * scale)}" height="${coord(lengthM * scale)}" class="room"/>`,
   );
-  parts.push(`<text x="${num(w / 2, 1)}" y="${PAD_PX - 10}" class="wall">front</text>`);
-  parts.push(`<text x="${num(w / 2, 1)}" y="${num(h - PAD_PX + 22, 1)}" class="wall">back</text>`);
+  parts.push(`<text x="${coord(w / 2)}" y="${PAD_PX - 10}" class="wall">front</text>`);
+  parts.push(`<text x="${coord(w / 2)}" y="${coord(h - PAD_PX + 22)}" class="wall">back</text>`);
   parts.push(
-    `<text x="${PAD_PX}" y="${num(h - 8, 1)}" class="scale">${num(widthM, 2)} m × ${num(lengthM, 2)} m</text>`,
+    `<text x="${PAD_PX}" y="${coord(h - 8)}" class="scale">${num(widthM, 2)} m × ${num(lengthM, 2)} m</text>`,
   );
   for (const g of input.geometry) {
     const speaker = input.loudspeakers.find((s) => s.id === g.id);
     if (!speaker) continue;
     const sx = px(speaker.x);
     const sy = py(speaker.y);
-    parts.push(
-      `<line x1="${num(lx, 1)}" y1="${num(ly, 1)}" x2="${num(sx, 1)}" y2="${num(sy, 1)}" class="ray"/>`,
-    );
+    parts.push(`<line x1="${coord(lx)}" y1="${coord(ly)}" x2="${coord(sx)}" y2="${coord(sy)}" class="ray"/>`);
     if (g.nominal && !g.id.startsWith('LFE')) {
       const reach = Math.hypot(sx - lx, sy - ly);
       const az = (g.nominal.azimuthDeg * Math.PI) / 180;
       parts.push(
-        `<line x1="${num(lx, 1)}" y1="${num(ly, 1)}" x2="${num(lx - reach * Math.sin(az), 1)}" y2="${num(ly - reach * Math.cos(az), 1)}" class="nominal"/>`,
+        `<line x1="${coord(lx)}" y1="${coord(ly)}" x2="${coord(lx - reach * Math.sin(az))}" y2="${coord(ly - reach * Math.cos(az))}" class="nominal"/>`,
       );
     }
   }
@@ -68,20 +66,20 @@ export function topViewSvg(input: TopViewInput): string {
     const colour = colourOf(speaker.id, input.layout);
     const shape =
       colour === COLOURS.lfe
-        ? `<rect x="${num(sx - 7, 1)}" y="${num(sy - 7, 1)}" width="14" height="14" fill="${colour}"/>`
+        ? `<rect x="${coord(sx - 7)}" y="${coord(sy - 7)}" width="14" height="14" fill="${colour}"/>`
         : colour === COLOURS.upper
-          ? `<path d="M${num(sx, 1)} ${num(sy - 8, 1)} l8 8 l-8 8 l-8 -8 z" fill="${colour}"/>`
-          : `<circle cx="${num(sx, 1)}" cy="${num(sy, 1)}" r="7" fill="${colour}"/>`;
+          ? `<path d="M${coord(sx)} ${coord(sy - 8)} l8 8 l-8 8 l-8 -8 z" fill="${colour}"/>`
+          : `<circle cx="${coord(sx)}" cy="${coord(sy)}" r="7" fill="${colour}"/>`;
     const labelY = sy < ly ? sy - 11 : sy + 20;
     parts.push(
-      `<g>${shape}<text x="${num(sx, 1)}" y="${num(labelY, 1)}" class="label">${esc(speaker.id)}</text></g>`,
+      `<g>${shape}<text x="${coord(sx)}" y="${coord(labelY)}" class="label">${esc(speaker.id)}</text></g>`,
     );
   }
   parts.push(
-    `<g class="listener"><circle cx="${num(lx, 1)}" cy="${num(ly, 1)}" r="9"/><path d="M${num(lx - 5, 1)} ${num(ly - 7, 1)} L${num(lx, 1)} ${num(ly - 15, 1)} L${num(lx + 5, 1)} ${num(ly - 7, 1)} z"/></g>`,
+    `<g class="listener"><circle cx="${coord(lx)}" cy="${coord(ly)}" r="9"/><path d="M${coord(lx - 5)} ${coord(ly - 7)} L${coord(lx)} ${coord(ly - 15)} L${coord(lx + 5)} ${coord(ly - 7)} z"/></g>`,
   );
   return [
-    `<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 ${num(w, 1)} ${num(h, 1)}" width="${num(w, 0)}" height="${num(h, 0)}" role="img" aria-label="Top view of the room with the listening position and every loudspeaker">`,
+    `<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 ${coord(w)} ${coord(h)}" width="${Math.round(w)}" height="${Math.round(h)}" role="img" aria-label="Top view of the room with the listening position and every loudspeaker">`,
     '<style>.room{fill:#fafaf7;stroke:#222;stroke-width:2}.wall{font:600 11px sans-serif;text-anchor:middle;fill:#444;text-transform:uppercase;letter-spacing:.1em}.scale{font:10px sans-serif;fill:#555}.ray{stroke:#9aa;stroke-width:1}.nominal{stroke:#c33;stroke-width:1;stroke-dasharray:4 3}.label{font:600 10px sans-serif;text-anchor:middle;fill:#111}.listener circle,.listener path{fill:#111}</style>',
     ...parts,
     '</svg>',

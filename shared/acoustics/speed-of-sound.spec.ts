@@ -7,7 +7,7 @@ describe('speedOfSoundMps', () => {
     expectWithin(speedOfSoundMps(20), 343.2, 1e-9, 'c(20 °C)');
   });
 
-  // REFERENCES §3: the textbook form 331.3·sqrt(1 + t/273.15) agrees within 0.005 %.
+  // The textbook form 331.3·sqrt(1 + t/273.15) agrees within 0.005 %.
   it('agrees with 331.3·sqrt(1 + t/273.15) within 0.005 % from −40 °C to +60 °C', () => {
     for (let t = -40; t <= 60; t += 2.5) {
       const textbook = 331.3 * Math.sqrt(1 + t / 273.15);

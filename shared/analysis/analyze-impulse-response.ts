@@ -52,7 +52,7 @@ export interface ImpulseResponseAnalysis {
 }
 
 export const DEFAULT_SMOOTHING_OCTAVES = 1 / 12;
-/** Speed of sound in air at 20 °C, `343.2·sqrt((t + 273.15)/293.15)` at t = 20 (REFERENCES §3). */
+/** Speed of sound in air at 20 °C, `343.2·sqrt((t + 273.15)/293.15)` at t = 20 (ISO 9613-1 form, as in the pyfar library). */
 export const DEFAULT_SPEED_OF_SOUND_MPS = 343.2;
 /** Output grid density of the frequency response: 48 points per octave. */
 const GRID_POINTS_PER_OCTAVE = 48;

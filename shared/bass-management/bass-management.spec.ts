@@ -16,7 +16,7 @@ describe('planBassManagement', () => {
     expect(plan.cautions[0].message).toContain('20.1 dB');
   });
 
-  // Common practice (REFERENCES §2): LR4 at 80 Hz on both sides; LR outputs are −6.02 dB at fc.
+  // Common practice: LR4 at 80 Hz on both sides; LR outputs are −6.02 dB at fc.
   it('defaults to LR4 at 80 Hz: high-passes and the subwoofer low-pass are −6.02 dB at 80 Hz', () => {
     const plan = planBassManagement({
       channels: [...managed(['M+030', 'M-030']), { id: 'M+000' }, { id: 'LFE1' }],
@@ -55,7 +55,7 @@ describe('planBassManagement', () => {
     expectWithin(referenceDb(input.lowPass!.sections, 100, 96000), MINUS_6_DB, 1e-9, 'own LP at 100 Hz');
   });
 
-  it('inverts the high-pass for an LR2 crossover (REFERENCES §2) and warns about high crossovers', () => {
+  it('inverts the high-pass for an LR2 crossover (S. H. Linkwitz, JAES 24(1), 1976; scipy.signal butter) and warns about high crossovers', () => {
     const plan = planBassManagement({
       crossover: { order: 2, frequencyHz: 150 },
       channels: managed(['M+030']),

@@ -6,7 +6,7 @@ import { alignDelays, DelayInput } from './align-delays';
 const C20 = 343.2;
 
 describe('alignDelays', () => {
-  // Trade rule of thumb (issue 2, common practice): one loudspeaker 0.5 ms late while the others are
+  // Trade rule of thumb (common practice): one loudspeaker 0.5 ms late while the others are
   // aligned → it becomes the reference with 0 and every other one gets +0.5 ms.
   it('gives +0.5 ms to every channel when one arrives 0.5 ms late', () => {
     const plan = alignDelays({

@@ -123,7 +123,7 @@ describe('designBiquad — Audio EQ Cookbook properties (W3C Working Group Note,
   });
 
   // Cookbook: BW is between −3 dB points for BPF and between midpoint (gain/2) points for peaking.
-  // The digital bandwidth mapping is an approximation (REFERENCES §1): measured here −0.41 % at
+  // The digital bandwidth mapping is an approximation (Audio EQ Cookbook, W3C Note 2021): measured here −0.41 % at
   // f0 = fs/12 and −1.06 % at fs/8 for 1 octave, so 0.5 % and 2 % are the stated tolerances.
   it('bandwidthOctaves matches the measured bandwidth (0.5 % below fs/12, 2 % up to fs/8)', () => {
     const edge = (s: ReturnType<typeof designBiquad>, fs: number, f0: number, level: number, up: boolean) => {

@@ -67,7 +67,7 @@ describe('butterworthQs', () => {
     },
   );
 
-  // REFERENCES §2: Q_k = 1/(2 sin((2k−1)π/(2N))); odd orders also have one first-order section.
+  // S. H. Linkwitz, JAES 24(1), 1976; scipy.signal butter: Q_k = 1/(2 sin((2k−1)π/(2N))); odd orders also have one first-order section.
   it('follows Q_k = 1/(2·sin((2k−1)π/(2N))) for every order 1..8', () => {
     for (let n = 1; n <= 8; n++) {
       const expected = Array.from(
@@ -192,7 +192,7 @@ describe('Linkwitz-Riley sections', () => {
     expect(linkwitzRileySections('lowPass', 8, 80, 48000)).toHaveLength(4);
   });
 
-  // REFERENCES §2: every LR order is −6.02 dB at fc for both outputs; LR2n = Butterworth n squared.
+  // S. H. Linkwitz, JAES 24(1), 1976; scipy.signal butter: every LR order is −6.02 dB at fc for both outputs; LR2n = Butterworth n squared.
   it('are −6.0206 dB at fc for both outputs and equal twice the Butterworth(N/2) magnitude in dB', () => {
     for (const fs of SAMPLE_RATES) {
       for (const fc of CROSSOVER_FREQUENCIES) {
@@ -216,7 +216,7 @@ describe('Linkwitz-Riley sections', () => {
     }
   });
 
-  // REFERENCES §2: slopes 12, 24 and 48 dB/octave (6.0206 dB per order per octave asymptotically).
+  // S. H. Linkwitz, JAES 24(1), 1976; scipy.signal butter: slopes 12, 24 and 48 dB/octave (6.0206 dB per order per octave asymptotically).
   // Measured five octaves above fc at 384 kHz, where neither the corner nor bilinear warping (0.1 % in
   // frequency) matter to ±0.05 dB.
   it('slopes are 12, 24 and 48 dB per octave (±0.05 dB, five octaves into the stop band)', () => {
@@ -229,7 +229,7 @@ describe('Linkwitz-Riley sections', () => {
 });
 
 describe('designCrossover', () => {
-  // REFERENCES §2: LP + (−1)^n·HP is an all-pass for LR2n, so the magnitude sum is flat; invert the
+  // S. H. Linkwitz, JAES 24(1), 1976; scipy.signal butter: LP + (−1)^n·HP is an all-pass for LR2n, so the magnitude sum is flat; invert the
   // high-pass for LR2, keep it for LR4 and LR8. The brief asks for ±0.01 dB.
   it.each([
     [2, 'inverted'],

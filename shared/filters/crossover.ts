@@ -100,7 +100,7 @@ export function linkwitzRileySections(
 
 /**
  * Designs a two-way crossover. `highPassPolarity` is `inverted` when order ≡ 2 (mod 4) and `normal`
- * otherwise: then `LP + (±)HP` is an all-pass for Linkwitz-Riley (flat magnitude sum, REFERENCES §2)
+ * otherwise: then `LP + (±)HP` is an all-pass for Linkwitz-Riley (flat magnitude sum, S. H. Linkwitz, JAES 24(1), 1976; scipy.signal butter)
  * and for odd Butterworth orders, while even Butterworth orders sum to +3.01 dB at the crossover
  * frequency instead of a null (warned as `sumNotFlat`).
  * @throws CalculationInputError naming `/family`, `/order` or `/frequencyHz`.

@@ -230,7 +230,7 @@ function checkPairRules(
  * Distance, azimuth and elevation of every loudspeaker seen from the listening position, and, with a
  * layout, the deviation from nominal and the ITU-R BS.2051-3 placement rules: permitted ranges per
  * loudspeaker, symmetry of pairs beyond ±45° within 10°, and in systems G, I and J 30°..60° between the
- * two middle-layer surrounds on one side (REFERENCES.md §4).
+ * two middle-layer surrounds on one side (ITU-R BS.2051-3).
  *
  * Throws CalculationInputError for a room dimension out of (0, 100] m, a listener or loudspeaker outside
  * the room, a repeated channel id, a loudspeaker closer than 0.1 m to the listener, an unknown layout.

@@ -141,7 +141,7 @@ describe('analyseGeometry — BS.2051 rules', () => {
     expect(u135.deviation!.elevationDeg).toBeCloseTo(10, 9);
   });
 
-  // BS.2051-3 system J row U+135 (REFERENCES.md §4 family of ranges): 100..150° azimuth. A top-back
+  // BS.2051-3 system J row U+135 (the standard's family of ranges): 100..150° azimuth. A top-back
   // loudspeaker 6° off nominal (the demo room's) stays inside its range, and the deviation says so.
   it('a top-back loudspeaker 6° off nominal reports a 6° deviation and stays within range', () => {
     const result = analyseGeometry(nominalRoom({ 'U-135': { azimuthDeg: -129, elevationDeg: 40 } }));
@@ -150,7 +150,7 @@ describe('analyseGeometry — BS.2051 rules', () => {
     expect(speaker.withinTolerance).toBe(true);
   });
 
-  // System J row M+090: 85..110° (REFERENCES.md §4). 112° is outside with no allowance, inside with 2°.
+  // System J row M+090: 85..110° (ITU-R BS.2051-3). 112° is outside with no allowance, inside with 2°.
   it('a side surround at 112° is out of range strictly, within the 2° allowance', () => {
     const strict = analyseGeometry(nominalRoom({ 'M+090': { azimuthDeg: 112 } }));
     expect(strict.speakers.find((s) => s.id === 'M+090')!.withinTolerance).toBe(false);
@@ -164,7 +164,7 @@ describe('analyseGeometry — BS.2051 rules', () => {
     expect(lenient.speakers.find((s) => s.id === 'M+090')!.withinTolerance).toBe(true);
   });
 
-  // Rule (REFERENCES.md §4): pairs beyond ±45° symmetric within 10°. M+135 at 135°, M−135 at −122°:
+  // Rule (ITU-R BS.2051-3): pairs beyond ±45° symmetric within 10°. M+135 at 135°, M−135 at −122°:
   // each inside 120..150°, but 13° from mirror symmetry.
   it('flags an asymmetric rear pair even when both are inside their ranges', () => {
     const result = analyseGeometry(nominalRoom({ 'M-135': { azimuthDeg: -122 } }));
@@ -176,7 +176,7 @@ describe('analyseGeometry — BS.2051 rules', () => {
     expect(within.warnings.some((w) => w.code === 'asymmetricPair')).toBe(false);
   });
 
-  // Rule (REFERENCES.md §4): in systems G, I and J the two middle-layer surrounds on one side are 30..60° apart.
+  // Rule (ITU-R BS.2051-3): in systems G, I and J the two middle-layer surrounds on one side are 30..60° apart.
   // M+090 at 105° and M+135 at 125° are both inside their ranges but only 20° apart.
   it('flags side and rear surrounds closer than 30° on one side', () => {
     const result = analyseGeometry(

@@ -7,7 +7,7 @@ import type { AngleRangeDeg, Layout, LayoutChannel, LayoutLayer, LayoutRules } f
  * Provenance of the numbers below:
  * - Nominal azimuth/elevation and permitted ranges were transcribed from the open data file of the
  *   EBU ADM renderer (github.com/ebu/ebu_adm_renderer, ear/core/data/2051_layouts.yaml), which encodes
- *   the standard's per-system tables, and checked against the excerpts in REFERENCES.md §4 (system J:
+ *   the standard's per-system tables, and checked against the published excerpts of ITU-R BS.2051-3 (system J:
  *   M±090 at ±85..±110°, U±045 at ±30..±45° azimuth and +30..+55° elevation). That file states it was
  *   derived from BS.2051-1; the values were not re-read in the -3 text itself.
  * - Table numbers: in BS.2051 one table per system follows the overview; the numbering used here
@@ -19,7 +19,7 @@ import type { AngleRangeDeg, Layout, LayoutChannel, LayoutLayer, LayoutRules } f
 
 const BS2051 = 'ITU-R BS.2051-3';
 
-/** The symmetry rule applies to every system: pairs beyond ±45° symmetric within 10° (REFERENCES.md §4). */
+/** The symmetry rule applies to every system: pairs beyond ±45° symmetric within 10° (ITU-R BS.2051-3). */
 const COMMON_RULES: LayoutRules = {
   symmetryAboveAzimuthDeg: 45,
   symmetryToleranceDeg: 10,

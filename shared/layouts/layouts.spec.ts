@@ -8,13 +8,13 @@ function channel(layoutKey: string, label: string) {
 }
 
 describe('BS.2051-3 layout tables', () => {
-  // Source: REFERENCES.md §4, excerpt of ITU-R BS.2051-3, system J (Table 11, number from memory).
+  // Source: ITU-R BS.2051-3, system J (Table 11, number from memory).
   it('system J, row M+090: side surround permitted at +85..+110° azimuth', () => {
     expect(channel('J', 'M+090').azimuthRangesDeg).toEqual([[85, 110]]);
     expect(channel('J', 'M-090').azimuthRangesDeg).toEqual([[-110, -85]]);
   });
 
-  // Source: REFERENCES.md §4 excerpt, system J: U±045 at ±30..±45° azimuth, +30..+55° elevation.
+  // Source: ITU-R BS.2051-3, system J: U±045 at ±30..±45° azimuth, +30..+55° elevation.
   it('system J, rows U+045/U-045: upper fronts at 30..45° azimuth and 30..55° elevation', () => {
     expect(channel('J', 'U+045')).toMatchObject({
       azimuthDeg: 45,
@@ -55,7 +55,7 @@ describe('BS.2051-3 layout tables', () => {
     expect(count('lfe')).toBe(2);
   });
 
-  // Source: REFERENCES.md §4 (the system names and the counting rule Upper+Middle+Bottom, LFE not counted).
+  // Source: ITU-R BS.2051-3 (the system names and the counting rule Upper+Middle+Bottom, LFE not counted).
   it.each(LAYOUTS.map((l) => [l.id, l] as const))(
     '%s: the name counts upper+middle+bottom loudspeakers',
     (_id, layout) => {
@@ -88,7 +88,7 @@ describe('BS.2051-3 layout tables', () => {
     },
   );
 
-  // Source: REFERENCES.md §4 — the 30°..60° side/rear surround rule applies in systems G, I and J only.
+  // Source: ITU-R BS.2051-3 — the 30°..60° side/rear surround rule applies in systems G, I and J only.
   it('the side-surround spacing rule is set for G, I and J and nowhere else', () => {
     const withRule = LAYOUTS.filter((l) => l.rules.sideSurroundSpacingDeg).map((l) => l.system);
     expect(withRule).toEqual(['G', 'I', 'J']);

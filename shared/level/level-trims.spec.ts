@@ -2,7 +2,7 @@ import { catchInputError, expectWithin } from '../filters/test-helpers';
 import { computeLevelTrims, LevelInput } from './level-trims';
 
 describe('computeLevelTrims', () => {
-  // REFERENCES §5: trim = target − measured.
+  // trim = target − measured (the definition of a trim, common practice).
   it('trims measured levels to a target', () => {
     const plan = computeLevelTrims({
       channels: [
@@ -19,7 +19,7 @@ describe('computeLevelTrims', () => {
     for (const c of plan.channels) expectWithin(c.expectedDb, 79, 1e-12, `${c.id} expected`);
     expect(plan.cautions.map((c) => c.code)).toEqual(['testSignalLevel', 'levelBoost']);
     expect(plan.cautions[1].message).toContain('M-030');
-    // Three uncorrelated channels at 79 dB: 79 + 10·log10(3) = 83.77 dB (REFERENCES §5).
+    // Three uncorrelated channels at 79 dB: 79 + 10·log10(3) = 83.77 dB (power sum of uncorrelated sources).
     expect(plan.cautions[0].message).toContain('83.77 dB');
   });
 
@@ -39,7 +39,7 @@ describe('computeLevelTrims', () => {
     expect(plan.cautions.map((c) => c.code)).toEqual(['testSignalLevel']);
   });
 
-  // ISO 21727 (excerpt, REFERENCES §5): LFE is set 10 dB above the other channels in band.
+  // ISO 21727:2016: LFE is set 10 dB above the other channels in band.
   it('honours per-channel target offsets, e.g. LFE +10 dB in band', () => {
     const plan = computeLevelTrims({
       channels: [
@@ -52,7 +52,7 @@ describe('computeLevelTrims', () => {
     expectWithin(plan.channels[1].expectedDb, 95, 1e-12, 'LFE level');
   });
 
-  // REFERENCES §5: inverse-square estimate L(r) = L(r0) − 20·log10(r/r0).
+  // Inverse-square law: estimate L(r) = L(r0) − 20·log10(r/r0).
   it('estimates from distance by the inverse-square law and flags the estimate', () => {
     const plan = computeLevelTrims({
       channels: [

@@ -27,7 +27,7 @@ function stage3Plan(overrides: Partial<PlanInput> = {}): PlanInput {
 }
 
 describe('alignSubwooferAtCrossover', () => {
-  // Linkwitz-Riley outputs are in phase at every frequency (REFERENCES.md §2): nothing to change.
+  // Linkwitz-Riley outputs are in phase at every frequency (S. H. Linkwitz, JAES 24(1), 1976; scipy.signal butter): nothing to change.
   it('LR4 low-pass against LR4 high-pass: normal polarity, no extra delay', () => {
     const x = designCrossover({ family: 'linkwitzRiley', order: 4, frequencyHz: 80 }, fs);
     const a = alignSubwooferAtCrossover(x.lowPass.sections, x.highPass.sections, x.highPassPolarity, 80, fs);
@@ -45,7 +45,7 @@ describe('alignSubwooferAtCrossover', () => {
     expect(a.correctionMs).toBeCloseTo(-3.125, 6);
   });
 
-  // An LR2 pair needs the high-pass inverted (REFERENCES.md §2). Told the mains run in normal polarity,
+  // An LR2 pair needs the high-pass inverted (S. H. Linkwitz, JAES 24(1), 1976; scipy.signal butter). Told the mains run in normal polarity,
   // the subwoofer is 180° out at fc and the suggestion is to invert it, with no delay change.
   it('LR2 with the mains left in normal polarity: invert the subwoofer', () => {
     const x = designCrossover({ family: 'linkwitzRiley', order: 2, frequencyHz: 80 }, fs);
@@ -60,7 +60,7 @@ describe('planRoom — the demo room Stage 3 end to end', () => {
   const plan = planRoom(stage3Plan());
   const byId = Object.fromEntries(plan.channels.map((c) => [c.id, c]));
 
-  // Speed of sound, REFERENCES.md §3: 343.2·√((21 + 273.15)/293.15) = 343.7849 m/s at 21 °C.
+  // Speed of sound, ISO 9613-1 form, as in the pyfar library: 343.2·√((21 + 273.15)/293.15) = 343.7849 m/s at 21 °C.
   it('uses the speed of sound at 21 °C', () => {
     expect(plan.speedOfSoundMps).toBeCloseTo(343.2 * Math.sqrt(294.15 / 293.15), 9);
   });
@@ -84,7 +84,7 @@ describe('planRoom — the demo room Stage 3 end to end', () => {
     }
   });
 
-  // trim = reference + offset − reading (REFERENCES.md §5); LFE read 10 dB above the reference (ISO 21727 85/95 dB).
+  // trim = reference + offset − reading (common practice); LFE read 10 dB above the reference (ISO 21727 85/95 dB).
   it('trims every channel to 79 dB, the LFE to 89 dB in band', () => {
     expect(byId['M+030'].trimDb).toBeCloseTo(79 - 80.6, 9);
     expect(byId['M+135'].trimDb).toBeCloseTo(79 - 83.1, 9);
@@ -92,14 +92,14 @@ describe('planRoom — the demo room Stage 3 end to end', () => {
     expect(plan.channels.every((c) => c.expectedDb !== null)).toBe(true);
   });
 
-  // Headroom (REFERENCES.md §2, issue 2 example): 11 managed channels + LFE at +10 dB → 20·log10(11 + 10^(10/20)).
+  // Headroom (coherent in-phase sum, 20·log10 of the summed amplitudes): 11 managed channels + LFE at +10 dB → 20·log10(11 + 10^(10/20)).
   it('bass-manages eleven channels at 80 Hz LR4 and reports the headroom the sum needs', () => {
     expect(plan.subwoofer?.headroomDb).toBeCloseTo(20 * Math.log10(11 + Math.pow(10, 0.5)), 9);
     expect(plan.subwoofer?.lfeGainDb).toBe(10);
     expect(plan.subwoofer?.channel).toBe('LFE1');
     const hp = byId['M+030'].highPass!;
     expect(hp).toMatchObject({ family: 'linkwitzRiley', order: 4, frequencyHz: 80, polarity: 'normal' });
-    // Every Linkwitz-Riley output is −6.02 dB at fc (REFERENCES.md §2).
+    // Every Linkwitz-Riley output is −6.02 dB at fc (S. H. Linkwitz, JAES 24(1), 1976; scipy.signal butter).
     const [atFc] = cascadeResponse(hp.sections, [80], fs).magnitudeDb;
     expect(atFc).toBeCloseTo(-6.0206, 3);
     const [lowAtFc] = cascadeResponse(plan.subwoofer!.lowPass.sections, [80], fs).magnitudeDb;

@@ -24,7 +24,7 @@ export interface SubwooferAlignment {
  * phase. When |Δ| > 90° the subwoofer's polarity is inverted instead (Δ + 180°), which needs the smaller
  * delay. Alignment at the one frequency where both contribute equally is common practice; the result
  * is a starting point to confirm by measuring the summed response around the crossover.
- * For a Linkwitz-Riley pair (both outputs in phase, REFERENCES.md §2) Δ = 0: normal polarity, no change.
+ * For a Linkwitz-Riley pair (both outputs in phase, S. H. Linkwitz, JAES 24(1), 1976; scipy.signal butter) Δ = 0: normal polarity, no change.
  *
  * @param lowPass the subwoofer low-pass sections.
  * @param highPass the mains' high-pass sections, with `highPassPolarity` their output polarity.

@@ -14,7 +14,7 @@ const post = poster(() => ctx, '/v1/crossovers');
 const postRaw = rawPoster(() => ctx, '/v1/crossovers');
 
 describe('POST /v1/crossovers', () => {
-  // REFERENCES §2: every LR order is −6.02 dB at fc on both outputs; LR4 keeps the high-pass polarity and sums flat.
+  // S. H. Linkwitz, JAES 24(1), 1976; scipy.signal butter: every LR order is −6.02 dB at fc on both outputs; LR4 keeps the high-pass polarity and sums flat.
   it('LR4 at 80 Hz: two sections per output, −6.02 dB at fc, normal polarity, flat sum', async () => {
     const res = await post({
       family: 'linkwitzRiley',

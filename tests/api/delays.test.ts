@@ -14,7 +14,7 @@ const post = poster(() => ctx, '/v1/delays');
 const postRaw = rawPoster(() => ctx, '/v1/delays');
 
 describe('POST /v1/delays', () => {
-  // Rule of thumb (issue 2, common practice): one loudspeaker 0.5 ms late → it gets 0, the others +0.5 ms.
+  // Rule of thumb (common practice): one loudspeaker 0.5 ms late → it gets 0, the others +0.5 ms.
   it('one channel 0.5 ms late: it is the reference and every other channel gets +0.5 ms (24 samples at 48 kHz)', async () => {
     const res = await post({
       channels: [

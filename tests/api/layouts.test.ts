@@ -22,7 +22,7 @@ describe('GET /v1/layouts', () => {
     const byName = Object.fromEntries(
       res.body.data.map((l: { name: string; system: string | null }) => [l.name, l.system]),
     );
-    // Source: REFERENCES.md §4 — the BS.2051-3 system names A 0+2+0 … J 4+7+0.
+    // Source: ITU-R BS.2051-3 — the BS.2051-3 system names A 0+2+0 … J 4+7+0.
     expect(byName).toMatchObject({
       '0+2+0': 'A',
       '0+5+0': 'B',
@@ -42,7 +42,7 @@ describe('GET /v1/layouts', () => {
 });
 
 describe('GET /v1/layouts/{layoutId}', () => {
-  // Source: REFERENCES.md §4 excerpt of BS.2051-3 system J (Table 11, number from memory): U±045 30..45° / 30..55°.
+  // Source: ITU-R BS.2051-3, system J (Table 11, number from memory): U±045 30..45° / 30..55°.
   it.each(['7.1.4', '4%2B7%2B0', '4+7+0', 'bs2051-j', 'J'])(
     '%s → system J with the U+045 row of the standard',
     async (key) => {

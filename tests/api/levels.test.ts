@@ -15,7 +15,7 @@ const post = poster(() => ctx, '/v1/levels');
 const postRaw = rawPoster(() => ctx, '/v1/levels');
 
 describe('POST /v1/levels', () => {
-  // REFERENCES §5: trim = target − measured; LFE +10 dB in band (ISO 21727 excerpt). Demo readings are invented.
+  // trim = target − measured (common practice); LFE +10 dB in band (ISO 21727:2016). Demo readings are invented.
   it('trims the Stage 3 demo readings to 79 dB with LFE +10 dB in band', async () => {
     const channels = Object.entries(STAGE3_SPL_DB).map(([id, measuredDb]) => ({
       id,
@@ -56,7 +56,7 @@ describe('POST /v1/levels', () => {
     expect(res.body.channels.every((c: { trimDb: number }) => c.trimDb <= 0)).toBe(true);
   });
 
-  // Inverse square law (REFERENCES §5): doubling the distance is −20·log10(2) = −6.02 dB.
+  // Inverse-square law: doubling the distance is −20·log10(2) = −6.02 dB.
   it('estimates from distance, flagged estimated, and clamps to the trim range with a warning', async () => {
     const res = await post({
       channels: [

@@ -40,7 +40,7 @@ describe('POST /v1/plans', () => {
     expectToMatchContract('createPlan', 200, res.body);
     expect(res.body.layout.id).toBe('bs2051-j');
     expect(res.body.channels).toHaveLength(12);
-    const c = 343.2 * Math.sqrt(294.15 / 293.15); // REFERENCES.md §3 at 21 °C
+    const c = 343.2 * Math.sqrt(294.15 / 293.15); // ISO 9613-1 form, as in the pyfar library at 21 °C
     // Hand computation from the demo coordinates: rear surround M-135 at √(1.8² + 1.8²) = 2.54558 m,
     // the subwoofer at 3.65582 m → (3.65582 − 2.54558)/c = 3.2295 ms, 155 samples at 48 kHz.
     const rear = res.body.channels.find((ch: { id: string }) => ch.id === 'M-135');

@@ -56,7 +56,7 @@ describe('creating tunings', () => {
     expect(res.headers.location).toBe(`/v1/tunings/${managedId}`);
     expect(res.body).toMatchObject({ version: 1, latestVersion: 1, origin: 'plan', roomId });
     const left = res.body.channels.find((c: { id: string }) => c.id === 'M+030');
-    // Hand computation (demo coordinates, c at 21 °C per REFERENCES.md §3): (3.65582 − 3.11827) m / 343.785 m/s.
+    // Hand computation (demo coordinates, c at 21 °C per ISO 9613-1 form, as in the pyfar library): (3.65582 − 3.11827) m / 343.785 m/s.
     const c = 343.2 * Math.sqrt(294.15 / 293.15);
     expect(left.delayMs).toBeCloseTo(
       ((Math.sqrt(2.15 ** 2 + 2.8 ** 2 + 0.95 ** 2) - Math.sqrt(1.56 ** 2 + 2.7 ** 2)) / c) * 1000,
@@ -195,7 +195,7 @@ describe('versions, duplicate and compare', () => {
     expect((await dev().get(`/v1/tunings/${fullRangeId}`)).body.latestVersion).toBe(3);
   });
 
-  // Linkwitz-Riley LR4 high-pass = Butterworth-2 squared (REFERENCES.md §2); analogue magnitude of BW2 at
+  // Linkwitz-Riley LR4 high-pass = Butterworth-2 squared (S. H. Linkwitz, JAES 24(1), 1976; scipy.signal butter); analogue magnitude of BW2 at
   // f/fc = 1/4 is (1/4)^4/(1 + (1/4)^4) → 10·log10(1/257) = −24.10 dB, so LR4 is −48.20 dB at 20 Hz.
   it('compare: bass-managed against full range differs at 20 Hz by the LR4 attenuation', async () => {
     await dev().patch(`/v1/tunings/${fullRangeId}`, {
