@@ -1,7 +1,7 @@
 import { CalculationInputError } from './errors';
+import { MAX_CHANNELS } from './limits';
 
-/** Most channels one calculation accepts. */
-export const MAX_CHANNELS = 128;
+export { MAX_CHANNELS };
 
 /**
  * Checks a request's channel list: 1 to 128 entries, each with a non-empty `id` (the channel's

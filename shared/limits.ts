@@ -1,8 +1,11 @@
 /**
- * Every bound and default that the contract, the calculation core, the API and the console share,
- * written once. Each entry uses JSON Schema's keyword names; a schema in `openapi/` that carries a
- * bound names its entry with `x-limit: <name>`, and `tests/contract/limits.test.ts` checks that every
- * bound in the contract equals the entry it names (and that no bound goes without one).
+ * Every bound and default of the contract, written once, for the calculation core, the API and the
+ * console alike. Keys name where a bound sits in `openapi/`: a property or parameter name
+ * (`temperatureC`), or `Schema.property` where one name has different bounds in different places;
+ * `name[]` bounds each item of an array, `Schema|type` one alternative of a `oneOf`. Values use JSON
+ * Schema's keyword names. `tests/contract/limits.test.ts` checks that every bound in the contract
+ * equals its entry here and that no entry is left over, so changing a limit means changing it here
+ * and in the contract together.
  */
 export interface Bound {
   minimum?: number;
@@ -16,26 +19,159 @@ export interface Bound {
   default?: number | string | boolean;
 }
 
-const MiB = 1024 * 1024;
-
-/** Most channels (loudspeaker feeds) one request may carry. */
+/** Lowest and highest processor sample rates the calculations accept, in hertz. */
+export const SAMPLE_RATE_MIN_HZ = 8000;
+export const SAMPLE_RATE_MAX_HZ = 384000;
+const SAMPLE_RATE_RANGE_HZ = { minimum: SAMPLE_RATE_MIN_HZ, maximum: SAMPLE_RATE_MAX_HZ };
+/** The sample rate used when a request gives none (the common rate of studio processors). */
+export const DEFAULT_SAMPLE_RATE_HZ = 48000;
+/** Most channels (loudspeaker feeds) one request, room or tuning may carry. */
 export const MAX_CHANNELS = 128;
-/** Most EQ sections one channel or one `/v1/biquads` request may carry. */
+/** Most EQ sections per channel, and per `/v1/biquads` request. */
 export const MAX_EQ_BANDS = 64;
+/** Highest frequency a filter or a response point may name, in hertz (Nyquist of 384 kHz). */
+export const MAX_FREQUENCY_HZ = 192000;
+/** Air temperature range, °C. */
+const TEMPERATURE_RANGE_C = { minimum: -40, maximum: 60 };
+/** Most points of a measured response sent to `/v1/eq/fit`. */
+export const MAX_FIT_POINTS = 16384;
+/** Most points of a stored frequency-response measurement. */
+export const MAX_MEASURED_POINTS = 100000;
+/** Most frequencies of a response grid a calculation evaluates. */
+export const MAX_RESPONSE_POINTS = 4096;
+/** Longest name of a room, tuning, key, measurement or user. */
+export const NAME_MAX_LENGTH = 120;
+/** Longest channel label or microphone position. */
+export const LABEL_MAX_LENGTH = 32;
 
 export const LIMITS = {
-  sampleRateHz: { minimum: 8000, maximum: 384000, default: 48000 },
+  'acceptInvitation.password': { minLength: 12, maxLength: 256 },
+  AngleRange: { minItems: 2, maxItems: 2 },
+  angleToleranceDeg: { minimum: 0, maximum: 15, default: 2 },
+  arrivalMs: { minimum: 0, maximum: 1000 },
+  bandwidthOctaves: { minimum: 0.01, maximum: 8 },
+  'BassManagementRequest.lfeGainDb': { minimum: -40, maximum: 20, default: 10 },
+  ChannelLabel: { minLength: 1, maxLength: LABEL_MAX_LENGTH },
   channels: { minItems: 1, maxItems: MAX_CHANNELS },
-  eqBands: { maxItems: MAX_EQ_BANDS },
+  cornerHz: { minimum: 10, maximum: 2000 },
+  count: { minimum: 0 },
+  crossoverHz: { minimum: 1, maximum: MAX_FREQUENCY_HZ, default: 80 },
+  crossoverOrder: { minimum: 1, maximum: 8, default: 4 },
+  dbPerOctave: { minimum: -6, maximum: 6 },
+  delayMaxMs: { minimum: 0, maximum: 10000 },
+  delayMs: { minimum: 0, maximum: 1000 },
+  delaySamples: { minimum: 0 },
+  'DelaysRequest.temperatureC': { ...TEMPERATURE_RANGE_C },
+  'Distance|number': { maximum: 1000, exclusiveMinimum: 0 },
+  'Distance|string': { minLength: 1, maxLength: 40 },
+  'duplicateTuning.name': { minLength: 1, maxLength: NAME_MAX_LENGTH },
+  eq: { maxItems: MAX_EQ_BANDS },
+  eqBandsPerChannel: { minimum: 0, maximum: MAX_EQ_BANDS },
+  'EqFitRequest.fromHz': { minimum: 1, maximum: MAX_FREQUENCY_HZ },
+  'EqFitRequest.toHz': { minimum: 1, maximum: MAX_FREQUENCY_HZ },
+  eqMaxCutDb: { minimum: 0, maximum: 48 },
+  errorCount: { minimum: 0 },
+  fileChannel: { minimum: 0, maximum: 127 },
+  filters: { minItems: 1, maxItems: MAX_EQ_BANDS },
+  'FilterSpec.gainDb': { minimum: -48, maximum: 24 },
+  frequencyHz: { minimum: 1, maximum: MAX_FREQUENCY_HZ },
+  headroomDb: { minimum: 0, maximum: 100 },
+  headroomWarningDb: { minimum: 0, maximum: 60, default: 12 },
+  heightM: { maximum: 100, exclusiveMinimum: 0 },
+  'ImpulseResponseUpload.channel': { minimum: 0, maximum: 127 },
+  'ImpulseResponseUpload.temperatureC': { ...TEMPERATURE_RANGE_C, default: 20 },
+  'inviteUser.email': { maxLength: 254 },
+  'inviteUser.name': { minLength: 1, maxLength: NAME_MAX_LENGTH },
+  KeyName: { minLength: 1, maxLength: NAME_MAX_LENGTH },
+  KeyRateLimit: { minimum: 1, maximum: 1000000 },
+  layout: { minLength: 1, maxLength: LABEL_MAX_LENGTH },
+  leftVersion: { minimum: 1 },
+  lengthM: { maximum: 100, exclusiveMinimum: 0 },
+  levelAt1mDb: { minimum: -150, maximum: 150 },
+  limit: { minimum: 1, maximum: 100, default: 20 },
+  'Limits.eqMaxBoostDb': { minimum: 0, maximum: 24 },
+  'magnitudeDb[]': { minimum: -300, maximum: 300 },
+  'MagnitudeResponse.frequenciesHz': { minItems: 2, maxItems: MAX_FIT_POINTS },
+  'MagnitudeResponse.frequenciesHz[]': { maximum: MAX_FREQUENCY_HZ, exclusiveMinimum: 0 },
+  'MagnitudeResponse.magnitudeDb': { minItems: 2, maxItems: MAX_FIT_POINTS },
+  max: { minimum: 0.025, maximum: 100 },
+  maxBands: { minimum: 0, maximum: MAX_EQ_BANDS },
+  maxBoostDb: { minimum: 0, maximum: 24, default: 0 },
+  maxCutDb: { minimum: 0, maximum: 48, default: 12 },
+  measuredDb: { minimum: -150, maximum: 150 },
+  'MeasurementCreate|object.frequenciesHz': { minItems: 2, maxItems: MAX_MEASURED_POINTS },
+  'MeasurementCreate|object.magnitudeDb': { minItems: 2, maxItems: MAX_MEASURED_POINTS },
+  'MeasurementCreate|object.micPosition': { minLength: 1, maxLength: LABEL_MAX_LENGTH },
+  'MeasurementCreate|object.name': { minLength: 1, maxLength: NAME_MAX_LENGTH },
+  'MeasurementCreate|object.notes': { maxLength: 2000 },
+  'MeasurementUpload.channel': { minLength: 1, maxLength: LABEL_MAX_LENGTH },
+  'MeasurementUpload.micPosition': { minLength: 1, maxLength: LABEL_MAX_LENGTH, default: '1' },
+  'MeasurementUpload.name': { minLength: 1, maxLength: NAME_MAX_LENGTH },
+  'MeasurementUpload.notes': { maxLength: 2000 },
+  'MeasurementUpload.temperatureC': { ...TEMPERATURE_RANGE_C, default: 20 },
+  min: { minimum: 0.025, maximum: 100 },
+  'name|string': { minLength: 1, maxLength: NAME_MAX_LENGTH },
+  order: { minimum: 1, maximum: 8 },
+  phaseDeg: { minItems: 2, maxItems: MAX_MEASURED_POINTS },
+  pivotHz: { minimum: 10, maximum: 20000 },
+  'PlanRequest.temperatureC': { ...TEMPERATURE_RANGE_C },
+  'PlanTargets.eqMaxBoostDb': { minimum: 0, maximum: 24, default: 0 },
+  'PlanTargets.lfeGainDb': { minimum: -40, maximum: 20, default: 10 },
+  pointsPerOctave: { minimum: 1, maximum: 96 },
+  q: { minimum: 0.025, maximum: 100 },
+  referenceDb: { minimum: -150, maximum: 150 },
+  removeChannels: { maxItems: MAX_CHANNELS },
+  'removeChannels[]': { maxLength: 32 },
+  'ResponseGrid|object.frequenciesHz': { minItems: 1, maxItems: MAX_RESPONSE_POINTS },
+  'ResponseGrid|object.frequenciesHz[]': { exclusiveMinimum: 0 },
+  'ResponseGrid|object.fromHz': { exclusiveMinimum: 0 },
+  'ResponseGrid|object.toHz': { exclusiveMinimum: 0 },
+  rightVersion: { minimum: 1 },
+  'RoomCreate.name': { minLength: 1, maxLength: NAME_MAX_LENGTH },
+  'RoomCreate.notes': { maxLength: 4000 },
+  roomHeightM: { minimum: 0.5, maximum: 200 },
+  roomLengthM: { minimum: 0.5, maximum: 200 },
+  'RoomLoudspeaker.name': { maxLength: NAME_MAX_LENGTH },
+  RoomLoudspeakers: { minItems: 1, maxItems: MAX_CHANNELS },
+  'RoomUpdate.name': { minLength: 1, maxLength: NAME_MAX_LENGTH },
+  'RoomUpdate.notes': { maxLength: 4000 },
+  roomWidthM: { minimum: 0.5, maximum: 200 },
+  route: { minLength: 1, maxLength: NAME_MAX_LENGTH },
+  sampleRateHz: { ...SAMPLE_RATE_RANGE_HZ },
+  SampleRateHz: { ...SAMPLE_RATE_RANGE_HZ, default: DEFAULT_SAMPLE_RATE_HZ },
+  shelfSlope: { minimum: 0.01, maximum: 1 },
+  'signIn.email': { minLength: 1, maxLength: 254 },
+  'signIn.password': { minLength: 1, maxLength: 1024 },
+  smoothingOctaves: { minimum: 0.0208, maximum: 1, default: 1 / 12 },
+  speakers: { minItems: 1, maxItems: MAX_CHANNELS },
+  speedOfSoundMps: { minimum: 300, maximum: 400 },
+  splDb: { minimum: 0, maximum: 150 },
+  subwooferCount: { minimum: 1, maximum: 16, default: 1 },
+  'TargetCurve|object.gainDb': { minimum: -20, maximum: 20 },
+  targetDb: { minimum: -150, maximum: 150 },
+  targetOffsetDb: { minimum: -40, maximum: 40 },
+  text: { minLength: 1, maxLength: 1000000 },
+  token: { minLength: 1, maxLength: 128 },
+  trimDb: { minimum: -60, maximum: 24 },
+  trimMaxDb: { minimum: 0, maximum: 40 },
+  trimMinDb: { minimum: -100, maximum: 0 },
+  'TuningChannelInput.name': { maxLength: NAME_MAX_LENGTH },
+  TuningChannelInputs: { maxItems: MAX_CHANNELS },
+  'TuningCreate.name': { minLength: 1, maxLength: NAME_MAX_LENGTH },
+  'TuningCreate.notes': { maxLength: 4000 },
+  'TuningCreate.temperatureC': { ...TEMPERATURE_RANGE_C },
+  'TuningSubwoofer.lfeGainDb': { minimum: -20, maximum: 20 },
+  'TuningUpdate.name': { minLength: 1, maxLength: NAME_MAX_LENGTH },
+  'TuningUpdate.notes': { maxLength: 4000 },
+  version: { minimum: 1 },
+  widthM: { maximum: 100, exclusiveMinimum: 0 },
+  x: { minimum: -1000, maximum: 1000 },
+  y: { minimum: -1000, maximum: 1000 },
+  z: { minimum: -1000, maximum: 1000 },
 } as const satisfies Record<string, Bound>;
 
-/** The sample rate used when a request gives none (the common rate of studio processors). */
-export const DEFAULT_SAMPLE_RATE_HZ = LIMITS.sampleRateHz.default;
-export const SAMPLE_RATE_MIN_HZ = LIMITS.sampleRateHz.minimum;
-export const SAMPLE_RATE_MAX_HZ = LIMITS.sampleRateHz.maximum;
-
-/** Largest uploaded file (a WAV impulse response or a text frequency response), bytes. */
-export const MAX_UPLOAD_BYTES = 20 * MiB;
+/** Largest uploaded file (a WAV impulse response or a text frequency response), bytes (20 MiB). */
+export const MAX_UPLOAD_BYTES = 20 * 1024 * 1024;
 
 /** multer's limits for one uploaded file and a few short text fields. */
 export const UPLOAD_LIMITS = {

@@ -1,4 +1,5 @@
 import { requireInRange, requireInteger, withFieldPrefix } from '../errors';
+import { MAX_EQ_BANDS } from '../limits';
 import type { Caution, CalculationWarning } from '../notices';
 import { DEFAULT_SAMPLE_RATE_HZ, requireSampleRate } from '../units/sample-rate';
 import { designBiquads, type BiquadSection, type FilterSpec } from './biquad-design';
@@ -21,7 +22,7 @@ export interface FilterSet {
 }
 
 /** Most filters one request may hold. */
-export const MAX_FILTERS = 64;
+export const MAX_FILTERS = MAX_EQ_BANDS;
 
 /**
  * Designs a cascade of cookbook filters (see designBiquad) at `sampleRateHz` (48000 when absent),

@@ -1,4 +1,5 @@
 import { CalculationInputError, requireInRange, requireInteger } from '../errors';
+import { MAX_RESPONSE_POINTS } from '../limits';
 import { requireSampleRate } from '../units/sample-rate';
 import type { BiquadSection } from './biquad-design';
 
@@ -19,7 +20,7 @@ export type ResponseGridSpec =
   { frequenciesHz: number[] } | { fromHz: number; toHz: number; pointsPerOctave?: number };
 
 export const MAGNITUDE_LIMIT_DB = 300;
-export const MAX_RESPONSE_POINTS = 4096;
+export { MAX_RESPONSE_POINTS };
 export const DEFAULT_POINTS_PER_OCTAVE = 12;
 
 /** Below this distance from 1, a root's radius counts as on the unit circle (see groupDelayOfRoot). */

@@ -1,13 +1,11 @@
 import { requireInRange } from '../errors';
+import { DEFAULT_SAMPLE_RATE_HZ, SAMPLE_RATE_MAX_HZ, SAMPLE_RATE_MIN_HZ } from '../limits';
 
-/** Lowest and highest processor sample rates the calculations accept, in hertz. */
-export const SAMPLE_RATE_MIN_HZ = 8000;
-export const SAMPLE_RATE_MAX_HZ = 384000;
-/** The sample rate used when a request gives none (the common rate of studio processors). */
-export const DEFAULT_SAMPLE_RATE_HZ = 48000;
+export { DEFAULT_SAMPLE_RATE_HZ, SAMPLE_RATE_MAX_HZ, SAMPLE_RATE_MIN_HZ };
 
 /**
- * Checks a sample rate in hertz against 8 kHz..384 kHz and returns it.
+ * Checks a sample rate in hertz against 8 kHz..384 kHz and returns it. For callers outside the API
+ * (the contract already checks every request); the calculations themselves only check physics.
  * @param field JSON-pointer-like path used in the error.
  */
 export function requireSampleRate(sampleRateHz: unknown, field = '/sampleRateHz'): number {

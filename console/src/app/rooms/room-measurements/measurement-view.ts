@@ -1,3 +1,10 @@
+import {
+  LABEL_MAX_LENGTH,
+  LIMITS,
+  MAX_FIT_POINTS,
+  MAX_FREQUENCY_HZ,
+  MAX_UPLOAD_BYTES,
+} from '../../../../../shared/limits';
 import { formatQuantity } from '../../format/format';
 import type { ChartSeries, ChartSpec } from '../../ui/chart/chart-spec';
 import { formatFrequency } from '../../ui/chart/frequency-ticks';
@@ -10,12 +17,11 @@ import type {
   RoomMode,
 } from './measurement.model';
 
-/** The API's caps on an upload (openapi/paths/measurements.yaml) and on a fitted response (eq-fit.yaml). */
-export const MAX_UPLOAD_BYTES = 20 * 1024 * 1024;
-export const MAX_MIC_POSITION_LENGTH = 32;
-const MAX_FIT_POINTS = 16384;
-const MAX_FIT_DB = 300;
-const MAX_FIT_HZ = 192000;
+/** The API's caps on an upload and on a fitted response, from the one limits module the contract is checked against. */
+export { MAX_UPLOAD_BYTES };
+export const MAX_MIC_POSITION_LENGTH = LABEL_MAX_LENGTH;
+const MAX_FIT_DB = LIMITS['magnitudeDb[]'].maximum;
+const MAX_FIT_HZ = MAX_FREQUENCY_HZ;
 
 const SHORT_KIND_LABELS: Record<MeasurementKind, string> = {
   impulseResponse: 'IR',
