@@ -8,7 +8,7 @@ import {
 } from '../filters/crossover';
 import type { BiquadSection } from '../filters/biquad-design';
 import type { Caution, CalculationWarning } from '../notices';
-import { DEFAULT_SAMPLE_RATE_HZ, requireSampleRate } from '../units/sample-rate';
+import { DEFAULT_SAMPLE_RATE_HZ } from '../units/sample-rate';
 
 /** Common practice: Linkwitz-Riley 4th order (24 dB/octave) at 80 Hz on both sides. */
 export const DEFAULT_BASS_CROSSOVER: CrossoverSpec = { family: 'linkwitzRiley', order: 4, frequencyHz: 80 };
@@ -99,7 +99,7 @@ export interface BassManagementPlan {
  */
 export function planBassManagement(input: BassManagementInput): BassManagementPlan {
   const channels = requireChannelList(input.channels);
-  const fs = requireSampleRate(input.sampleRateHz ?? DEFAULT_SAMPLE_RATE_HZ);
+  const fs = input.sampleRateHz ?? DEFAULT_SAMPLE_RATE_HZ;
   const lfeGainDb = requireInRange(
     input.lfeGainDb ?? DEFAULT_LFE_GAIN_DB,
     { min: -40, max: 20, unit: 'dB' },

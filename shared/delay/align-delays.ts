@@ -3,7 +3,7 @@ import { requireChannelList } from '../channel-list';
 import { CalculationInputError, requireInRange } from '../errors';
 import type { CalculationWarning } from '../notices';
 import { parseDistanceM, type DistanceInput } from '../units/distance';
-import { DEFAULT_SAMPLE_RATE_HZ, requireSampleRate } from '../units/sample-rate';
+import { DEFAULT_SAMPLE_RATE_HZ } from '../units/sample-rate';
 
 /** Longest measured arrival accepted, in ms (about 340 m of travel). */
 export const ARRIVAL_MAX_MS = 1000;
@@ -65,7 +65,7 @@ export interface DelayPlan {
 export function alignDelays(input: DelayInput): DelayPlan {
   const channels = requireChannelList(input.channels);
   const speed = resolveSpeedOfSound(input);
-  const fs = requireSampleRate(input.sampleRateHz ?? DEFAULT_SAMPLE_RATE_HZ);
+  const fs = input.sampleRateHz ?? DEFAULT_SAMPLE_RATE_HZ;
   const delayMaxMs =
     input.limits?.delayMaxMs === undefined
       ? undefined

@@ -39,8 +39,6 @@ describe('designFilterSet', () => {
   });
 
   it.each([
-    [{ filters: [] }, '/filters'],
-    [{ filters: new Array(65).fill({ type: 'notch', frequencyHz: 50 }) }, '/filters'],
     [
       {
         filters: [
@@ -58,7 +56,6 @@ describe('designFilterSet', () => {
       { filters: [{ type: 'notch', frequencyHz: 50 }], limits: { eqBandsPerChannel: -1 } },
       '/limits/eqBandsPerChannel',
     ],
-    [{ filters: [{ type: 'notch', frequencyHz: 50 }], sampleRateHz: 0 }, '/sampleRateHz'],
   ])('refuses %j, naming %s', (input, field) => {
     expect(catchInputError(() => designFilterSet(input as never)).field).toBe(field);
   });

@@ -1,7 +1,7 @@
 import { requireInRange, requireInteger, withFieldPrefix } from '../errors';
 import { MAX_EQ_BANDS } from '../limits';
 import type { Caution, CalculationWarning } from '../notices';
-import { DEFAULT_SAMPLE_RATE_HZ, requireSampleRate } from '../units/sample-rate';
+import { DEFAULT_SAMPLE_RATE_HZ } from '../units/sample-rate';
 import { designBiquads, type BiquadSection, type FilterSpec } from './biquad-design';
 import { frequencyResponse, type FrequencyResponse, type ResponseGridSpec } from './response';
 
@@ -32,9 +32,9 @@ export const MAX_FILTERS = MAX_EQ_BANDS;
  * @throws CalculationInputError naming the field (`/filters/2/frequencyHz`, `/response/toHz`, ...).
  */
 export function designFilterSet(input: FilterSetInput): FilterSet {
-  const fs = requireSampleRate(input.sampleRateHz ?? DEFAULT_SAMPLE_RATE_HZ);
+  // The contract has checked the sample rate and the number of filters; the core checks physics only.
+  const fs = input.sampleRateHz ?? DEFAULT_SAMPLE_RATE_HZ;
   const filters = input.filters;
-  requireInteger(filters?.length, { min: 1, max: MAX_FILTERS }, 'the number of filters', '/filters');
   const sections = designBiquads(filters, fs);
   const response =
     input.response === undefined

@@ -20,7 +20,7 @@ import { requireLayout } from '../layouts';
 import { computeLevelTrims } from '../level/level-trims';
 import type { Caution, CalculationWarning } from '../notices';
 import type { DistanceInput } from '../units/distance';
-import { DEFAULT_SAMPLE_RATE_HZ, requireSampleRate } from '../units/sample-rate';
+import { DEFAULT_SAMPLE_RATE_HZ } from '../units/sample-rate';
 import { planCautions } from './plan-cautions';
 import { alignSubwooferAtCrossover } from './subwoofer-alignment';
 
@@ -173,7 +173,7 @@ function positionsOf(input: PlanInput): Map<number, { distanceM: number }> {
  */
 export function planRoom(input: PlanInput): RoomPlan {
   const layout = requireLayout(input.layout, '/layout');
-  const fs = requireSampleRate(input.sampleRateHz ?? DEFAULT_SAMPLE_RATE_HZ);
+  const fs = input.sampleRateHz ?? DEFAULT_SAMPLE_RATE_HZ;
   requireUniqueIds(input.channels, '/channels');
   const positioned = positionsOf(input);
   const warnings: CalculationWarning[] = [];

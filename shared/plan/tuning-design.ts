@@ -2,7 +2,6 @@ import type { BiquadSection } from '../filters/biquad-design';
 import { designBiquads } from '../filters/biquad-design';
 import { designCrossover, type Polarity } from '../filters/crossover';
 import { withFieldPrefix } from '../errors';
-import { requireSampleRate } from '../units/sample-rate';
 import type { TuningSettings } from './tuning';
 
 export interface DesignedSection extends BiquadSection {
@@ -37,7 +36,7 @@ export interface DesignedTuning {
  *   naming `/channels/i/eq/j/frequencyHz`.
  */
 export function designTuning(settings: TuningSettings, sampleRateHz: number): DesignedTuning {
-  const fs = requireSampleRate(sampleRateHz);
+  const fs = sampleRateHz;
   const sub = settings.subwoofer;
   return {
     sampleRateHz: fs,

@@ -2,7 +2,6 @@ import { CalculationInputError, requireInRange, withFieldPrefix } from '../error
 import { designBiquads, type FilterSpec } from '../filters/biquad-design';
 import { designCrossover, type CrossoverSpec, type Polarity } from '../filters/crossover';
 import { requireUniqueIds } from '../geometry/analyse-geometry';
-import { requireSampleRate } from '../units/sample-rate';
 
 export type { CrossoverSpec } from '../filters/crossover';
 
@@ -60,7 +59,7 @@ function checkCrossover(spec: CrossoverSpec, sampleRateHz: number, field: string
  * to the settings object (`/channels/3/eq/1/q`).
  */
 export function checkTuningSettings(settings: TuningSettings): void {
-  const fs = requireSampleRate(settings.sampleRateHz);
+  const fs = settings.sampleRateHz;
   requireUniqueIds(settings.channels, '/channels');
   settings.channels.forEach((channel, i) => {
     const at = `/channels/${i}`;
