@@ -38,6 +38,7 @@ function analyseUpload(
   const { sampleRateHz, channelCount, channelIndex, encoding, durationS } = wav;
   return {
     ...analysis,
+    warnings: [...wav.warnings, ...analysis.warnings],
     file: { sizeBytes: file.size, sampleRateHz, channelCount, channelIndex, encoding, durationS },
   };
 }

@@ -129,13 +129,17 @@ export type paths = {
          * @description Upload one impulse response as `multipart/form-data` with the WAV file in the field `file`. Nothing is
          *     stored.
          *
-         *     **Files accepted.** RIFF/RIFX WAV, PCM 16, 24 or 32-bit integer or 32-bit float (plain or
-         *     WAVE_FORMAT_EXTENSIBLE), 44.1–192 kHz, mono or multichannel — give `channel` (0-based) to pick one
-         *     channel of a multichannel file. Caps: **20 MiB** per file (413 above it) and **30 s** of audio. An
-         *     empty, truncated, non-WAV, unsupported, too long or silent file (peak below −120 dBFS) is refused with
-         *     a 422 problem of type `unusable-audio` whose `reason` says which (`emptyFile`, `notWav`, `truncated`,
-         *     `unsupportedEncoding`, `unsupportedSampleRate`, `tooLong`, `tooShort`, `channelRequired`,
-         *     `channelOutOfRange`, `invalidSamples`, `silent`).
+         *     **Files accepted.** RIFF/RIFX WAV (and RF64/BW64 with 64-bit sizes), PCM 16, 24 or 32-bit integer or
+         *     32-bit float (plain or WAVE_FORMAT_EXTENSIBLE), 44.1–192 kHz, mono or multichannel — give `channel`
+         *     (0-based) to pick one channel of a multichannel file. Caps: **20 MiB** per file (413 above it) and
+         *     **30 s** of audio. The chunk list is walked with every size checked against the file; only `fmt ` and
+         *     `data` are decoded, and the counts declared in `cue `, `smpl`, `LIST`, `inst`, `bext` and `fact`
+         *     chunks must fit their chunk. Float samples may exceed full scale up to ±1000 (+60 dBFS; a warning
+         *     `aboveFullScale` says so, the values are not clipped); beyond that, NaN or infinity is refused. An
+         *     empty, truncated, malformed, non-WAV, unsupported, too long or silent file (peak below −120 dBFS) is
+         *     refused with a 422 problem of type `unusable-audio` naming `/body/file` whose `reason` says which
+         *     (`emptyFile`, `notWav`, `truncated`, `malformed`, `unsupportedEncoding`, `unsupportedSampleRate`,
+         *     `tooLong`, `tooShort`, `channelRequired`, `channelOutOfRange`, `invalidSamples`, `silent`).
          *
          *     **What comes back.**
          *     - `arrival`: the onset where the response first comes within 20 dB of its peak (ISO 3382-1 Annex A
