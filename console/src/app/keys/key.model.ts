@@ -1,44 +1,21 @@
-/** What an API key may do (PRODUCT.md §5). */
-export type KeyRole = 'calculate' | 'tuning' | 'admin';
+import type { components } from '../../../../shared/contract/api-types';
 
-/** An API key as `GET /v1/keys` lists it: never the secret, only its prefix and last four. */
-export interface ApiKey {
-  id: string;
-  name: string;
-  role: KeyRole;
-  prefix: string;
-  lastFour: string;
-  createdAt: string;
-  lastUsedAt: string | null;
-  expiresAt: string | null;
-  /** Null means the server's default limit applies. */
-  rateLimitPerMinute: number | null;
-  revokedAt: string | null;
-  ownerId: string | null;
-  ownerEmail?: string | null;
-  kind?: 'live' | 'test';
-  status?: 'active' | 'expired' | 'revoked';
-  updatedAt?: string;
-}
+type Schemas = components['schemas'];
+
+/** What an API key may do (the contract's `KeyRole`). */
+export type KeyRole = Schemas['KeyRole'];
+
+/** An API key as `GET /v1/keys` lists it, plus the owner's e-mail the keys page looks up for admins. */
+export type ApiKey = Schemas['ApiKey'] & { ownerEmail?: string | null };
 
 /** The answer to `POST /v1/keys`: the only time the clear secret is ever sent. */
-export interface CreatedKey extends ApiKey {
-  secret: string;
-}
+export type CreatedKey = Schemas['CreatedApiKey'];
 
-export interface NewKeyRequest {
-  name: string;
-  role: KeyRole;
-  expiresAt?: string;
-  rateLimitPerMinute?: number;
-}
+export type NewKeyRequest = Schemas['CreateKeyRequest'];
 
-export interface KeyChanges {
-  name?: string;
-  rateLimitPerMinute?: number | null;
-  expiresAt?: string | null;
-}
+export type KeyChanges = Schemas['UpdateKeyRequest'];
 
+/** One page of a list, as every list of the API answers it. */
 export interface ListPage<T> {
   data: T[];
   hasMore: boolean;

@@ -1,38 +1,13 @@
+import type { components } from '../../../../shared/contract/api-types';
+
+type Schemas = components['schemas'];
+
 /** A stored room as `GET /v1/rooms/{roomId}` returns it. */
-export interface Room {
-  id: string;
-  ownerId: string;
-  name: string;
-  layout: string;
-  layoutName: string;
-  dimensions: { widthM: number; lengthM: number; heightM: number };
-  listener: { x: number; y: number; z: number };
-  loudspeakers: RoomLoudspeaker[];
-  limits: Record<string, number> | null;
-  sampleRateHz: number;
-  notes: string | null;
-  createdAt: string;
-  updatedAt: string;
-  geometry: { angleToleranceDeg: number; speakers: SpeakerGeometry[]; warnings: Notice[] };
-}
+export type Room = Schemas['Room'];
 
-export interface RoomLoudspeaker {
-  id: string;
-  name?: string;
-  x: number;
-  y: number;
-  z: number;
-}
+export type RoomLoudspeaker = Schemas['RoomLoudspeaker'];
 
-export interface SpeakerGeometry {
-  id: string;
-  distanceM: number;
-  azimuthDeg: number;
-  elevationDeg: number;
-  nominal: { azimuthDeg: number; elevationDeg: number } | null;
-  deviation: { azimuthDeg: number | null; elevationDeg: number; angleDeg: number } | null;
-  withinTolerance: boolean | null;
-}
+export type SpeakerGeometry = Schemas['SpeakerGeometry'];
 
 export interface Notice {
   code: string;

@@ -1,43 +1,18 @@
-import type { UserRole } from '../auth/roles';
+import type { components, operations } from '../../../../shared/contract/api-types';
 
-export type UserStatus = 'active' | 'invited' | 'disabled';
+type Schemas = components['schemas'];
+
+export type UserStatus = Schemas['User']['status'];
 
 /** A console user as `GET /v1/users` lists it. */
-export interface ConsoleUser {
-  id: string;
-  email: string;
-  name: string | null;
-  role: UserRole;
-  status: UserStatus;
-  lastSignInAt?: string | null;
-  createdAt?: string;
-}
+export type ConsoleUser = Schemas['User'];
 
-export interface InviteRequest {
-  email: string;
-  role: UserRole;
-  name?: string;
-}
+export type InviteRequest = operations['inviteUser']['requestBody']['content']['application/json'];
 
 /** The answer to an invitation: the user and the one-time link (also e-mailed when possible). */
-export interface InvitationResult {
-  user: ConsoleUser;
-  invitation: { url: string; expiresAt: string; emailSent: boolean };
-}
+export type InvitationResult = Schemas['UserInvitationResult'];
 
-export interface UserChanges {
-  role?: UserRole;
-  status?: 'active' | 'disabled';
-}
+export type UserChanges = operations['updateUser']['requestBody']['content']['application/json'];
 
 /** One message the development mail server received. */
-export interface OutboxMessage {
-  id: string;
-  to: string | string[];
-  from?: string;
-  subject: string;
-  text?: string;
-  html?: string;
-  sentAt?: string;
-  date?: string;
-}
+export type OutboxMessage = Schemas['OutboxMessage'];

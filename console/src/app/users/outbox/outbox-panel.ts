@@ -54,7 +54,7 @@ export class OutboxPanel {
       id: message.id,
       subject: message.subject || '(no subject)',
       to: recipients(message.to),
-      sent: formatDateTime(message.sentAt ?? message.date ?? null),
+      sent: formatDateTime(message.sentAt),
       parts: splitLinks(message.text ?? '', this.origin),
     })),
   );
