@@ -2,7 +2,18 @@ import js from '@eslint/js';
 import tseslint from 'typescript-eslint';
 
 export default tseslint.config(
-  { ignores: ['node_modules/', 'dist/', '.angular/', 'coverage/', 'test-artifacts/', '**/*.js', '**/*.mjs', 'shared/contract/api-types.ts'] },
+  {
+    ignores: [
+      'node_modules/',
+      'dist/',
+      '.angular/',
+      'coverage/',
+      'test-artifacts/',
+      '**/*.js',
+      '**/*.mjs',
+      'shared/contract/api-types.ts',
+    ],
+  },
   js.configs.recommended,
   ...tseslint.configs.strict,
   {
