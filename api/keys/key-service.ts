@@ -3,11 +3,11 @@ import { Op, type Transaction, type WhereOptions } from 'sequelize';
 import { recordAudit, type AuditEntry } from '../audit/record-audit';
 import { generateKeySecret, hashKeySecret } from '../auth/key-secret';
 import type { KeyStore } from '../auth/key-store';
+import { KEY_ROLES_BY_OWNER_ROLE } from '../auth/key-roles';
 import { isAdmin, type Principal } from '../auth/permissions';
 import type { Database } from '../db/database';
 import { newId } from '../db/ids';
 import type { ApiKey, KeyRole } from '../db/models/api-key';
-import type { UserRole } from '../db/models/user';
 import { conflict, forbidden, notFound, ProblemError } from '../http/problem';
 import type { Logger } from '../logger';
 import type { KeyCreatedNotice } from '../mail/messages';
@@ -38,13 +38,6 @@ export interface ListKeysOptions {
   ownerId?: string;
   includeRevoked?: boolean;
 }
-
-/** A key may never do more than its owner: viewers own no keys, developers no admin keys. */
-const KEY_ROLES_BY_OWNER_ROLE: Record<UserRole, readonly KeyRole[]> = {
-  admin: ['calculate', 'tuning', 'admin'],
-  developer: ['calculate', 'tuning'],
-  viewer: [],
-};
 
 const NAME_MAX_LENGTH = 120;
 // Names are stored verbatim (any quotes, semicolons or SQL are just text); only control characters are refused.
