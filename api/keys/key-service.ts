@@ -201,6 +201,7 @@ export class KeyService {
     const key = await this.deps.db.write(async (transaction) => {
       const found = await this.findVisible(actor, id, transaction);
       if (found.revokedAt) throw conflict(`Key ${id} is revoked and cannot be changed.`);
+      if (expiresAt !== undefined) this.checkExpiryChange(actor, found, expiresAt, now);
       const changes: Partial<Pick<ApiKey, 'name' | 'rateLimitPerMinute' | 'expiresAt'>> = {};
       if (input.name !== undefined) changes.name = input.name;
       if (input.rateLimitPerMinute !== undefined) changes.rateLimitPerMinute = input.rateLimitPerMinute;
@@ -238,6 +239,25 @@ export class KeyService {
     this.deps.keys.invalidate();
     this.deps.logger.info({ keyId: id }, 'API key revoked');
     return toKeyView(key, now);
+  }
+
+  /**
+   * An expired key stays expired, for everyone: a new key is the way back. Only an admin (or the operator)
+   * may move an expiry later or remove it; the owner may only bring it nearer or set one where there was none.
+   */
+  private checkExpiryChange(actor: KeyActor, key: ApiKey, next: Date | null, now: Date): void {
+    if (key.expiresAt && key.expiresAt.getTime() <= now.getTime()) {
+      throw conflict(
+        `Key ${key.id} expired at ${key.expiresAt.toISOString()} and stays expired; create a new key instead.`,
+        [{ pointer: '/body/expiresAt', message: 'the key has expired' }],
+      );
+    }
+    const current = key.expiresAt;
+    if (this.scope(actor) === null || current === null) return;
+    if (next === null) throw forbidden("Only an admin may remove a key's expiry.");
+    if (next.getTime() > current.getTime()) {
+      throw forbidden(`Only an admin may move a key's expiry later than ${current.toISOString()}.`);
+    }
   }
 
   /** The one owner whose keys the actor may touch, or null when it may touch everyone's. */
