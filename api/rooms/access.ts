@@ -1,4 +1,5 @@
 import type { Request } from 'express';
+import type { Transaction } from 'sequelize';
 import { isAdmin } from '../auth/permissions';
 import type { Models } from '../db/models';
 import type { Room } from '../db/models/room';
@@ -35,4 +36,19 @@ export async function findTuningFor(req: Request, models: Models, tuningId: stri
   const tuning = await models.Tuning.findByPk(tuningId);
   if (!tuning || !visible(req, tuning.ownerId)) throw notFound(`No tuning ${tuningId}.`);
   return tuning;
+}
+
+/**
+ * The room read again inside a write transaction. A room found before the write may have been deleted
+ * by a request that took the write queue first (or by another process); what is written for it must
+ * then answer 404, never fail on the foreign key.
+ */
+export async function roomStillThere(
+  models: Models,
+  roomId: string,
+  transaction: Transaction,
+): Promise<Room> {
+  const room = await models.Room.findByPk(roomId, { transaction });
+  if (!room) throw notFound(`No room ${roomId}.`);
+  return room;
 }

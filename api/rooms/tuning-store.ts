@@ -9,6 +9,7 @@ import type { Tuning } from '../db/models/tuning';
 import type { TuningOrigin, TuningVersion } from '../db/models/tuning-version';
 import type { Models } from '../db/models';
 import { notFound } from '../http/problem';
+import { roomStillThere } from './access';
 
 export interface VersionContent {
   name: string;
@@ -101,6 +102,7 @@ export async function createTuning(
 ): Promise<{ tuning: Tuning; version: TuningVersion }> {
   checkTuningSettings(content.settings);
   return db.write(async (transaction) => {
+    await roomStillThere(db.models, room.id, transaction);
     const tuning = await db.models.Tuning.create(
       {
         id: newId('tun'),

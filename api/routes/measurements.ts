@@ -16,7 +16,7 @@ import {
   type MeasurementContent,
   type UploadForm,
 } from '../measurements/measurement-input';
-import { findRoomFor } from '../rooms/access';
+import { findRoomFor, roomStillThere } from '../rooms/access';
 import { pageById } from '../rooms/pagination';
 import type { Services } from '../services';
 import { audioProblem, multerProblem, validateFormFields, WAV_UPLOAD_LIMITS } from './audio-upload';
@@ -43,8 +43,9 @@ export function measurementsRouter({ db }: Services): Router {
   const path = '/rooms/:roomId/measurements';
 
   const store = async (req: Request, room: Room, labels: Labels, content: MeasurementContent) => {
-    const row = await db.write((transaction) =>
-      Measurement.create(
+    const row = await db.write(async (transaction) => {
+      await roomStillThere(db.models, room.id, transaction);
+      return Measurement.create(
         {
           id: newId('meas'),
           roomId: room.id,
@@ -57,8 +58,8 @@ export function measurementsRouter({ db }: Services): Router {
           createdByKeyId: req.principal?.keyId ?? null,
         },
         { transaction },
-      ),
-    );
+      );
+    });
     return measurementDto(row, true);
   };
   const created = (res: Parameters<RequestHandler>[1], dto: ReturnType<typeof measurementDto>) =>

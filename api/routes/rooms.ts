@@ -4,7 +4,7 @@ import { requirePermission } from '../auth/permissions';
 import { newId } from '../db/ids';
 import type { StoredLimits } from '../db/models/room';
 import { validate } from '../http/validate';
-import { callerId, findRoomFor, ownerScope } from '../rooms/access';
+import { callerId, findRoomFor, ownerScope, roomStillThere } from '../rooms/access';
 import { pageById } from '../rooms/pagination';
 import { roomDto } from '../rooms/room-dto';
 import type { Services } from '../services';
@@ -67,8 +67,9 @@ export function roomsRouter(services: Services): Router {
       loudspeakers: changes.loudspeakers ?? room.loudspeakers,
     };
     const layout = checkRoomDefinition(merged);
-    await db.write((transaction) =>
-      room.update(
+    await db.write(async (transaction) => {
+      await roomStillThere(db.models, room.id, transaction);
+      await room.update(
         {
           ...(changes.name !== undefined && { name: changes.name }),
           ...(changes.limits !== undefined && { limits: changes.limits }),
@@ -80,8 +81,8 @@ export function roomsRouter(services: Services): Router {
           loudspeakers: [...merged.loudspeakers],
         },
         { transaction },
-      ),
-    );
+      );
+    });
     res.json(roomDto(room));
   });
 
