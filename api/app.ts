@@ -7,6 +7,7 @@ import { requestId } from './http/request-id';
 import { notFoundHandler, problemHandler } from './http/problem';
 import { createRateLimiter } from './rate-limit/rate-limiter';
 import { getContract } from './http/validate';
+import { storageProblem } from './db/storage-errors';
 import { docsRouter } from './routes/docs';
 import { healthRouter } from './routes/health';
 import { sessionRouter } from './routes/session';
@@ -57,7 +58,7 @@ export function createApp(services: Services): Express {
 
   serveConsole(app, config.consoleDir);
   app.use(notFoundHandler);
-  app.use(problemHandler(services.logger));
+  app.use(problemHandler(services.logger, storageProblem));
   return app;
 }
 

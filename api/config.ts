@@ -27,6 +27,10 @@ export interface Config {
   defaultRateLimitPerMinute: number;
   /** How often metered usage is written to the database, in milliseconds. */
   usageFlushIntervalMs: number;
+  /** How long a write waits for another process's write lock before it is retried (then 503). */
+  databaseBusyTimeoutMs: number;
+  /** On SIGTERM, how long requests in flight may take before their connections are cut. */
+  shutdownDeadlineMs: number;
   logLevel: string;
 }
 
@@ -121,6 +125,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     seedDemoData: environment !== 'production' && env.SEED_DEMO_DATA !== 'false',
     defaultRateLimitPerMinute: integer(env, 'DEFAULT_RATE_LIMIT_PER_MINUTE', 600, 1, 1_000_000),
     usageFlushIntervalMs: integer(env, 'USAGE_FLUSH_INTERVAL_MS', 5000, 100, 3_600_000),
+    databaseBusyTimeoutMs: integer(env, 'DATABASE_BUSY_TIMEOUT_MS', 2000, 0, 60_000),
+    shutdownDeadlineMs: integer(env, 'SHUTDOWN_DEADLINE_MS', 10_000, 0, 600_000),
     logLevel: env.LOG_LEVEL || (environment === 'test' ? 'silent' : 'info'),
   };
 }
