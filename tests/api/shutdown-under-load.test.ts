@@ -107,8 +107,9 @@ describe('SIGTERM under keep-alive load and a slow body', () => {
         USAGE_FLUSH_INTERVAL_MS: '3600000',
       });
       let signalAt = 0;
-      const slow = slowBody(service.port, secrets[4]);
-      const clients = secrets.slice(0, 4).map((key) => keepAliveClient(service.port, key));
+      const { port } = service;
+      const slow = slowBody(port, secrets[4]);
+      const clients = secrets.slice(0, 4).map((key) => keepAliveClient(port, key));
       await new Promise((resolve) => setTimeout(resolve, 700));
       signalAt = Date.now();
       slowSockets.forEach((s) => s.markSignal());
