@@ -6,6 +6,7 @@ import { authenticate } from './auth/authenticate';
 import { requestId } from './http/request-id';
 import { notFoundHandler, problemHandler } from './http/problem';
 import { createRateLimiter } from './rate-limit/rate-limiter';
+import { createUserRateLimiter } from './rate-limit/user-ceiling';
 import { getContract } from './http/validate';
 import { storageProblem } from './db/storage-errors';
 import { docsRouter } from './routes/docs';
@@ -51,6 +52,7 @@ export function createApp(services: Services): Express {
     '/v1',
     authenticate(services.keys, services.sessionPrincipal),
     createRateLimiter(services),
+    createUserRateLimiter(services),
     services.usage.middleware,
     v1Router(services),
   );

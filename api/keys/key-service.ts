@@ -6,6 +6,7 @@ import type { KeyStore } from '../auth/key-store';
 import { KEY_ROLES_BY_OWNER_ROLE } from '../auth/key-roles';
 import { isAdmin, type Principal } from '../auth/permissions';
 import type { Database } from '../db/database';
+import type { Models } from '../db/models';
 import { newId } from '../db/ids';
 import type { ApiKey, KeyRole } from '../db/models/api-key';
 import { conflict, forbidden, notFound, ProblemError } from '../http/problem';
@@ -73,6 +74,19 @@ function parseExpiry(value: string | null | undefined, now: Date): Date | null |
   return date;
 }
 
+/** Keys of the owner that are neither revoked nor expired at `now`: what MAX_ACTIVE_KEYS_PER_USER counts. */
+export function countActiveKeys(
+  models: Models,
+  ownerId: string,
+  now: Date,
+  transaction?: Transaction,
+): Promise<number> {
+  return models.ApiKey.count({
+    where: { ownerId, revokedAt: null, [Op.or]: [{ expiresAt: null }, { expiresAt: { [Op.gt]: now } }] },
+    transaction,
+  });
+}
+
 export interface KeyServiceDeps {
   db: Database;
   keys: KeyStore;
@@ -80,6 +94,8 @@ export interface KeyServiceDeps {
   logger: Logger;
   /** Tells an owner that someone else created a key for them; resolves false when the mail failed. */
   notifyKeyCreated?: (notice: KeyCreatedNotice) => Promise<boolean>;
+  /** Most active (not revoked, not expired) keys one user may hold; no limit when absent. */
+  maxActiveKeysPerUser?: number;
   now?: () => Date;
 }
 
@@ -115,6 +131,13 @@ export class KeyService {
       const owner = await db.models.User.findByPk(ownerId, { transaction });
       if (!owner) throw unprocessable('/body/ownerId', `No user ${ownerId}`);
       if (owner.status === 'disabled') throw unprocessable('/body/ownerId', `User ${ownerId} is disabled`);
+      const cap = this.deps.maxActiveKeysPerUser;
+      if (cap !== undefined && (await countActiveKeys(db.models, ownerId, now, transaction)) >= cap) {
+        throw conflict(
+          `User ${ownerId} already has ${cap} active keys, the most one user may hold (MAX_ACTIVE_KEYS_PER_USER); revoke one first.`,
+          [{ pointer: '/body/ownerId', message: `already has ${cap} active keys` }],
+        );
+      }
       if (!KEY_ROLES_BY_OWNER_ROLE[owner.role].includes(input.role)) {
         throw unprocessable(
           '/body/role',

@@ -63,6 +63,8 @@ export async function startService(
       SEED_DEMO_DATA: 'false',
       CONSOLE_DIR: path.join(dir, 'no-console'),
       LOG_LEVEL: 'warn',
+      // Load tests drive many keys of one user; the per-user ceiling has tests of its own.
+      USER_RATE_LIMIT_PER_MINUTE: '1000000',
       ...env,
     },
     stdio: ['ignore', 'pipe', 'pipe'],
