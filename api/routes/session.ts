@@ -44,23 +44,17 @@ export function sessionRouter(services: Services): Router {
     res.json({ user: req.user });
   });
 
-  router.post(
-    '/session',
-    validate('signIn'),
-    throttles.perAddress,
-    throttles.perAccount,
-    async (req, res) => {
-      const check = await sessions.checkPassword(req, res);
-      if ('failure' in check) {
-        const { email } = req.valid.body as { email: string };
-        await recordSignInFailed(db, req, check.failure, normalizeEmail(email));
-        throw signInRefused();
-      }
-      await sessions.signIn(req, check.user);
-      await recordSignedIn(db, req, check.user.id);
-      res.json({ user: check.user });
-    },
-  );
+  router.post('/session', validate('signIn'), throttles.signIn, async (req, res) => {
+    const check = await sessions.checkPassword(req, res);
+    if ('failure' in check) {
+      const { email } = req.valid.body as { email: string };
+      await recordSignInFailed(db, req, check.failure, normalizeEmail(email));
+      throw signInRefused();
+    }
+    await sessions.signIn(req, check.user);
+    await recordSignedIn(db, req, check.user.id);
+    res.json({ user: check.user });
+  });
 
   router.delete('/session', validate('signOut'), async (req, res) => {
     const user = req.user as ConsoleUser | undefined;
@@ -71,18 +65,13 @@ export function sessionRouter(services: Services): Router {
     res.status(204).end();
   });
 
-  router.post(
-    '/invitations/accept',
-    validate('acceptInvitation'),
-    throttles.invitationPerAddress,
-    async (req, res) => {
-      const { token, password } = req.valid.body as { token: string; password: string };
-      const user = toConsoleUser(await acceptInvitation(services, req, token, password));
-      await sessions.signIn(req, user);
-      await recordSignedIn(db, req, user.id);
-      res.json({ user });
-    },
-  );
+  router.post('/invitations/accept', validate('acceptInvitation'), throttles.invitation, async (req, res) => {
+    const { token, password } = req.valid.body as { token: string; password: string };
+    const user = toConsoleUser(await acceptInvitation(services, req, token, password));
+    await sessions.signIn(req, user);
+    await recordSignedIn(db, req, user.id);
+    res.json({ user });
+  });
 
   return router;
 }
