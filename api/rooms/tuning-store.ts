@@ -1,4 +1,6 @@
 import type { Request } from 'express';
+import { authorAsSeenBy } from '../auth/disclosure';
+import type { Principal } from '../auth/permissions';
 import type { Transaction } from 'sequelize';
 import { findLayout } from '../../shared/layouts';
 import { checkTuningSettings, tuningCautions, type TuningSettings } from '../../shared/plan';
@@ -48,8 +50,8 @@ export function tuningDto(tuning: Tuning, version: TuningVersion, room: Room | n
   };
 }
 
-/** The API shape of one stored version. */
-export function versionDto(version: TuningVersion) {
+/** The API shape of one stored version; who made it only for the author and admins. */
+export function versionDto(version: TuningVersion, caller: Principal | undefined) {
   return {
     tuningId: version.tuningId,
     version: version.version,
@@ -61,7 +63,7 @@ export function versionDto(version: TuningVersion) {
     channels: version.channels,
     subwoofer: version.subwoofer,
     createdAt: version.createdAt.toISOString(),
-    createdBy: { userId: version.createdByUserId, keyId: version.createdByKeyId },
+    createdBy: authorAsSeenBy(caller, { userId: version.createdByUserId, keyId: version.createdByKeyId }),
   };
 }
 

@@ -2,6 +2,7 @@ import { Router } from 'express';
 import { roomGeometry } from '../../shared/geometry';
 import { findLayout } from '../../shared/layouts';
 import { tuningCautions } from '../../shared/plan';
+import { mayIdentify } from '../auth/disclosure';
 import { requirePermission } from '../auth/permissions';
 import { notFound } from '../http/problem';
 import { validate } from '../http/validate';
@@ -35,16 +36,22 @@ export function roomReportRouter({ db }: Services): Router {
       let tuning = null;
       if (chosen) {
         const version = await findVersion(db.models, chosen, q.version);
-        const author = version.createdByUserId
-          ? await db.models.User.findByPk(version.createdByUserId)
-          : null;
+        // The author's name only for the author and admins; a developer's client report never carries
+        // the e-mail address of an admin who edited the tuning.
+        const shown = mayIdentify(req.principal, version.createdByUserId);
+        const author =
+          version.createdByUserId && shown ? await db.models.User.findByPk(version.createdByUserId) : null;
         const settings = settingsOf(version);
         tuning = {
           name: version.name,
           version: version.version,
           notes: version.notes,
           createdAt: version.createdAt,
-          tunedBy: author ? (author.name ?? author.email) : 'unknown',
+          tunedBy: author
+            ? (author.name ?? author.email)
+            : version.createdByUserId
+              ? 'another Isochron user'
+              : 'unknown',
           settings,
           designed: designAtRate(settings, settings.sampleRateHz),
           cautions: tuningCautions(settings, layout),

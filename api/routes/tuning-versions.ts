@@ -20,7 +20,10 @@ export function tuningVersionsRouter({ db }: Services, toDto: typeof versionDto)
       order: [['version', 'ASC']],
       limit: limit + 1,
     });
-    res.json({ data: rows.slice(0, limit).map(toDto), hasMore: rows.length > limit });
+    res.json({
+      data: rows.slice(0, limit).map((row) => toDto(row, req.principal)),
+      hasMore: rows.length > limit,
+    });
   });
 
   router.get(
@@ -29,7 +32,7 @@ export function tuningVersionsRouter({ db }: Services, toDto: typeof versionDto)
     validate('getTuningVersion'),
     async (req, res) => {
       const found = await findTuningFor(req, db.models, String(req.valid.params.tuningId));
-      res.json(toDto(await findVersion(db.models, found, req.valid.params.version as number)));
+      res.json(toDto(await findVersion(db.models, found, req.valid.params.version as number), req.principal));
     },
   );
 
