@@ -106,7 +106,7 @@ export function sqliteStorage(databaseUrl: string): string | null {
 }
 
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
-  const nodeEnv = env.NODE_ENV ?? 'development';
+  const nodeEnv = env.NODE_ENV || 'development';
   if (!['development', 'production', 'test'].includes(nodeEnv)) {
     throw new ConfigError(`NODE_ENV must be development, production or test; got "${nodeEnv}"`);
   }

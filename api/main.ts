@@ -2,6 +2,7 @@ import { createApp } from './app';
 import { ConfigError, loadConfig, sqliteStorage } from './config';
 import { describeStorageFailure } from './db/storage-errors';
 import { gracefulShutdown } from './lifecycle/graceful-shutdown';
+import { startupWarnings, warningBanner } from './lifecycle/startup-warnings';
 import { loadDemoData } from '../seeds';
 import { closeServices, createServices } from './services';
 
@@ -17,6 +18,9 @@ async function main(): Promise<void> {
     }
     services.logger.info(`Isochron listening on http://localhost:${config.port} (console /, docs /docs)`);
   });
+  const warnings = await startupWarnings(config, services.db.models, services.mail);
+  for (const warning of warnings) services.logger.warn(warning);
+  if (warnings.length > 0) console.error(warningBanner(warnings));
 
   const shutdown = gracefulShutdown(server, {
     deadlineMs: config.shutdownDeadlineMs,
