@@ -3,6 +3,7 @@ import path from 'node:path';
 import express, { type Express } from 'express';
 import helmet from 'helmet';
 import { authenticate } from './auth/authenticate';
+import { refuseNulInUrl } from './http/nul-guard';
 import { requestId } from './http/request-id';
 import { notFoundHandler, problemHandler } from './http/problem';
 import { createRateLimiter } from './rate-limit/rate-limiter';
@@ -26,6 +27,7 @@ export function createApp(services: Services): Express {
   app.set('json spaces', 0);
 
   app.use(requestId);
+  app.use(refuseNulInUrl);
   app.use(
     helmet({
       contentSecurityPolicy: {
