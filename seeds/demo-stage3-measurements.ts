@@ -1,5 +1,6 @@
 import { designBiquads, type FilterSpec } from '../shared/filters/biquad-design';
-import { cascadeResponse, responseGrid } from '../shared/filters/response';
+import { responseGrid } from '../shared/dsp/grid';
+import { cascadeResponse } from '../shared/dsp/response';
 
 /*
  * DEMO DATA — invented frequency responses for Stage 3 (Kestrel Yard Post is fictional). Each is built

@@ -7,7 +7,7 @@ export * from './acoustics/speed-of-sound';
 export * from './delay/align-delays';
 export * from './level/level-trims';
 export * from './filters/biquad-design';
-export * from './filters/response';
+export * from './dsp';
 export * from './filters/crossover';
 export * from './bass-management/bass-management';
 export * from './filters/filter-set';

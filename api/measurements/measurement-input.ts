@@ -74,7 +74,7 @@ export function contentFromFile(
         encoding,
         durationS,
       },
-      result: { ...analysis },
+      result: { ...analysis, warnings: [...wav.warnings, ...analysis.warnings] },
     };
   }
   if (file.buffer.includes(0)) {

@@ -47,6 +47,7 @@ analysisRouter.post(
     const { sampleRateHz, channelCount, channelIndex, encoding, durationS } = wav;
     res.json({
       ...analysis,
+      warnings: [...wav.warnings, ...analysis.warnings],
       file: { sizeBytes: req.file.size, sampleRateHz, channelCount, channelIndex, encoding, durationS },
     });
   },

@@ -90,6 +90,7 @@ const TITLES: Record<SignalProblemCode, string> = {
   emptyFile: 'The file is empty',
   notWav: 'The file is not a WAV file',
   truncated: 'The file is truncated',
+  malformed: 'The WAV file is malformed',
   unsupportedEncoding: 'The WAV encoding is not supported',
   unsupportedSampleRate: 'The sample rate is not supported',
   tooLong: 'The recording is too long',

@@ -1,5 +1,7 @@
 import { requireInRange } from '../errors';
-import { designBandPass, filterCascade } from './band-filter';
+import { logFrequencyGrid } from '../dsp/grid';
+import { sosfilt } from '../dsp/sosfilt';
+import { designBandPass } from './band-filter';
 import { decayTimes, type DecayTimes } from './decay';
 import { bandCentreHz, bandEdgesHz, nominalOctaveCentreHz } from './iec-bands';
 import { detectArrival, signalLevel, type Arrival, type SignalLevel } from './level';
@@ -11,7 +13,7 @@ import {
   type RoomMode,
 } from './room-modes';
 import { SignalProblemError } from './signal-problem';
-import { logFrequencyGrid, MAX_SMOOTHING_OCTAVES, MIN_SMOOTHING_OCTAVES } from './smoothing';
+import { MAX_SMOOTHING_OCTAVES, MIN_SMOOTHING_OCTAVES } from './smoothing';
 import { realSpectrum, smoothedResponse, type SmoothedResponse } from './spectrum';
 
 export interface AnalysisWarning {
@@ -132,7 +134,7 @@ export function analyzeImpulseResponse(
   // The response is taken up to where the decay meets the noise, so the noise tail does not fill it in.
   const end = Math.min(samples.length, arrival.arrivalSample + crossing, MAX_RESPONSE_SAMPLES);
   const spectrum = realSpectrum(fadeOut(samples, end, sampleRateHz), sampleRateHz);
-  const grid = logFrequencyGrid(20, Math.min(20000, sampleRateHz / 2), GRID_POINTS_PER_OCTAVE);
+  const grid = logFrequencyGrid(20, Math.min(20000, sampleRateHz / 2), GRID_POINTS_PER_OCTAVE, 'iec');
   const frequencyResponse = {
     ...smoothedResponse(spectrum, arrival.arrivalSample, smoothingOctaves, grid),
     smoothingOctaves,
@@ -178,7 +180,7 @@ function octaveBandDecays(
     const centreHz = bandCentreHz(index, 1);
     const { lowerHz, upperHz } = bandEdgesHz(centreHz, 1);
     if (upperHz >= 0.45 * sampleRateHz) continue;
-    const filtered = filterCascade(samples, designBandPass(centreHz, 1, sampleRateHz));
+    const filtered = sosfilt(designBandPass(centreHz, 1, sampleRateHz), samples);
     const { edtS, t20S, t30S } = decayTimes(filtered, sampleRateHz, startSample);
     const nominalHz = nominalOctaveCentreHz(index);
     bands.push({ centreHz, nominalHz, edtS, t20S, t30S });

@@ -5,6 +5,7 @@ export type SignalProblemCode =
   | 'emptyFile'
   | 'notWav'
   | 'truncated'
+  | 'malformed'
   | 'unsupportedEncoding'
   | 'unsupportedSampleRate'
   | 'tooLong'

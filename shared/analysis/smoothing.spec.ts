@@ -1,6 +1,7 @@
 import { CalculationInputError } from '../errors';
 import { expectWithin } from '../filters/test-helpers';
-import { fractionalOctaveMean, logFrequencyGrid, smoothMagnitudeDb } from './smoothing';
+import { logFrequencyGrid } from '../dsp/grid';
+import { fractionalOctaveMean, smoothMagnitudeDb } from './smoothing';
 
 const fftGrid = (bins: number, binHz: number) => Array.from({ length: bins }, (_, k) => k * binHz);
 
@@ -8,7 +9,7 @@ describe('fractional-octave smoothing (power average over f·2^(∓w/2), common 
   it('keeps a flat response flat at every width from 1/48 to 1/1 octave', () => {
     const freqs = fftGrid(4097, 48000 / 8192);
     const flat = freqs.map(() => 2.5);
-    const out = logFrequencyGrid(20, 20000, 24);
+    const out = logFrequencyGrid(20, 20000, 24, 'iec');
     for (const width of [1 / 48, 1 / 24, 1 / 12, 1 / 6, 1 / 3, 1 / 2, 1]) {
       for (const v of fractionalOctaveMean(freqs, flat, width, out))
         expectWithin(v, 2.5, 1e-12, `w=${width}`);
@@ -53,7 +54,7 @@ describe('fractional-octave smoothing (power average over f·2^(∓w/2), common 
   });
 
   it('lays the one-third-octave grid on the IEC 61260-1 centres 1000·10^(x/10)', () => {
-    const grid = logFrequencyGrid(19, 21000, 3);
+    const grid = logFrequencyGrid(19, 21000, 3, 'iec');
     expect(grid).toHaveLength(31);
     grid.forEach((f, i) => expectWithin(f, 1000 * Math.pow(10, (i - 17) / 10), 1e-9 * f, `x=${i - 17}`));
   });

@@ -1,29 +1,8 @@
 import { CalculationInputError, requireInRange } from '../errors';
-import { OCTAVE_RATIO_G, REFERENCE_FREQUENCY_HZ } from './iec-bands';
 
 /** Narrowest and widest smoothing windows accepted, in octaves (1/48 to 1/1 octave). */
 export const MIN_SMOOTHING_OCTAVES = 1 / 48;
 export const MAX_SMOOTHING_OCTAVES = 1;
-
-/**
- * Logarithmic frequency grid `1000·G^(k/pointsPerOctave)` (G = 10^(3/10), the IEC 61260-1 octave ratio)
- * for every integer k whose frequency lies in [fromHz, toHz]. With 3 points per octave it gives the
- * one-third-octave mid-band frequencies exactly.
- */
-export function logFrequencyGrid(fromHz: number, toHz: number, pointsPerOctave: number): number[] {
-  requireInRange(fromHz, { min: 0, exclusiveMin: true, unit: 'Hz' }, 'fromHz', '/fromHz');
-  requireInRange(toHz, { min: fromHz, unit: 'Hz' }, 'toHz', '/toHz');
-  requireInRange(pointsPerOctave, { min: 1, max: 96 }, 'pointsPerOctave', '/pointsPerOctave');
-  const step = Math.log(OCTAVE_RATIO_G) / pointsPerOctave;
-  const first = Math.ceil(Math.log(fromHz / REFERENCE_FREQUENCY_HZ) / step - 1e-9);
-  const last = Math.floor(Math.log(toHz / REFERENCE_FREQUENCY_HZ) / step + 1e-9);
-  const grid: number[] = [];
-  // The tolerance above admits end points that round a hair outside the range; pin them to it.
-  for (let k = first; k <= last; k++) {
-    grid.push(Math.min(toHz, Math.max(fromHz, REFERENCE_FREQUENCY_HZ * Math.exp(k * step))));
-  }
-  return grid;
-}
 
 /**
  * Mean of a quantity over fractional-octave windows `[f·2^(−w/2), f·2^(+w/2)]` around each output

@@ -1,5 +1,6 @@
 import { CalculationInputError } from '../errors';
-import { logFrequencyGrid, smoothMagnitudeDb } from './smoothing';
+import { logFrequencyGrid } from '../dsp/grid';
+import { smoothMagnitudeDb } from './smoothing';
 
 export interface MagnitudeResponse {
   frequenciesHz: readonly number[];
@@ -66,7 +67,7 @@ export function powerAverageResampled(
   }
   const fromHz = Math.max(...responses.map((r) => r.frequenciesHz[0]));
   const toHz = Math.min(...responses.map((r) => r.frequenciesHz[r.frequenciesHz.length - 1]));
-  const grid = toHz > fromHz ? logFrequencyGrid(fromHz, toHz, pointsPerOctave) : [];
+  const grid = toHz > fromHz ? logFrequencyGrid(fromHz, toHz, pointsPerOctave, 'iec') : [];
   if (grid.length < 2) {
     throw new CalculationInputError(
       `the responses do not share a frequency range (common part ${fromHz}..${toHz} Hz)`,

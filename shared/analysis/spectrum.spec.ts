@@ -1,9 +1,9 @@
 import { expectWithin } from '../filters/test-helpers';
-import { logFrequencyGrid } from './smoothing';
+import { logFrequencyGrid } from '../dsp/grid';
 import { realSpectrum, smoothedResponse } from './spectrum';
 
 const fs = 48000;
-const grid = logFrequencyGrid(20, 20000, 12);
+const grid = logFrequencyGrid(20, 20000, 12, 'iec');
 const impulseAt = (n: number, length: number, amplitude = 1): Float64Array => {
   const x = new Float64Array(length);
   x[n] = amplitude;

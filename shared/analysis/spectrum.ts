@@ -1,5 +1,6 @@
 import FFT from 'fft.js';
 import { CalculationInputError, requireInRange } from '../errors';
+import { wrapDegrees } from '../dsp/response';
 import { fractionalOctaveMean } from './smoothing';
 
 /** One-sided spectrum of a real signal: bins 0..fftSize/2, bin k at k·sampleRateHz/fftSize. */
@@ -108,11 +109,6 @@ export function smoothedResponse(
   return {
     frequenciesHz: [...gridHz],
     magnitudeDb: Array.from(smoothPower, (p) => 10 * Math.log10(Math.max(p, 1e-30))),
-    phaseDeg: Array.from(smoothRe, (r, i) => wrapDeg((Math.atan2(smoothIm[i], r) * 180) / Math.PI)),
+    phaseDeg: Array.from(smoothRe, (r, i) => wrapDegrees((Math.atan2(smoothIm[i], r) * 180) / Math.PI)),
   };
-}
-
-function wrapDeg(deg: number): number {
-  const wrapped = deg - 360 * Math.ceil((deg - 180) / 360);
-  return wrapped === -180 ? 180 : wrapped;
 }

@@ -77,7 +77,7 @@ function expectProblem(fn: () => unknown, code: string, message: RegExp, field =
   expect((caught as Error).message).toMatch(message);
 }
 
-describe('WAV decoding (wavefile for the container, one channel decoded to ±1 full scale)', () => {
+describe('WAV decoding (one channel decoded to ±1 full scale; files written by wavefile)', () => {
   const cases: Array<[string, number, number, number]> = [];
   for (const bitDepth of ['16', '24', '32', '32f']) {
     for (const rate of [44100, 48000, 96000, 192000]) cases.push([bitDepth, 1, rate, 0]);
@@ -147,7 +147,7 @@ describe('WAV decoding (wavefile for the container, one channel decoded to ±1 f
       expectProblem(
         () => decodeWav(encode('16', 1, 48000).subarray(0, 30)),
         'truncated',
-        /truncated or incomplete/,
+        /truncated: the 'fmt ' chunk at byte 12 declares 16 bytes but only 10 remain/,
       ));
     it('no audio frames', () => {
       const wav = new WaveFile();
@@ -175,7 +175,7 @@ describe('WAV decoding (wavefile for the container, one channel decoded to ±1 f
             limits: { maxDurationS: 0.5, minSampleRateHz: 44100, maxSampleRateHz: 192000 },
           }),
         'tooLong',
-        /lasts 1.00 s; impulse responses may last at most 0.5 s/,
+        /lasts 1.00 s; files may last at most 0.5 s/,
       ));
     it('multichannel without a channel', () =>
       expectProblem(

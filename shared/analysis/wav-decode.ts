@@ -1,4 +1,4 @@
-import { WaveFile } from 'wavefile';
+import { readWaveLayout, type WaveContainer } from './riff-wave';
 import { SignalProblemError } from './signal-problem';
 
 export type WavEncoding = 'pcm16' | 'pcm24' | 'pcm32' | 'float32';
@@ -17,71 +17,68 @@ export const DEFAULT_WAV_LIMITS: WavDecodeLimits = {
   maxSampleRateHz: 192000,
 };
 
-export interface DecodedWav {
+/**
+ * Largest magnitude accepted from a float file: 1000 × full scale (+60 dBFS). Float files may carry
+ * headroom above full scale, so values above 1 only warn; far beyond that they are corrupt or not audio.
+ */
+export const MAX_FLOAT_SAMPLE = 1000;
+
+export interface DecodeWarning {
+  code: string;
+  message: string;
+}
+
+export interface WavInfo {
+  container: WaveContainer;
   sampleRateHz: number;
   channelCount: number;
-  /** Zero-based index of the channel returned in `samples`. */
-  channelIndex: number;
   encoding: WavEncoding;
   frameCount: number;
   durationS: number;
+}
+
+export interface DecodedWav extends WavInfo {
+  /** Zero-based index of the channel returned in `samples`. */
+  channelIndex: number;
   /** The chosen channel, full scale = ±1. */
   samples: Float64Array;
+  warnings: DecodeWarning[];
+}
+
+export interface OpenedWav extends WavInfo {
+  /**
+   * Decodes one channel to ±1 full scale.
+   * @param index zero-based channel.
+   * @param field the request field that named it, for errors.
+   */
+  channel(
+    index: number | undefined,
+    field: string,
+  ): { channelIndex: number; samples: Float64Array; warnings: DecodeWarning[] };
 }
 
 const WAVE_FORMAT_PCM = 1;
 const WAVE_FORMAT_IEEE_FLOAT = 3;
-const WAVE_FORMAT_EXTENSIBLE = 0xfffe;
-/** A data chunk size written by streaming recorders that did not know the length. */
-const UNKNOWN_CHUNK_SIZE = 0xffffffff;
-
-interface FmtChunk {
-  audioFormat: number;
-  numChannels: number;
-  sampleRate: number;
-  blockAlign: number;
-  bitsPerSample: number;
-  subformat: number[];
-}
 
 /**
- * Decodes one channel of a WAV file (RIFF or RIFX; PCM 16/24/32-bit integer or 32-bit float, plain or
- * WAVE_FORMAT_EXTENSIBLE) to samples scaled to ±1 full scale.
- *
- * The container and chunks are read with the `wavefile` package; the chosen channel is then decoded here
- * from the data bytes, which spares decoding the other channels and handles the extensible float
- * sub-format that `wavefile` reports as an integer bit depth.
+ * Reads a WAV file's header and checks it against the limits, without decoding samples yet.
+ * Container: RIFF, RIFX, RF64 or BW64, walked chunk by chunk by {@link readWaveLayout}; encodings PCM 16,
+ * 24 or 32-bit integer or 32-bit float, plain or WAVE_FORMAT_EXTENSIBLE.
  *
  * @param bytes the whole file.
- * @param options.channel zero-based channel index; required when the file has more than one channel.
- * @param options.limits duration and sample-rate limits (default {@link DEFAULT_WAV_LIMITS}).
- * @param options.channelField the request field that names the channel, for errors (default `/channel`).
- * @throws SignalProblemError naming what is wrong (empty, not a WAV file, truncated, unsupported encoding or
- *   sample rate, too long, channel missing or out of range).
+ * @param limits duration and sample-rate limits (default {@link DEFAULT_WAV_LIMITS}).
+ * @throws SignalProblemError naming what is wrong (empty, not a WAV file, truncated, malformed, unsupported
+ *   encoding or sample rate, too long).
  */
-export function decodeWav(
-  bytes: Uint8Array,
-  options: { channel?: number; limits?: WavDecodeLimits; channelField?: string } = {},
-): DecodedWav {
-  const limits = options.limits ?? DEFAULT_WAV_LIMITS;
-  if (bytes.length === 0) throw new SignalProblemError('The file is empty (0 bytes).', 'emptyFile');
-
-  const wav = new WaveFile();
-  try {
-    wav.fromBuffer(bytes);
-  } catch (error) {
-    throw describeParseFailure(bytes, error);
-  }
-  const fmt = wav.fmt as FmtChunk;
-  const data = wav.data as { chunkSize: number; samples: Uint8Array };
-  const littleEndian = wav.container !== 'RIFX';
-
-  const encoding = encodingOf(fmt);
-  const { numChannels: channelCount, sampleRate: sampleRateHz, blockAlign } = fmt;
-  if (channelCount < 1 || blockAlign !== channelCount * (fmt.bitsPerSample / 8)) {
+export function openWav(bytes: Uint8Array, limits: WavDecodeLimits = DEFAULT_WAV_LIMITS): OpenedWav {
+  const layout = readWaveLayout(bytes);
+  const { format, littleEndian, dataOffset, dataBytes, container } = layout;
+  const encoding = encodingOf(format.formatCode, format.bitsPerSample);
+  const { channelCount, sampleRateHz, blockAlign } = format;
+  if (blockAlign !== channelCount * (format.bitsPerSample / 8)) {
     throw new SignalProblemError(
-      `The format chunk is inconsistent: ${channelCount} channel(s) of ${fmt.bitsPerSample} bits cannot have a block size of ${blockAlign} bytes.`,
-      'notWav',
+      `The file is malformed: ${channelCount} channel(s) of ${format.bitsPerSample} bits cannot have a block size of ${blockAlign} bytes.`,
+      'malformed',
     );
   }
   if (sampleRateHz < limits.minSampleRateHz || sampleRateHz > limits.maxSampleRateHz) {
@@ -90,65 +87,59 @@ export function decodeWav(
       'unsupportedSampleRate',
     );
   }
-
-  const available = data.samples.length;
-  if (data.chunkSize !== UNKNOWN_CHUNK_SIZE && available < data.chunkSize) {
-    throw new SignalProblemError(
-      `The file is truncated: its data chunk declares ${data.chunkSize} bytes but only ${available} are present.`,
-      'truncated',
-    );
-  }
-  const frameCount = Math.floor(available / blockAlign);
+  const frameCount = dataBytes / blockAlign;
   if (frameCount === 0)
     throw new SignalProblemError('The file holds no audio frames (empty data chunk).', 'emptyFile');
-  if (available % blockAlign !== 0 && data.chunkSize === UNKNOWN_CHUNK_SIZE) {
-    throw new SignalProblemError(
-      `The file is truncated: the data ends inside a frame (${available} bytes is not a multiple of the ${blockAlign}-byte frame).`,
-      'truncated',
-    );
-  }
   const durationS = frameCount / sampleRateHz;
   if (durationS > limits.maxDurationS) {
     throw new SignalProblemError(
-      `The file lasts ${durationS.toFixed(2)} s; impulse responses may last at most ${limits.maxDurationS} s.`,
+      `The file lasts ${durationS.toFixed(2)} s; files may last at most ${limits.maxDurationS} s.`,
       'tooLong',
     );
   }
-
-  const channelIndex = chooseChannel(options.channel, channelCount, options.channelField ?? '/channel');
-  const samples = decodeChannel(data.samples, encoding, channelCount, channelIndex, frameCount, littleEndian);
-  return { sampleRateHz, channelCount, channelIndex, encoding, frameCount, durationS, samples };
+  const data = bytes.subarray(dataOffset, dataOffset + dataBytes);
+  return {
+    container,
+    sampleRateHz,
+    channelCount,
+    encoding,
+    frameCount,
+    durationS,
+    channel(index, field) {
+      const channelIndex = chooseChannel(index, channelCount, field);
+      return {
+        channelIndex,
+        ...decodeChannel(data, encoding, channelCount, channelIndex, frameCount, littleEndian),
+      };
+    },
+  };
 }
 
-function describeParseFailure(bytes: Uint8Array, error: unknown): SignalProblemError {
-  const head = String.fromCharCode(...bytes.subarray(0, 4));
-  const form = String.fromCharCode(...bytes.subarray(8, 12));
-  const isRiff = ['RIFF', 'RIFX', 'RF64'].includes(head) && form === 'WAVE';
-  if (!isRiff) {
-    return new SignalProblemError('The file is not a WAV file (no RIFF/WAVE header).', 'notWav');
-  }
-  const reason = error instanceof Error ? error.message : String(error);
-  if (/"data" chunk/.test(reason)) {
-    return new SignalProblemError('The file is truncated or incomplete: it has no data chunk.', 'truncated');
-  }
-  if (/"fmt " chunk/.test(reason)) {
-    return new SignalProblemError(
-      'The file is truncated or incomplete: it has no format chunk.',
-      'truncated',
-    );
-  }
-  return new SignalProblemError(`The WAV file could not be read: ${reason}.`, 'notWav');
+/**
+ * Decodes one channel of a WAV file (see {@link openWav}) to samples scaled to ±1 full scale.
+ *
+ * @param bytes the whole file.
+ * @param options.channel zero-based channel index; required when the file has more than one channel.
+ * @param options.limits duration and sample-rate limits (default {@link DEFAULT_WAV_LIMITS}).
+ * @param options.channelField the request field that names the channel, for errors (default `/channel`).
+ * @throws SignalProblemError naming what is wrong (as {@link openWav}, plus a channel missing or out of
+ *   range, and float samples that are not finite or beyond ±{@link MAX_FLOAT_SAMPLE}).
+ */
+export function decodeWav(
+  bytes: Uint8Array,
+  options: { channel?: number; limits?: WavDecodeLimits; channelField?: string } = {},
+): DecodedWav {
+  const { channel, ...info } = openWav(bytes, options.limits);
+  return { ...info, ...channel(options.channel, options.channelField ?? '/channel') };
 }
 
-function encodingOf(fmt: FmtChunk): WavEncoding {
-  // The first 32 bits of an extensible sub-format GUID carry the plain format code.
-  const format = fmt.audioFormat === WAVE_FORMAT_EXTENSIBLE ? fmt.subformat[0] : fmt.audioFormat;
-  if (format === WAVE_FORMAT_PCM && [16, 24, 32].includes(fmt.bitsPerSample)) {
-    return `pcm${fmt.bitsPerSample}` as WavEncoding;
+function encodingOf(formatCode: number, bitsPerSample: number): WavEncoding {
+  if (formatCode === WAVE_FORMAT_PCM && [16, 24, 32].includes(bitsPerSample)) {
+    return `pcm${bitsPerSample}` as WavEncoding;
   }
-  if (format === WAVE_FORMAT_IEEE_FLOAT && fmt.bitsPerSample === 32) return 'float32';
+  if (formatCode === WAVE_FORMAT_IEEE_FLOAT && bitsPerSample === 32) return 'float32';
   throw new SignalProblemError(
-    `The encoding (format code ${format}, ${fmt.bitsPerSample} bits) is not supported; use PCM 16, 24 or 32-bit integer or 32-bit float.`,
+    `The encoding (format code ${formatCode}, ${bitsPerSample} bits) is not supported; use PCM 16, 24 or 32-bit integer or 32-bit float.`,
     'unsupportedEncoding',
   );
 }
@@ -180,38 +171,58 @@ function decodeChannel(
   channelIndex: number,
   frameCount: number,
   littleEndian: boolean,
-): Float64Array {
+): { samples: Float64Array; warnings: DecodeWarning[] } {
   const view = new DataView(raw.buffer, raw.byteOffset, raw.byteLength);
   const bytesPerSample = encoding === 'pcm16' ? 2 : encoding === 'pcm24' ? 3 : 4;
   const stride = channelCount * bytesPerSample;
   const out = new Float64Array(frameCount);
   let offset = channelIndex * bytesPerSample;
-  for (let i = 0; i < frameCount; i++, offset += stride) {
-    switch (encoding) {
-      case 'pcm16':
+  switch (encoding) {
+    case 'pcm16':
+      for (let i = 0; i < frameCount; i++, offset += stride)
         out[i] = view.getInt16(offset, littleEndian) / 32768;
-        break;
-      case 'pcm24': {
+      break;
+    case 'pcm24':
+      for (let i = 0; i < frameCount; i++, offset += stride) {
         const lo = littleEndian ? raw[offset] : raw[offset + 2];
         const hi = littleEndian ? raw[offset + 2] : raw[offset];
         out[i] = (((hi << 24) >> 8) | (raw[offset + 1] << 8) | lo) / 8388608;
-        break;
       }
-      case 'pcm32':
+      break;
+    case 'pcm32':
+      for (let i = 0; i < frameCount; i++, offset += stride)
         out[i] = view.getInt32(offset, littleEndian) / 2147483648;
-        break;
-      case 'float32': {
+      break;
+    case 'float32': {
+      let peak = 0;
+      for (let i = 0; i < frameCount; i++, offset += stride) {
         const value = view.getFloat32(offset, littleEndian);
-        if (!Number.isFinite(value)) {
+        const magnitude = Math.abs(value);
+        // NaN fails both comparisons, so it is caught with the infinities and the absurd values.
+        if (!(magnitude <= MAX_FLOAT_SAMPLE)) {
           throw new SignalProblemError(
-            `Sample ${i} of channel ${channelIndex} is not a finite number.`,
+            Number.isFinite(value)
+              ? `Sample ${i} of channel ${channelIndex} is ${value.toPrecision(4)} (${(20 * Math.log10(magnitude)).toFixed(1)} dBFS); float samples may reach at most ±${MAX_FLOAT_SAMPLE} (+60 dBFS).`
+              : `Sample ${i} of channel ${channelIndex} is not a finite number (${value}).`,
             'invalidSamples',
           );
         }
+        if (magnitude > peak) peak = magnitude;
         out[i] = value;
-        break;
       }
+      if (peak > 1) {
+        return {
+          samples: out,
+          warnings: [
+            {
+              code: 'aboveFullScale',
+              message: `Float samples of channel ${channelIndex} reach ${(20 * Math.log10(peak)).toFixed(1)} dBFS, above full scale (±1.0); levels are reported as they are, unclipped.`,
+            },
+          ],
+        };
+      }
+      break;
     }
   }
-  return out;
+  return { samples: out, warnings: [] };
 }

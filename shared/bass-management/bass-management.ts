@@ -6,7 +6,7 @@ import {
   type CrossoverSpec,
   type Polarity,
 } from '../filters/crossover';
-import type { BiquadSection } from '../filters/biquad-design';
+import type { Sos } from '../dsp/sos';
 import type { Caution, CalculationWarning } from '../notices';
 import { DEFAULT_SAMPLE_RATE_HZ, requireSampleRate } from '../units/sample-rate';
 
@@ -45,7 +45,7 @@ export interface FilterPath {
   family: CrossoverFamily;
   order: number;
   frequencyHz: number;
-  sections: BiquadSection[];
+  sections: Sos[];
 }
 
 export interface BassManagementChannelResult {

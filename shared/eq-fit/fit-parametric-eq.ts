@@ -1,7 +1,9 @@
-import { fractionalOctaveMean, logFrequencyGrid } from '../analysis/smoothing';
+import { fractionalOctaveMean } from '../analysis/smoothing';
+import { logFrequencyGrid } from '../dsp/grid';
+import { sosMagnitudeDb, unitCircle, type UnitCircle } from '../dsp/response';
+import type { Sos } from '../dsp/sos';
 import { CalculationInputError, requireInRange, requireInteger } from '../errors';
-import { designBiquad, FILTER_LIMITS, type BiquadSection } from '../filters/biquad-design';
-import { cascadeResponse } from '../filters/response';
+import { designBiquad, FILTER_LIMITS } from '../filters/biquad-design';
 import { requireSampleRate } from '../units/sample-rate';
 import { levenbergMarquardt, type LeastSquaresProblem } from './least-squares';
 import { findNulls, type ResponseNull } from './nulls';
@@ -42,7 +44,7 @@ export interface EqFitWarning {
 export interface EqFitResult {
   bands: PeakingBand[];
   /** One cookbook peaking section per band, a0 = 1. */
-  sections: BiquadSection[];
+  sections: Sos[];
   /** The measured response with the sections applied, at the measured frequencies. */
   predicted: { frequenciesHz: number[]; magnitudeDb: number[] };
   /**
@@ -135,7 +137,7 @@ export function fitParametricEq(input: EqFitInput): EqFitResult {
   const { fromHz, toHz } = fitBand(input, frequenciesHz, fs, warnings);
   const qMax = resolutionLimitedQ(frequenciesHz, fromHz, toHz, qRange, warnings);
 
-  const grid = logFrequencyGrid(fromHz, toHz, GRID_POINTS_PER_OCTAVE);
+  const grid = logFrequencyGrid(fromHz, toHz, GRID_POINTS_PER_OCTAVE, 'iec');
   if (grid.length < 8) {
     throw new CalculationInputError(
       `the fit band ${fromHz}..${toHz} Hz is too narrow; it must span at least 1/6 octave`,
@@ -188,11 +190,8 @@ export function fitParametricEq(input: EqFitInput): EqFitResult {
 
   const peakingBands: PeakingBand[] = bands.map((b) => ({ type: 'peaking', ...b }));
   const sections = peakingBands.map((b) => designBiquad(b, fs));
-  const eqOnGrid = sections.length > 0 ? cascadeResponse(sections, grid, fs).magnitudeDb : grid.map(() => 0);
-  const eqOnMeasured =
-    sections.length > 0
-      ? cascadeResponse(sections, frequenciesHz, fs).magnitudeDb
-      : frequenciesHz.map(() => 0);
+  const eqOnGrid = sosMagnitudeDb(sections, model.circle);
+  const eqOnMeasured = sosMagnitudeDb(sections, unitCircle(frequenciesHz, fs));
   const levelBefore = model.levelOf(new Float64Array(grid.length));
   const levelAfter = model.levelOf(eqOnGrid);
   const residualAfter = Array.from(errorDb, (e, i) => e + eqOnGrid[i] - levelAfter);
@@ -226,9 +225,7 @@ interface Bounds {
 
 /** The fit's data and the dB response of peaking bands on its grid. */
 class BandModel {
-  private readonly cos1: Float64Array;
-  private readonly cos2: Float64Array;
-  private readonly weight: Float64Array;
+  readonly circle: UnitCircle;
 
   constructor(
     readonly grid: number[],
@@ -239,27 +236,12 @@ class BandModel {
     /** When true the target's level follows the corrected response (cuts only); otherwise it is fixed. */
     readonly freeLevel: boolean,
   ) {
-    this.cos1 = Float64Array.from(grid, (f) => Math.cos((2 * Math.PI * f) / sampleRateHz));
-    this.cos2 = Float64Array.from(grid, (f) => Math.cos((4 * Math.PI * f) / sampleRateHz));
-    this.weight = Float64Array.from(inNull, (n) => (n ? 0 : 1));
+    this.circle = unitCircle(grid, sampleRateHz);
   }
 
   /** dB response of one cookbook peaking section on the grid, written into `out`. */
   bandDb(band: Band, out: Float64Array): Float64Array {
-    const { b0, b1, b2, a1, a2 } = designBiquad({ type: 'peaking', ...band }, this.sampleRateHz);
-    // |B(e^jw)|² = b0² + b1² + b2² + 2(b0b1 + b1b2)cos w + 2b0b2 cos 2w, likewise for the denominator.
-    const n0 = b0 * b0 + b1 * b1 + b2 * b2;
-    const n1 = 2 * (b0 * b1 + b1 * b2);
-    const n2 = 2 * b0 * b2;
-    const d0 = 1 + a1 * a1 + a2 * a2;
-    const d1 = 2 * (a1 + a1 * a2);
-    const d2 = 2 * a2;
-    for (let i = 0; i < out.length; i++) {
-      const num = n0 + n1 * this.cos1[i] + n2 * this.cos2[i];
-      const den = d0 + d1 * this.cos1[i] + d2 * this.cos2[i];
-      out[i] = 10 * Math.log10(num / den);
-    }
-    return out;
+    return sosMagnitudeDb([designBiquad({ type: 'peaking', ...band }, this.sampleRateHz)], this.circle, out);
   }
 
   totalDb(bands: readonly Band[]): Float64Array {

@@ -1,5 +1,5 @@
 import { designBiquad, designBiquads, FILTER_TYPES, FilterSpec, FilterType } from './biquad-design';
-import { isStable } from './response';
+import { isStable } from '../dsp/sos';
 import {
   catchInputError,
   expectWithin,

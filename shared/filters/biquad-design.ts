@@ -1,4 +1,5 @@
 import { CalculationInputError, requireInRange, withFieldPrefix } from '../errors';
+import type { Sos } from '../dsp/sos';
 import { requireSampleRate } from '../units/sample-rate';
 
 export type FilterType =
@@ -28,19 +29,6 @@ export interface FilterSpec {
   q?: number;
   bandwidthOctaves?: number;
   shelfSlope?: number;
-}
-
-/**
- * One normalised second-order section (a0 = 1):
- * H(z) = (b0 + b1 z^-1 + b2 z^-2) / (1 + a1 z^-1 + a2 z^-2). A first-order section has b2 = a2 = 0.
- */
-export interface BiquadSection {
-  type?: string;
-  b0: number;
-  b1: number;
-  b2: number;
-  a1: number;
-  a2: number;
 }
 
 /** Ranges accepted by designBiquad (chosen to cover studio EQ and crossovers with margin). */
@@ -78,7 +66,7 @@ const SHELF_TYPES: ReadonlySet<FilterType> = new Set(['lowShelf', 'highShelf']);
  * @returns the normalised section, tagged with the filter type.
  * @throws CalculationInputError naming the bad field (`/frequencyHz`, `/q`, ...) relative to the spec.
  */
-export function designBiquad(spec: FilterSpec, sampleRateHz: number): BiquadSection {
+export function designBiquad(spec: FilterSpec, sampleRateHz: number): Sos {
   const fs = requireSampleRate(sampleRateHz);
   if (!FILTER_TYPES.includes(spec.type)) {
     throw new CalculationInputError(
@@ -102,7 +90,7 @@ export function designBiquad(spec: FilterSpec, sampleRateHz: number): BiquadSect
   const alpha = readAlpha(spec, A, w0, sinW0);
 
   const [b0, b1, b2, a0, a1, a2] = rawCoefficients(spec.type, { A, cosW0, oneMinusCos, onePlusCos, alpha });
-  const section: BiquadSection = {
+  const section: Sos = {
     type: spec.type,
     b0: b0 / a0,
     b1: b1 / a0,
@@ -122,11 +110,7 @@ export function designBiquad(spec: FilterSpec, sampleRateHz: number): BiquadSect
 /**
  * Designs a list of filters; errors name the item, e.g. `/filters/2/q` with `pointerPrefix = '/filters'`.
  */
-export function designBiquads(
-  specs: FilterSpec[],
-  sampleRateHz: number,
-  pointerPrefix = '/filters',
-): BiquadSection[] {
+export function designBiquads(specs: FilterSpec[], sampleRateHz: number, pointerPrefix = '/filters'): Sos[] {
   requireSampleRate(sampleRateHz);
   return specs.map((spec, i) =>
     withFieldPrefix(`${pointerPrefix}/${i}`, () => designBiquad(spec, sampleRateHz)),

@@ -1,4 +1,4 @@
-import type { BiquadSection } from './biquad-design';
+import type { Sos } from '../dsp/sos';
 import {
   butterworthQs,
   butterworthSections,
@@ -7,7 +7,7 @@ import {
   linkwitzRileySections,
   planCrossover,
 } from './crossover';
-import { isStable } from './response';
+import { isStable } from '../dsp/sos';
 import {
   catchInputError,
   expectWithin,
@@ -41,7 +41,7 @@ function butterworthDb(
   return -10 * Math.log10(1 + Math.pow(r, 2 * order));
 }
 
-function sumDb(lp: BiquadSection[], hp: BiquadSection[], sign: number, f: number, fs: number): number {
+function sumDb(lp: Sos[], hp: Sos[], sign: number, f: number, fs: number): number {
   const l = referenceResponse(lp, f, fs);
   const h = referenceResponse(hp, f, fs);
   return 20 * Math.log10(Math.hypot(l.re + sign * h.re, l.im + sign * h.im));

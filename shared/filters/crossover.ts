@@ -1,14 +1,10 @@
 import { CalculationInputError, requireInRange, requireInteger, withFieldPrefix } from '../errors';
 import type { CalculationWarning } from '../notices';
 import { DEFAULT_SAMPLE_RATE_HZ, requireSampleRate } from '../units/sample-rate';
-import { designBiquad, FILTER_LIMITS, type BiquadSection } from './biquad-design';
-import {
-  cascadeResponse,
-  parallelResponse,
-  responseGrid,
-  type CascadeResponse,
-  type ResponseGridSpec,
-} from './response';
+import { responseGrid, type ResponseGridSpec } from '../dsp/grid';
+import { cascadeResponse, parallelResponse, type SosResponse } from '../dsp/response';
+import type { Sos } from '../dsp/sos';
+import { designBiquad, FILTER_LIMITS } from './biquad-design';
 
 export type CrossoverFamily = 'linkwitzRiley' | 'butterworth';
 export type Polarity = 'normal' | 'inverted';
@@ -24,18 +20,18 @@ export interface CrossoverSpec {
 }
 
 export interface Crossover extends CrossoverSpec {
-  lowPass: { sections: BiquadSection[] };
-  highPass: { sections: BiquadSection[] };
+  lowPass: { sections: Sos[] };
+  highPass: { sections: Sos[] };
   /** Polarity to give the high-pass output so the two outputs sum as flat as the family allows. */
   highPassPolarity: Polarity;
   warnings: CalculationWarning[];
 }
 
 export interface CrossoverResponse {
-  lowPass: CascadeResponse;
-  highPass: CascadeResponse;
+  lowPass: SosResponse;
+  highPass: SosResponse;
   /** Complex sum of the low-pass and the high-pass with highPassPolarity applied. */
-  sum: CascadeResponse;
+  sum: SosResponse;
 }
 
 /**
@@ -64,11 +60,11 @@ export function butterworthSections(
   order: number,
   frequencyHz: number,
   sampleRateHz: number,
-): BiquadSection[] {
+): Sos[] {
   const fs = requireSampleRate(sampleRateHz);
   requireInteger(order, { min: 1, max: 8 }, 'order', '/order');
   const f = requireCrossoverFrequency(frequencyHz, fs);
-  const sections: BiquadSection[] = [];
+  const sections: Sos[] = [];
   if (order % 2 === 1) sections.push(firstOrderSection(kind, f, fs));
   for (const q of butterworthQs(order)) sections.push(designBiquad({ type: kind, frequencyHz: f, q }, fs));
   return sections;
@@ -85,7 +81,7 @@ export function linkwitzRileySections(
   order: number,
   frequencyHz: number,
   sampleRateHz: number,
-): BiquadSection[] {
+): Sos[] {
   const fs = requireSampleRate(sampleRateHz);
   const f = requireCrossoverFrequency(frequencyHz, fs);
   if (!(LINKWITZ_RILEY_ORDERS as readonly number[]).includes(order)) {
@@ -108,7 +104,7 @@ export function linkwitzRileySections(
 export function designCrossover(spec: CrossoverSpec, sampleRateHz: number): Crossover {
   const fs = requireSampleRate(sampleRateHz);
   const { family, order, frequencyHz } = spec;
-  let design: (kind: 'lowPass' | 'highPass', o: number, f: number, rate: number) => BiquadSection[];
+  let design: (kind: 'lowPass' | 'highPass', o: number, f: number, rate: number) => Sos[];
   if (family === 'butterworth') {
     design = butterworthSections;
   } else if (family === 'linkwitzRiley') {
@@ -161,7 +157,7 @@ export function crossoverResponse(
   };
 }
 
-function firstOrderSection(kind: 'lowPass' | 'highPass', frequencyHz: number, fs: number): BiquadSection {
+function firstOrderSection(kind: 'lowPass' | 'highPass', frequencyHz: number, fs: number): Sos {
   const k = Math.tan((Math.PI * frequencyHz) / fs);
   const a1 = (k - 1) / (k + 1);
   return kind === 'lowPass'

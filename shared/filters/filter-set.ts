@@ -1,8 +1,10 @@
 import { requireInRange, requireInteger, withFieldPrefix } from '../errors';
 import type { Caution, CalculationWarning } from '../notices';
 import { DEFAULT_SAMPLE_RATE_HZ, requireSampleRate } from '../units/sample-rate';
-import { designBiquads, type BiquadSection, type FilterSpec } from './biquad-design';
-import { frequencyResponse, type FrequencyResponse, type ResponseGridSpec } from './response';
+import { responseGrid, type ResponseGridSpec } from '../dsp/grid';
+import { cascadeResponse, type FrequencyResponse } from '../dsp/response';
+import type { Sos } from '../dsp/sos';
+import { designBiquads, type FilterSpec } from './biquad-design';
 
 export interface FilterSetInput {
   filters: FilterSpec[];
@@ -14,7 +16,7 @@ export interface FilterSetInput {
 
 export interface FilterSet {
   sampleRateHz: number;
-  sections: BiquadSection[];
+  sections: Sos[];
   response?: FrequencyResponse;
   warnings: CalculationWarning[];
   cautions: Caution[];
@@ -38,9 +40,10 @@ export function designFilterSet(input: FilterSetInput): FilterSet {
   const response =
     input.response === undefined
       ? undefined
-      : withFieldPrefix('/response', () =>
-          frequencyResponse(sections, input.response as ResponseGridSpec, fs),
-        );
+      : withFieldPrefix('/response', (): FrequencyResponse => {
+          const frequenciesHz = responseGrid(input.response as ResponseGridSpec, fs);
+          return { frequenciesHz, ...cascadeResponse(sections, frequenciesHz, fs) };
+        });
   return {
     sampleRateHz: fs,
     sections,

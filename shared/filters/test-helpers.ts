@@ -1,10 +1,12 @@
 /**
  * Helpers for the calculation tests: a float comparison with a stated tolerance, and a direct
- * frequency-response evaluator written independently of response.ts (it multiplies the sections'
- * complex values at z = e^(jω) instead of factoring them into roots).
+ * frequency-response evaluator written independently of dsp/response.ts (it evaluates each section's
+ * polynomials with Math.cos/Math.sin at each frequency and multiplies the complex values in the
+ * textbook way; only the data types are shared).
  */
+import type { Complex } from '../dsp/complex';
+import type { Sos } from '../dsp/sos';
 import { CalculationInputError } from '../errors';
-import type { BiquadSection } from './biquad-design';
 
 /** Fails with a readable message unless |actual − expected| ≤ tolerance. */
 export function expectWithin(actual: number, expected: number, tolerance: number, what = 'value'): void {
@@ -15,17 +17,8 @@ export function expectWithin(actual: number, expected: number, tolerance: number
   }
 }
 
-export interface Complex {
-  re: number;
-  im: number;
-}
-
 /** H(e^(jω)) of a cascade, evaluated directly. */
-export function referenceResponse(
-  sections: BiquadSection[],
-  frequencyHz: number,
-  sampleRateHz: number,
-): Complex {
+export function referenceResponse(sections: Sos[], frequencyHz: number, sampleRateHz: number): Complex {
   const w = (2 * Math.PI * frequencyHz) / sampleRateHz;
   let re = 1;
   let im = 0;
@@ -42,13 +35,13 @@ export function referenceResponse(
   return { re, im };
 }
 
-export function referenceDb(sections: BiquadSection[], frequencyHz: number, sampleRateHz: number): number {
+export function referenceDb(sections: Sos[], frequencyHz: number, sampleRateHz: number): number {
   const h = referenceResponse(sections, frequencyHz, sampleRateHz);
   return 20 * Math.log10(Math.hypot(h.re, h.im));
 }
 
 /** Poles of 1 + a1 z^-1 + a2 z^-2 as complex numbers, by the quadratic formula. */
-export function polesOf(section: BiquadSection): Complex[] {
+export function polesOf(section: Sos): Complex[] {
   const { a1, a2 } = section;
   const disc = a1 * a1 - 4 * a2;
   if (disc >= 0) {
@@ -100,11 +93,6 @@ export function cookbookPeakingDb(
   const alpha = Math.sin(w0) / (2 * q);
   const b = [1 + alpha * A, -2 * Math.cos(w0), 1 - alpha * A];
   const a = [1 + alpha / A, -2 * Math.cos(w0), 1 - alpha / A];
-  const w = (2 * Math.PI * frequencyHz) / sampleRateHz;
-  const magnitude = (c: number[]) =>
-    Math.hypot(
-      c[0] + c[1] * Math.cos(w) + c[2] * Math.cos(2 * w),
-      c[1] * Math.sin(w) + c[2] * Math.sin(2 * w),
-    );
-  return 20 * Math.log10(magnitude(b) / magnitude(a));
+  const [b0, b1, b2] = b.map((x) => x / a[0]);
+  return referenceDb([{ b0, b1, b2, a1: a[1] / a[0], a2: a[2] / a[0] }], frequencyHz, sampleRateHz);
 }

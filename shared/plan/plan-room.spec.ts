@@ -1,7 +1,7 @@
 import { STAGE3_REFERENCE_DB, STAGE3_ROOM, STAGE3_SPL_DB } from '../../seeds/demo-stage3-room';
 import { stage3MeasuredResponses } from '../../seeds/demo-stage3-measurements';
 import { designCrossover } from '../filters/crossover';
-import { cascadeResponse } from '../filters/response';
+import { cascadeResponse } from '../dsp/response';
 import { planRoom, type PlanInput } from './plan-room';
 import { alignSubwooferAtCrossover } from './subwoofer-alignment';
 

@@ -7,7 +7,7 @@ import { alignDelays } from '../delay/align-delays';
 import { fitParametricEq, type PeakingBand } from '../eq-fit/fit-parametric-eq';
 import type { TargetCurve } from '../eq-fit/target-curve';
 import { CalculationInputError, withFieldPrefix } from '../errors';
-import type { BiquadSection } from '../filters/biquad-design';
+import type { Sos } from '../dsp/sos';
 import { designCrossover, type CrossoverFamily, type Polarity } from '../filters/crossover';
 import {
   analyseGeometry,
@@ -80,7 +80,7 @@ export interface PlanFilterPath {
   family: CrossoverFamily;
   order: number;
   frequencyHz: number;
-  sections: BiquadSection[];
+  sections: Sos[];
 }
 
 export interface PlanChannel {
@@ -97,7 +97,7 @@ export interface PlanChannel {
   polarity: Polarity;
   eq: {
     bands: PeakingBand[];
-    sections: BiquadSection[];
+    sections: Sos[];
     residualRmsDb: { before: number; after: number } | null;
     predicted: { frequenciesHz: number[]; magnitudeDb: number[] } | null;
     fromHz: number | null;

@@ -1,7 +1,6 @@
-import type { BiquadSection } from '../filters/biquad-design';
-import { cascadeResponse } from '../filters/response';
+import type { Sos } from '../dsp/sos';
+import { cascadeResponse, wrapDegrees } from '../dsp/response';
 import type { Polarity } from '../filters/crossover';
-import { wrapDeg } from '../geometry/angles';
 
 /** Phase differences within this of 90° count as a tie, degrees. */
 const TIE_DEG = 1e-6;
@@ -31,8 +30,8 @@ export interface SubwooferAlignment {
  * @param frequencyHz crossover frequency, hertz.
  */
 export function alignSubwooferAtCrossover(
-  lowPass: BiquadSection[],
-  highPass: BiquadSection[],
+  lowPass: Sos[],
+  highPass: Sos[],
   highPassPolarity: Polarity,
   frequencyHz: number,
   sampleRateHz: number,
@@ -40,10 +39,10 @@ export function alignSubwooferAtCrossover(
   const [phaseLow] = cascadeResponse(lowPass, [frequencyHz], sampleRateHz).phaseDeg;
   const [phaseHigh] = cascadeResponse(highPass, [frequencyHz], sampleRateHz).phaseDeg;
   const mains = phaseHigh + (highPassPolarity === 'inverted' ? 180 : 0);
-  const difference = wrapDeg(phaseLow - mains);
+  const difference = wrapDegrees(phaseLow - mains);
   // At exactly 90° both choices need the same delay; normal polarity is kept (the simpler setting).
   const invert = Math.abs(difference) > 90 + TIE_DEG;
-  const residual = invert ? wrapDeg(difference + 180) : difference;
+  const residual = invert ? wrapDegrees(difference + 180) : difference;
   return {
     polarity: invert ? 'inverted' : 'normal',
     correctionMs: (residual / (360 * frequencyHz)) * 1000,

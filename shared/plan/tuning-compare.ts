@@ -1,4 +1,5 @@
-import { cascadeResponse, responseGrid } from '../filters/response';
+import { responseGrid } from '../dsp/grid';
+import { cascadeResponse } from '../dsp/response';
 import type { TuningSettings } from './tuning';
 import { designTuning } from './tuning-design';
 

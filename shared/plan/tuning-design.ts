@@ -1,11 +1,11 @@
-import type { BiquadSection } from '../filters/biquad-design';
+import type { Sos } from '../dsp/sos';
 import { designBiquads } from '../filters/biquad-design';
 import { designCrossover, type Polarity } from '../filters/crossover';
 import { withFieldPrefix } from '../errors';
 import { requireSampleRate } from '../units/sample-rate';
 import type { TuningSettings } from './tuning';
 
-export interface DesignedSection extends BiquadSection {
+export interface DesignedSection extends Sos {
   /** Which stage of the channel the section belongs to. */
   stage: 'eq' | 'highPass' | 'lowPass';
 }

@@ -1,6 +1,6 @@
 import { designBiquad } from '../filters/biquad-design';
 import { linkwitzRileySections } from '../filters/crossover';
-import { cascadeResponse } from '../filters/response';
+import { cascadeResponse } from '../dsp/response';
 import { planRoom } from './plan-room';
 import { planToTuningSettings } from './plan-to-tuning';
 import { checkTuningSettings, type TuningSettings } from './tuning';

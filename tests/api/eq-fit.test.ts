@@ -2,7 +2,7 @@ import request from 'supertest';
 import { expectToMatchContract } from '../support/contract';
 import { createTestContext, type TestContext } from '../support/test-context';
 import { expectProblem, poster } from './calculation-helpers';
-import { cookbookPeakingDb } from '../../shared/filters/test-helpers';
+import { cookbookPeakingDb, referenceDb } from '../../shared/filters/test-helpers';
 
 let ctx: TestContext;
 beforeAll(async () => {
@@ -13,24 +13,6 @@ afterAll(async () => {
 });
 
 const post = poster(() => ctx, '/v1/eq/fit');
-
-/** |H| in dB of one returned section, from its coefficients. */
-function sectionDb(
-  s: { b0: number; b1: number; b2: number; a1: number; a2: number },
-  f: number,
-  fs: number,
-): number {
-  const w = (2 * Math.PI * f) / fs;
-  const n = Math.hypot(
-    s.b0 + s.b1 * Math.cos(w) + s.b2 * Math.cos(2 * w),
-    s.b1 * Math.sin(w) + s.b2 * Math.sin(2 * w),
-  );
-  const d = Math.hypot(
-    1 + s.a1 * Math.cos(w) + s.a2 * Math.cos(2 * w),
-    s.a1 * Math.sin(w) + s.a2 * Math.sin(2 * w),
-  );
-  return 20 * Math.log10(n / d);
-}
 
 const freqs = Array.from({ length: 113 }, (_, k) => 20 * Math.pow(25, k / 112));
 const measured = (peaks: Array<[number, number, number]>, fs: number) =>
@@ -64,7 +46,7 @@ describe('POST /v1/eq/fit', () => {
       expect(band.gainDb).toBeLessThan(0);
       expect(band.gainDb).toBeGreaterThanOrEqual(-12);
       for (const f of [band.frequencyHz, 100, 1000]) {
-        expect(sectionDb(res.body.sections[i], f, fs)).toBeCloseTo(
+        expect(referenceDb([res.body.sections[i]], f, fs)).toBeCloseTo(
           cookbookPeakingDb(band.frequencyHz, band.gainDb, band.q, f, fs),
           9,
         );

@@ -1,7 +1,7 @@
 import request from 'supertest';
 import { STAGE3_REFERENCE_DB, STAGE3_ROOM, STAGE3_SPL_DB } from '../../seeds/demo-stage3-room';
 import { designBiquad } from '../../shared/filters/biquad-design';
-import { cascadeResponse } from '../../shared/filters/response';
+import { cascadeResponse } from '../../shared/dsp/response';
 import { expectToMatchContract } from '../support/contract';
 import { createTestContext, type TestContext } from '../support/test-context';
 

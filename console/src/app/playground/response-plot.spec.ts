@@ -1,5 +1,5 @@
 import Fili from 'fili';
-import type { Section } from './biquad-response';
+import type { Sos } from '../../../../shared/dsp/sos';
 import { curvesFromResult, magnitudeChart, magnitudeRange, phaseChart } from './response-plot';
 
 // References: a Linkwitz-Riley crossover (two cascaded Butterworth filters of the same order) sums to
@@ -9,7 +9,7 @@ import { curvesFromResult, magnitudeChart, magnitudeRange, phaseChart } from './
 const fs = 48000;
 const fc = 80;
 
-function butterworth2(kind: 'lowpass' | 'highpass'): Section {
+function butterworth2(kind: 'lowpass' | 'highpass'): Sos {
   const [c] = new Fili.CalcCascades()[kind]({
     order: 1,
     characteristic: 'butterworth',
@@ -22,7 +22,7 @@ function butterworth2(kind: 'lowpass' | 'highpass'): Section {
   return { b0: c.b[0], b1: c.b[1], b2: c.b[2], a1: c.a[0], a2: c.a[1] };
 }
 
-function firstOrder(kind: 'lowPass' | 'highPass'): Section {
+function firstOrder(kind: 'lowPass' | 'highPass'): Sos {
   // Bilinear transform of s/(s+ω) and ω/(s+ω), pre-warped: K = tan(π·fc/fs).
   const k = Math.tan((Math.PI * fc) / fs);
   const a1 = (k - 1) / (k + 1);

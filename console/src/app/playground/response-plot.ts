@@ -1,7 +1,8 @@
 import type { ChartSpec } from '../ui/chart/chart-spec';
 import { formatFrequency } from '../ui/chart/frequency-ticks';
-import { cascadeResponse, parallelResponse, type CascadeResponse } from '../../../../shared/filters/response';
-import { type Section, isSection, logFrequencies } from './biquad-response';
+import { logFrequencyGrid } from '../../../../shared/dsp/grid';
+import { cascadeResponse, parallelResponse, type SosResponse } from '../../../../shared/dsp/response';
+import { isSos, type Sos } from '../../../../shared/dsp/sos';
 
 /** One curve to draw against a logarithmic frequency axis. */
 export interface PlotCurve {
@@ -81,15 +82,15 @@ function reportedCurves(
   }
 }
 
-function sectionsOf(node: unknown): Section[] | null {
-  if (Array.isArray(node) && node.length > 0 && node.every(isSection)) return node;
+function sectionsOf(node: unknown): Sos[] | null {
+  if (Array.isArray(node) && node.length > 0 && node.every(isSos)) return node;
   if (
     isRecord(node) &&
     Array.isArray(node['sections']) &&
     node['sections'].length > 0 &&
-    node['sections'].every(isSection)
+    node['sections'].every(isSos)
   ) {
-    return node['sections'] as Section[];
+    return node['sections'] as Sos[];
   }
   return null;
 }
@@ -97,7 +98,7 @@ function sectionsOf(node: unknown): Section[] | null {
 function computedCurve(
   label: string,
   frequencies: number[],
-  response: CascadeResponse,
+  response: SosResponse,
   isSum: boolean,
 ): PlotCurve {
   return {
@@ -111,7 +112,7 @@ function computedCurve(
 }
 
 /** The complex sum of a low-pass and a high-pass output, the high-pass subtracted when inverted. */
-function crossoverSum(low: Section[], high: Section[], inverted: boolean, grid: number[], fs: number) {
+function crossoverSum(low: Sos[], high: Sos[], inverted: boolean, grid: number[], fs: number) {
   return parallelResponse(
     [
       { sections: low, gain: 1 },
@@ -193,7 +194,7 @@ function bassManagementSum(body: unknown, grid: number[], fs: number): PlotCurve
   const low = sectionsOf(body['subwoofer']['lowPass']);
   const managed = body['channels'].find((channel) => isRecord(channel) && sectionsOf(channel['highPass']));
   if (!low || !isRecord(managed) || !isRecord(managed['highPass'])) return null;
-  const high = sectionsOf(managed['highPass']) as Section[];
+  const high = sectionsOf(managed['highPass']) as Sos[];
   const sum = crossoverSum(low, high, managed['highPass']['polarity'] === 'inverted', grid, fs);
   return computedCurve('sum: managed channel + subwoofer', grid, sum, true);
 }
@@ -216,7 +217,9 @@ export function curvesFromResult(body: unknown, requestBody?: unknown): PlotCurv
   }
   const fs = sampleRateOf(body, requestBody, isRecord(requestBody) ? requestBody['crossover'] : undefined);
   if (!fs) return mergeIdentical(reported);
-  const grid = logFrequencies(10, Math.min(20000, fs * 0.49), 24);
+  // Whole 1/24-octave steps from 10 Hz, so the octaves of 10 Hz (20, 40, 80 Hz …) are points of the plot.
+  const octaves = Math.floor(Math.log2(Math.min(20000, fs * 0.49) / 10) * 24) / 24;
+  const grid = logFrequencyGrid(10, 10 * 2 ** octaves, 24);
   const computed: PlotCurve[] = [];
   computedCurves(body, [], grid, fs, computed);
   const sum = bassManagementSum(body, grid, fs);

@@ -1,7 +1,8 @@
 import fc from 'fast-check';
-import { BiquadSection, designBiquad } from './biquad-design';
-import { cascadeResponse, isStable, parallelResponse, responseGrid } from './response';
-import { catchInputError, expectWithin, logSweep, polesOf, referenceResponse } from './test-helpers';
+import { designBiquad } from '../filters/biquad-design';
+import { catchInputError, expectWithin, logSweep, polesOf, referenceResponse } from '../filters/test-helpers';
+import { cascadeResponse, parallelResponse, sosfreqz, sosMagnitudeDb, unitCircle } from './response';
+import { isStable, type Sos } from './sos';
 import { webAudioResponses } from '../../tests/reference/web-audio';
 
 function wrappedDifferenceDeg(a: number, b: number): number {
@@ -10,7 +11,7 @@ function wrappedDifferenceDeg(a: number, b: number): number {
 }
 
 /** A mixed cascade: what an EQ of a studio channel might hold. */
-function sampleCascade(fs: number): BiquadSection[] {
+function sampleCascade(fs: number): Sos[] {
   return [
     designBiquad({ type: 'highPass', frequencyHz: 25, q: 0.6 }, fs),
     designBiquad({ type: 'peaking', frequencyHz: 63, gainDb: -7.5, q: 4 }, fs),
@@ -188,39 +189,6 @@ describe('parallelResponse', () => {
   });
 });
 
-describe('responseGrid', () => {
-  it('sweeps 20 Hz to 20480 Hz at 12 points per octave in 121 points with both ends included', () => {
-    const grid = responseGrid({ fromHz: 20, toHz: 20480, pointsPerOctave: 12 }, 48000);
-    expect(grid).toHaveLength(121);
-    expect(grid[0]).toBe(20);
-    expect(grid[120]).toBe(20480);
-    for (let i = 1; i < grid.length; i++)
-      expectWithin(grid[i] / grid[i - 1], Math.pow(2, 1 / 12), 1e-12, `step ${i}`);
-  });
-
-  it('defaults to 12 points per octave and returns listed frequencies as given', () => {
-    expect(responseGrid({ fromHz: 100, toHz: 200 }, 48000)).toHaveLength(13);
-    expect(responseGrid({ fromHz: 1000, toHz: 1000 }, 48000)).toEqual([1000]);
-    expect(responseGrid({ frequenciesHz: [80, 1000, 24000] }, 48000)).toEqual([80, 1000, 24000]);
-  });
-
-  it.each([
-    [{ fromHz: 0, toHz: 100 }, '/fromHz'],
-    [{ fromHz: 200, toHz: 100 }, '/toHz'],
-    [{ fromHz: 20, toHz: 30000 }, '/toHz'],
-    [{ fromHz: 20, toHz: 20000, pointsPerOctave: 0 }, '/pointsPerOctave'],
-    [{ fromHz: 20, toHz: 20000, pointsPerOctave: 97 }, '/pointsPerOctave'],
-    [{ fromHz: 20, toHz: 20000, pointsPerOctave: 2.5 }, '/pointsPerOctave'],
-    [{ fromHz: 1e-9, toHz: 24000, pointsPerOctave: 96 }, '/pointsPerOctave'],
-    [{ frequenciesHz: [] }, '/frequenciesHz'],
-    [{ frequenciesHz: new Array(4097).fill(100) }, '/frequenciesHz'],
-    [{ frequenciesHz: [100, 0] }, '/frequenciesHz/1'],
-    [{ frequenciesHz: [100, 24001] }, '/frequenciesHz/1'],
-  ])('refuses %p', (grid, field) => {
-    expect(catchInputError(() => responseGrid(grid, 48000)).field).toBe(field);
-  });
-});
-
 describe('isStable', () => {
   it('is true for designed sections and false for poles on or outside the unit circle', () => {
     expect(isStable(designBiquad({ type: 'lowPass', frequencyHz: 20, q: 100 }, 192000))).toBe(true);
@@ -246,5 +214,40 @@ describe('isStable', () => {
       ),
       { numRuns: 2000 },
     );
+  });
+});
+
+describe('sosfreqz and sosMagnitudeDb', () => {
+  const fs = 48000;
+  const sections = sampleCascade(fs);
+  const frequencies = logSweep(10, 23990, 12);
+
+  it('sosfreqz is the complex H of a direct evaluation (1e-12 relative)', () => {
+    const h = sosfreqz(sections, frequencies, fs);
+    frequencies.forEach((f, i) => {
+      const ref = referenceResponse(sections, f, fs);
+      const size = Math.hypot(ref.re, ref.im);
+      expectWithin(h.re[i], ref.re, 1e-12 * size, `${f} Hz re`);
+      expectWithin(h.im[i], ref.im, 1e-12 * size, `${f} Hz im`);
+    });
+  });
+
+  it('sosMagnitudeDb equals the magnitude of cascadeResponse (1e-9 dB)', () => {
+    const fast = sosMagnitudeDb(sections, unitCircle(frequencies, fs));
+    const full = cascadeResponse(sections, frequencies, fs);
+    frequencies.forEach((f, i) => expectWithin(fast[i], full.magnitudeDb[i], 1e-9, `${f} Hz`));
+    expect(Array.from(sosMagnitudeDb([], unitCircle(frequencies, fs)))).toEqual(frequencies.map(() => 0));
+  });
+
+  // The notch numerator 1 − 2cos(w0)·z⁻¹ + z⁻² is a symmetric FIR, so it has linear phase with a delay of
+  // exactly one sample (Oppenheim & Schafer, generalised linear phase); at its zero the phase jumps and
+  // group delay is undefined, reported as 0 (scipy.signal.group_delay's convention).
+  it('a notch numerator alone delays by exactly one sample, and 0 is reported at its zero', () => {
+    const notch = designBiquad({ type: 'notch', frequencyHz: 1000, q: 2 }, fs);
+    const numerator = { b0: 1, b1: notch.b1 / notch.b0, b2: 1, a1: 0, a2: 0 };
+    const r = cascadeResponse([numerator], [100, 500, 999, 1001, 5000, 1000], fs);
+    r.groupDelayMs.slice(0, 5).forEach((ms) => expectWithin(ms, 1000 / fs, 1e-9, 'one sample'));
+    expect(r.groupDelayMs[5]).toBe(0);
+    expect(r.magnitudeDb[5]).toBeLessThan(-200);
   });
 });
