@@ -146,34 +146,39 @@ function requestArbitrary(
     Object.fromEntries(
       pathNames.map((name) => [
         name,
-        fc.oneof({ weight: 4, arbitrary: fc.constantFrom(...pathValues(name, fix)) }, hostileString),
+        fc.oneof({ weight: 8, arbitrary: fc.constantFrom(...pathValues(name, fix)) }, hostileString),
       ]),
     ),
   ) as fc.Arbitrary<Record<string, string>>;
 
   const queryParameters = (operation.parameters ?? []).map(resolveParameter).filter((p) => p.in === 'query');
-  const query = fc.record(
-    {
-      ...Object.fromEntries(
-        queryParameters.map((p) => [
-          p.name,
+  // Each parameter is left out a third of the time; an unknown one comes one time in ten.
+  const query = fc.record({
+    ...Object.fromEntries(
+      queryParameters.map((p) => [
+        p.name,
+        fc.option(
           fc.oneof(
             { weight: 3, arbitrary: fromSchema(doc, p.schema) },
             { weight: 1, arbitrary: hostileString },
             ...(p.name === 'tuningId' || p.name === 'left' || p.name === 'right'
-              ? [{ weight: 3, arbitrary: fc.constant(fix.tuningId) }]
+              ? [{ weight: 4, arbitrary: fc.constant(fix.tuningId) }]
               : []),
           ),
-        ]),
-      ),
-      unexpected: hostileString,
-    },
-    { requiredKeys: [] },
-  ) as fc.Arbitrary<Record<string, unknown>>;
+          { nil: undefined, freq: 3 },
+        ),
+      ]),
+    ),
+    unexpected: fc.oneof(
+      { weight: 9, arbitrary: fc.constant(undefined) },
+      { weight: 1, arbitrary: hostileString },
+    ),
+  }) as fc.Arbitrary<Record<string, unknown>>;
 
   const content = operation.requestBody?.content ?? {};
   const bodies: Array<fc.WeightedArbitrary<GeneratedRequest['body']>> = [
-    { weight: 1, arbitrary: fc.constant({ kind: 'none' as const }) },
+    // An operation without a body mostly gets none, so that its parameters and callers are what varies.
+    { weight: operation.requestBody ? 1 : 12, arbitrary: fc.constant({ kind: 'none' as const }) },
     {
       weight: 1,
       arbitrary: fc.jsonValue({ maxDepth: 3 }).map((value) => ({ kind: 'json' as const, value })),
@@ -185,10 +190,20 @@ function requestArbitrary(
         .map((text) => ({ kind: 'raw' as const, text })),
     },
   ];
-  const json = content['application/json']?.schema;
-  if (json) {
-    const valid = fromSchema(doc, json);
-    bodies.push({ weight: 4, arbitrary: valid.map((value) => ({ kind: 'json' as const, value })) });
+  const json = content['application/json'];
+  if (json?.schema) {
+    // The documented examples are valid requests that reach the handlers; schema-generated bodies reach
+    // corners the examples do not. Both are sent as they are and with one thing broken.
+    const examples = Object.values(
+      (json as { examples?: Record<string, { value?: unknown }> }).examples ?? {},
+    )
+      .map((example) => example.value)
+      .filter((value) => value !== undefined);
+    const valid = fc.oneof(
+      ...(examples.length > 0 ? [{ weight: 2, arbitrary: fc.constantFrom(...examples) }] : []),
+      { weight: 1, arbitrary: fromSchema(doc, json.schema) },
+    );
+    bodies.push({ weight: 5, arbitrary: valid.map((value) => ({ kind: 'json' as const, value })) });
     bodies.push({
       weight: 6,
       arbitrary: fc
