@@ -31,7 +31,8 @@ describe('a start without NODE_ENV', () => {
       expect(await service.stop()).toBe(0);
       rmSync(dir, { recursive: true, force: true });
     }
-  });
+    // Starting the real service (tsx compiles it) takes seconds on a busy machine.
+  }, 120_000);
 });
 
 describe('a production start', () => {

@@ -124,5 +124,6 @@ describe('start-up on a read-only database file', () => {
       chmodSync(dir, 0o755);
       rmSync(dir, { recursive: true, force: true });
     }
-  });
+    // Starting the real service (tsx compiles it) takes seconds on a busy machine.
+  }, 120_000);
 });

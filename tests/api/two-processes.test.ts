@@ -78,5 +78,6 @@ describe('two service processes on one SQLite file', () => {
       for (const service of services) expect(await service.stop()).toBe(0);
       rmSync(dir, { recursive: true, force: true });
     }
-  });
+    // Starting the real service (tsx compiles it) takes seconds on a busy machine.
+  }, 120_000);
 });
