@@ -4,7 +4,12 @@ import net from 'node:net';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { openDatabase } from '../../api/db/database';
-import { databaseWithKeys, startService, type ServiceProcess } from '../support/service-process';
+import {
+  databaseWithKeys,
+  startService,
+  type ServiceProcess,
+  STARTS_THE_SERVICE_MS,
+} from '../support/service-process';
 
 const DEADLINE_MS = 1500;
 const CLIENT_GIVE_UP_MS = 25_000;
@@ -95,61 +100,64 @@ function slowBody(port: number, key: string): Promise<{ cutAfterSignalMs: number
 const slowSockets: Array<{ markSignal: () => void }> = [];
 
 describe('SIGTERM under keep-alive load and a slow body', () => {
-  it('stops accepting, closes keep-alive connections, cuts the slow body at the deadline, writes all usage, exits 0', async () => {
-    const dir = mkdtempSync(path.join(tmpdir(), 'isochron-shutdown-'));
-    const databaseUrl = `sqlite:${path.join(dir, 'service.sqlite')}`;
-    let service: ServiceProcess | undefined;
-    try {
-      const { secrets } = await databaseWithKeys(databaseUrl, { role: 'calculate', count: 5 });
-      service = await startService(databaseUrl, dir, {
-        SHUTDOWN_DEADLINE_MS: String(DEADLINE_MS),
-        // Long enough that only the shutdown flush can have written the counts.
-        USAGE_FLUSH_INTERVAL_MS: '3600000',
-      });
-      let signalAt = 0;
-      const { port } = service;
-      const slow = slowBody(port, secrets[4]);
-      const clients = secrets.slice(0, 4).map((key) => keepAliveClient(port, key));
-      await new Promise((resolve) => setTimeout(resolve, 700));
-      signalAt = Date.now();
-      slowSockets.forEach((s) => s.markSignal());
-      service.child.kill('SIGTERM');
-
-      const code = await service.exited;
-      const shutdownMs = Date.now() - signalAt;
-      const logs = await Promise.all(clients);
-      const cut = await slow;
-
-      expect(code).toBe(0);
-      for (const log of logs) {
-        expect(log.ended).not.toMatch(/gave up/);
-        expect(log.ok).toBeGreaterThan(0);
-        // Once stopping, an answer says the connection closes; nothing comes after it, and no new connection is taken.
-        expect(log.closeHeaders).toBeLessThanOrEqual(1);
-        expect(log.afterClose).toBe(0);
-        expect(log.ended).toMatch(/ECONNREFUSED|ECONNRESET|socket hang up|EPIPE/);
-      }
-      // The slow body got no answer and was cut when the deadline came, not before.
-      expect(cut.answer).toBe('');
-      expect(cut.cutAfterSignalMs).toBeGreaterThanOrEqual(DEADLINE_MS - 100);
-      // Generous: the point is that it ends at all (it used to run on for minutes).
-      expect(shutdownMs).toBeLessThan(DEADLINE_MS + 8000);
-
-      const completed = logs.reduce((sum, log) => sum + log.ok, 0);
-      const reopened = await openDatabase(databaseUrl);
+  it(
+    'stops accepting, closes keep-alive connections, cuts the slow body at the deadline, writes all usage, exits 0',
+    async () => {
+      const dir = mkdtempSync(path.join(tmpdir(), 'isochron-shutdown-'));
+      const databaseUrl = `sqlite:${path.join(dir, 'service.sqlite')}`;
+      let service: ServiceProcess | undefined;
       try {
-        expect(await reopened.models.UsageBucket.sum('count')).toBe(completed);
+        const { secrets } = await databaseWithKeys(databaseUrl, { role: 'calculate', count: 5 });
+        service = await startService(databaseUrl, dir, {
+          SHUTDOWN_DEADLINE_MS: String(DEADLINE_MS),
+          // Long enough that only the shutdown flush can have written the counts.
+          USAGE_FLUSH_INTERVAL_MS: '3600000',
+        });
+        let signalAt = 0;
+        const { port } = service;
+        const slow = slowBody(port, secrets[4]);
+        const clients = secrets.slice(0, 4).map((key) => keepAliveClient(port, key));
+        await new Promise((resolve) => setTimeout(resolve, 700));
+        signalAt = Date.now();
+        slowSockets.forEach((s) => s.markSignal());
+        service.child.kill('SIGTERM');
+
+        const code = await service.exited;
+        const shutdownMs = Date.now() - signalAt;
+        const logs = await Promise.all(clients);
+        const cut = await slow;
+
+        expect(code).toBe(0);
+        for (const log of logs) {
+          expect(log.ended).not.toMatch(/gave up/);
+          expect(log.ok).toBeGreaterThan(0);
+          // Once stopping, an answer says the connection closes; nothing comes after it, and no new connection is taken.
+          expect(log.closeHeaders).toBeLessThanOrEqual(1);
+          expect(log.afterClose).toBe(0);
+          expect(log.ended).toMatch(/ECONNREFUSED|ECONNRESET|socket hang up|EPIPE/);
+        }
+        // The slow body got no answer and was cut when the deadline came, not before.
+        expect(cut.answer).toBe('');
+        expect(cut.cutAfterSignalMs).toBeGreaterThanOrEqual(DEADLINE_MS - 100);
+        // Generous: the point is that it ends at all (it used to run on for minutes).
+        expect(shutdownMs).toBeLessThan(DEADLINE_MS + 8000);
+
+        const completed = logs.reduce((sum, log) => sum + log.ok, 0);
+        const reopened = await openDatabase(databaseUrl);
+        try {
+          expect(await reopened.models.UsageBucket.sum('count')).toBe(completed);
+        } finally {
+          await reopened.close();
+        }
+        console.log(
+          `shutdown under load: ${completed} calls answered, exit ${shutdownMs} ms after SIGTERM ` +
+            `(deadline ${DEADLINE_MS} ms), slow body cut after ${cut.cutAfterSignalMs} ms`,
+        );
       } finally {
-        await reopened.close();
+        if (service?.child.exitCode === null) service.child.kill('SIGKILL');
+        rmSync(dir, { recursive: true, force: true });
       }
-      console.log(
-        `shutdown under load: ${completed} calls answered, exit ${shutdownMs} ms after SIGTERM ` +
-          `(deadline ${DEADLINE_MS} ms), slow body cut after ${cut.cutAfterSignalMs} ms`,
-      );
-    } finally {
-      if (service?.child.exitCode === null) service.child.kill('SIGKILL');
-      rmSync(dir, { recursive: true, force: true });
-    }
-    // Starting the real service (tsx compiles it) takes seconds on a busy machine.
-  }, 120_000);
+    },
+    STARTS_THE_SERVICE_MS,
+  );
 });

@@ -4,6 +4,7 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import request from 'supertest';
 import { projectRoot } from '../../api/config';
+import { STARTS_THE_SERVICE_MS } from '../support/service-process';
 import { openDatabase } from '../../api/db/database';
 import { STAGE3_ROOM } from '../../seeds/demo-stage3-room';
 import { CONSOLE_HEADERS, givePasswords, TEST_EMAILS, TEST_PASSWORD } from '../support/console-session';
@@ -90,40 +91,43 @@ describe('a full disk', () => {
 });
 
 describe('start-up on a read-only database file', () => {
-  it('prints one readable message naming the file and what to do, without a stack trace, and exits 1', async () => {
-    const dir = mkdtempSync(path.join(tmpdir(), 'isochron-readonly-'));
-    const file = path.join(dir, 'ro.sqlite');
-    try {
-      const db = await openDatabase(`sqlite:${file}`);
-      await db.close();
-      chmodSync(file, 0o444);
-      chmodSync(dir, 0o555);
-      // Root writes read-only files anyway: run the service as an unprivileged user then.
-      const asUser = process.getuid?.() === 0 ? { uid: 65534, gid: 65534 } : {};
-      const result = spawnSync(process.execPath, ['--import', 'tsx', 'api/main.ts'], {
-        cwd: projectRoot,
-        ...asUser,
-        env: {
-          PATH: process.env.PATH,
-          NODE_ENV: 'test',
-          PORT: '0',
-          DATABASE_URL: `sqlite:${file}`,
-          ISOCHRON_KEY_HASH_SECRET: 'readonly-test-key-hash-secret-0123456789',
-          ISOCHRON_SESSION_SECRET: 'readonly-test-session-secret-0123456789',
-          SEED_DEMO_DATA: 'false',
-          TSX_TSCONFIG_PATH: path.join(projectRoot, 'tsconfig.json'),
-        },
-        encoding: 'utf8',
-        timeout: 60_000,
-      });
-      expect(result.status).toBe(1);
-      expect(result.stderr).toContain(`Isochron cannot start. Cannot write ${file}`);
-      expect(result.stderr).toMatch(/SQLITE_READONLY|SQLITE_CANTOPEN/);
-      expect(result.stderr).not.toMatch(/^\s+at /m);
-    } finally {
-      chmodSync(dir, 0o755);
-      rmSync(dir, { recursive: true, force: true });
-    }
-    // Starting the real service (tsx compiles it) takes seconds on a busy machine.
-  }, 120_000);
+  it(
+    'prints one readable message naming the file and what to do, without a stack trace, and exits 1',
+    async () => {
+      const dir = mkdtempSync(path.join(tmpdir(), 'isochron-readonly-'));
+      const file = path.join(dir, 'ro.sqlite');
+      try {
+        const db = await openDatabase(`sqlite:${file}`);
+        await db.close();
+        chmodSync(file, 0o444);
+        chmodSync(dir, 0o555);
+        // Root writes read-only files anyway: run the service as an unprivileged user then.
+        const asUser = process.getuid?.() === 0 ? { uid: 65534, gid: 65534 } : {};
+        const result = spawnSync(process.execPath, ['--import', 'tsx', 'api/main.ts'], {
+          cwd: projectRoot,
+          ...asUser,
+          env: {
+            PATH: process.env.PATH,
+            NODE_ENV: 'test',
+            PORT: '0',
+            DATABASE_URL: `sqlite:${file}`,
+            ISOCHRON_KEY_HASH_SECRET: 'readonly-test-key-hash-secret-0123456789',
+            ISOCHRON_SESSION_SECRET: 'readonly-test-session-secret-0123456789',
+            SEED_DEMO_DATA: 'false',
+            TSX_TSCONFIG_PATH: path.join(projectRoot, 'tsconfig.json'),
+          },
+          encoding: 'utf8',
+          timeout: 60_000,
+        });
+        expect(result.status).toBe(1);
+        expect(result.stderr).toContain(`Isochron cannot start. Cannot write ${file}`);
+        expect(result.stderr).toMatch(/SQLITE_READONLY|SQLITE_CANTOPEN/);
+        expect(result.stderr).not.toMatch(/^\s+at /m);
+      } finally {
+        chmodSync(dir, 0o755);
+        rmSync(dir, { recursive: true, force: true });
+      }
+    },
+    STARTS_THE_SERVICE_MS,
+  );
 });

@@ -8,6 +8,9 @@ import { openDatabase } from '../../api/db/database';
 import { newId } from '../../api/db/ids';
 import type { KeyRole } from '../../api/db/models/api-key';
 
+/** Test timeout for tests that start the real service: tsx compiles it first, slowly on a busy machine. */
+export const STARTS_THE_SERVICE_MS = 120_000;
+
 export const PROCESS_KEY_HASH_SECRET = 'process-test-key-hash-secret-0123456789';
 
 export function freePort(): Promise<number> {
