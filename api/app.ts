@@ -3,10 +3,13 @@ import path from 'node:path';
 import express, { type Express } from 'express';
 import helmet from 'helmet';
 import { authenticate } from './auth/authenticate';
+import { refuseNulInUrl } from './http/nul-guard';
 import { requestId } from './http/request-id';
 import { notFoundHandler, problemHandler } from './http/problem';
 import { createRateLimiter } from './rate-limit/rate-limiter';
+import { createUserRateLimiter } from './rate-limit/user-ceiling';
 import { getContract } from './http/validate';
+import { storageProblem } from './db/storage-errors';
 import { docsRouter } from './service/docs.router';
 import { healthRouter } from './service/health.router';
 import { sessionRouter } from './session/session.router';
@@ -24,6 +27,7 @@ export function createApp(services: Services): Express {
   app.set('json spaces', 0);
 
   app.use(requestId);
+  app.use(refuseNulInUrl);
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -50,6 +54,7 @@ export function createApp(services: Services): Express {
     '/v1',
     authenticate(services.keys, services.sessionPrincipal),
     createRateLimiter(services),
+    createUserRateLimiter(services),
     services.usage.middleware,
     v1Router(services),
   );
@@ -57,7 +62,7 @@ export function createApp(services: Services): Express {
 
   serveConsole(app, config.consoleDir);
   app.use(notFoundHandler);
-  app.use(problemHandler(services.logger));
+  app.use(problemHandler(services.logger, storageProblem));
   return app;
 }
 

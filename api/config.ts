@@ -25,8 +25,16 @@ export interface Config {
   seedDemoData: boolean;
   /** Default per-key rate limit, requests per minute. */
   defaultRateLimitPerMinute: number;
+  /** Ceiling per user across all their keys and their console session, requests per minute. */
+  userRateLimitPerMinute: number;
+  /** Most keys one user may have active (not revoked, not expired) at a time. */
+  maxActiveKeysPerUser: number;
   /** How often metered usage is written to the database, in milliseconds. */
   usageFlushIntervalMs: number;
+  /** How long a write waits for another process's write lock before it is retried (then 503). */
+  databaseBusyTimeoutMs: number;
+  /** On SIGTERM, how long requests in flight may take before their connections are cut. */
+  shutdownDeadlineMs: number;
   logLevel: string;
 }
 
@@ -98,7 +106,7 @@ export function sqliteStorage(databaseUrl: string): string | null {
 }
 
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
-  const nodeEnv = env.NODE_ENV ?? 'development';
+  const nodeEnv = env.NODE_ENV || 'development';
   if (!['development', 'production', 'test'].includes(nodeEnv)) {
     throw new ConfigError(`NODE_ENV must be development, production or test; got "${nodeEnv}"`);
   }
@@ -120,7 +128,11 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     mailFrom: env.MAIL_FROM || 'Isochron <isochron@localhost>',
     seedDemoData: environment !== 'production' && env.SEED_DEMO_DATA !== 'false',
     defaultRateLimitPerMinute: integer(env, 'DEFAULT_RATE_LIMIT_PER_MINUTE', 600, 1, 1_000_000),
+    userRateLimitPerMinute: integer(env, 'USER_RATE_LIMIT_PER_MINUTE', 1200, 1, 10_000_000),
+    maxActiveKeysPerUser: integer(env, 'MAX_ACTIVE_KEYS_PER_USER', 10, 1, 10_000),
     usageFlushIntervalMs: integer(env, 'USAGE_FLUSH_INTERVAL_MS', 5000, 100, 3_600_000),
+    databaseBusyTimeoutMs: integer(env, 'DATABASE_BUSY_TIMEOUT_MS', 2000, 0, 60_000),
+    shutdownDeadlineMs: integer(env, 'SHUTDOWN_DEADLINE_MS', 10_000, 0, 600_000),
     logLevel: env.LOG_LEVEL || (environment === 'test' ? 'silent' : 'info'),
   };
 }

@@ -1,5 +1,8 @@
 import { createApp } from './app';
-import { ConfigError, loadConfig } from './config';
+import { ConfigError, loadConfig, sqliteStorage } from './config';
+import { describeStorageFailure } from './db/storage-errors';
+import { gracefulShutdown } from './lifecycle/graceful-shutdown';
+import { startupWarnings, warningBanner } from './lifecycle/startup-warnings';
 import { loadDemoData } from '../seeds';
 import { closeServices, createServices } from './services';
 
@@ -15,22 +18,29 @@ async function main(): Promise<void> {
     }
     services.logger.info(`Isochron listening on http://localhost:${config.port} (console /, docs /docs)`);
   });
+  const warnings = await startupWarnings(config, services.db.models, services.mail);
+  for (const warning of warnings) services.logger.warn(warning);
+  if (warnings.length > 0) console.error(warningBanner(warnings));
 
-  let stopping = false;
+  const shutdown = gracefulShutdown(server, {
+    deadlineMs: config.shutdownDeadlineMs,
+    log: (message) => services.logger.info(message),
+    close: () => closeServices(services),
+  });
   const stop = (signal: string) => {
-    if (stopping) return;
-    stopping = true;
-    services.logger.info(`${signal}: finishing requests, then closing`);
-    server.close(() => {
-      closeServices(services).then(
-        () => process.exit(0),
-        (err) => {
-          services.logger.error({ err }, 'shutdown failed');
-          process.exit(1);
-        },
-      );
-    });
-    server.closeIdleConnections();
+    if (shutdown.stopping) return;
+    // If closing itself hangs (a stuck disk), do not outlive the deadline by much.
+    setTimeout(() => {
+      services.logger.error('shutdown did not finish; exiting');
+      process.exit(1);
+    }, config.shutdownDeadlineMs + 5000).unref();
+    shutdown.stop(signal).then(
+      () => process.exit(0),
+      (err) => {
+        services.logger.error({ err }, 'shutdown failed');
+        process.exit(1);
+      },
+    );
   };
   process.on('SIGTERM', () => stop('SIGTERM'));
   process.on('SIGINT', () => stop('SIGINT'));
@@ -40,7 +50,15 @@ main().catch((err) => {
   if (err instanceof ConfigError) {
     console.error(`Configuration error: ${err.message}`);
   } else {
-    console.error(err);
+    let storage: string | null = null;
+    try {
+      storage = sqliteStorage(process.env.DATABASE_URL || 'sqlite:data/isochron.sqlite');
+    } catch {
+      // The URL itself is wrong; loadConfig said so already.
+    }
+    const message = describeStorageFailure(err, storage);
+    if (message) console.error(`Isochron cannot start. ${message}`);
+    else console.error(err);
   }
   process.exit(1);
 });

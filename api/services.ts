@@ -26,8 +26,15 @@ export interface Services {
 }
 
 export async function createServices(config: Config): Promise<Services> {
-  const db = await openDatabase(config.databaseUrl);
   const logger = createLogger(config.logLevel);
+  const db = await openDatabase(config.databaseUrl, {
+    busyTimeoutMs: config.databaseBusyTimeoutMs,
+    onBusyRetry: (attempt, err) =>
+      logger.warn(
+        { attempt, err: (err as Error).message },
+        'database busy (another process writing); retrying',
+      ),
+  });
   const mail = await createMailer(config, logger);
   logger.info(`mail goes to ${mail.description}`);
   const sessions = createConsoleSessions({ config, db });

@@ -102,6 +102,17 @@ export function authenticate(keys: KeyStore, sessionPrincipal: SessionPrincipalR
         );
       }
       const { key } = outcome;
+      if (key.role === null) {
+        return next(
+          new ProblemError({
+            status: 403,
+            title: 'Forbidden',
+            detail: `This key's owner now has the role ${key.ownerRole}, which may not use API keys; the key works again only if an admin gives the owner a role that allows it.`,
+            type: 'key-owner-role',
+            headers: { 'WWW-Authenticate': `${REALM}, error="insufficient_scope"` },
+          }),
+        );
+      }
       req.principal = {
         kind: 'key',
         role: key.role,

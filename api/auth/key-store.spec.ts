@@ -18,7 +18,7 @@ function row(overrides: object = {}) {
 function controlledModels(ownerStatus = 'active') {
   const pending: Array<(value: unknown) => void> = [];
   const findOne = jest.fn(() => new Promise((resolve) => pending.push(resolve)));
-  const findByPk = jest.fn(async () => ({ status: ownerStatus }));
+  const findByPk = jest.fn(async () => ({ status: ownerStatus, role: 'admin' }));
   return { models: { ApiKey: { findOne }, User: { findByPk } } as unknown as Models, findOne, pending };
 }
 

@@ -1,10 +1,16 @@
 import type { Models } from '../db/models';
 import type { ApiKey } from '../db/models/api-key';
+import type { UserRole } from '../db/models/user';
+import { effectiveKeyRole } from './key-roles';
 import { hashKeySecret } from './key-secret';
 
 export interface ActiveKey {
   id: string;
-  role: ApiKey['role'];
+  /** What the key may do now: its own role capped by its owner's current role; null when the owner may hold no key. */
+  role: ApiKey['role'] | null;
+  /** The role the key was created with. */
+  grantedRole: ApiKey['role'];
+  ownerRole: UserRole;
   ownerId: string;
   rateLimitPerMinute: number | null;
   expiresAt: Date | null;
@@ -73,22 +79,27 @@ export class KeyStore {
     return read;
   }
 
-  /** The key behind a hash, if it is not revoked and its owner is not disabled. */
+  /**
+   * The key behind a hash, if it is not revoked and its owner is not disabled, with the role its owner's
+   * current role leaves it (read with the key, so the cache never holds a role older than the key row).
+   */
   private async read(hash: string): Promise<ActiveKey | null> {
     const row = await this.models.ApiKey.findOne({ where: { secretHash: hash, revokedAt: null } });
     if (!row) return null;
-    const owner = await this.models.User.findByPk(row.ownerId, { attributes: ['status'] });
+    const owner = await this.models.User.findByPk(row.ownerId, { attributes: ['status', 'role'] });
     if (!owner || owner.status === 'disabled') return null;
     return {
       id: row.id,
-      role: row.role,
+      role: effectiveKeyRole(row.role, owner.role),
+      grantedRole: row.role,
+      ownerRole: owner.role,
       ownerId: row.ownerId,
       rateLimitPerMinute: row.rateLimitPerMinute,
       expiresAt: row.expiresAt,
     };
   }
 
-  /** Call after revoking or editing a key so the next request sees the change. */
+  /** Call after revoking or editing a key, or changing its owner, so the next request sees the change. */
   invalidate(): void {
     this.generation += 1;
     this.cache.clear();

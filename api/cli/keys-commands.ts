@@ -19,6 +19,7 @@ function keyService(services: Services): KeyService {
     keyHashSecret: services.config.keyHashSecret,
     logger: services.logger,
     notifyKeyCreated: (notice) => notifyKeyCreated(services, notice),
+    maxActiveKeysPerUser: services.config.maxActiveKeysPerUser,
   });
 }
 

@@ -1,36 +1,173 @@
 import { mkdirSync } from 'node:fs';
 import path from 'node:path';
-import { Sequelize, type Transaction } from 'sequelize';
+import { Sequelize, Transaction } from 'sequelize';
 import { SequelizeStorage, Umzug } from 'umzug';
 import { sqliteStorage } from '../config';
 import { defineModels, type Models } from './models';
+import { isBusy, storageFailureOf, storageFailureProblem, type StorageFailure } from './storage-errors';
 import { WriteQueue } from './write-queue';
+
+export interface DatabaseOptions {
+  /** How long a write waits for another process's write lock before SQLite answers busy. */
+  busyTimeoutMs?: number;
+  /** Attempts of one write transaction that found the database busy, before answering 503. */
+  writeAttempts?: number;
+  /** Told about each busy retry (for the log); the service passes its logger. */
+  onBusyRetry?: (attempt: number, err: unknown) => void;
+}
+
+/** What readiness reports about the database file: whether a write went through. */
+export interface StorageState {
+  ok: boolean;
+  failure: StorageFailure | null;
+  /** The SQLite message of the last failed write, for the log. */
+  message: string | null;
+  checkedAt: Date | null;
+}
 
 export interface Database {
   sequelize: Sequelize;
   models: Models;
-  /** Runs `work` in a transaction, after every write queued before it. Use it for every write. */
+  /**
+   * Runs `work` in an IMMEDIATE transaction, after every write queued before it. Use it for every write.
+   * A database kept busy by another process is retried a few times, then refused with 503.
+   */
   write<T>(work: (transaction: Transaction) => Promise<T>): Promise<T>;
+  /** Statements run once on every new SQLite connection (Sequelize opens one per transaction). */
+  connectionPragmas: string[];
+  /** The outcome of the latest write, as readiness reports it. */
+  storage(): StorageState;
+  /** Writes and removes a page-sized row, so readiness knows that writing really works; answers the state after it. */
+  probeWrite(): Promise<StorageState>;
+  /** Busy answers seen and retried since the database was opened. */
+  readonly busyRetries: number;
   close(): Promise<void>;
 }
 
-export async function openDatabase(databaseUrl: string): Promise<Database> {
+export const DEFAULT_BUSY_TIMEOUT_MS = 2000;
+const DEFAULT_WRITE_ATTEMPTS = 3;
+const PROBE_INTERVAL_MS = 2000;
+
+interface SqliteConnection {
+  configure(option: 'busyTimeout', value: number): void;
+  run(sql: string, callback: (err: Error | null) => void): void;
+}
+
+/**
+ * Sequelize opens a new SQLite connection per transaction and has no hook for it (its `afterConnect`
+ * hook is not called by the SQLite dialect), so the busy timeout and any pragma are set here, once per
+ * connection, by wrapping the connection manager's `getConnection`.
+ */
+function prepareConnections(sequelize: Sequelize, busyTimeoutMs: number, pragmas: string[]): void {
+  const manager = sequelize.connectionManager as unknown as {
+    getConnection(options?: object): Promise<SqliteConnection>;
+  };
+  const getConnection = manager.getConnection.bind(manager);
+  const prepared = new WeakSet<object>();
+  manager.getConnection = async (options) => {
+    const connection = await getConnection(options);
+    if (!prepared.has(connection)) {
+      prepared.add(connection);
+      connection.configure('busyTimeout', busyTimeoutMs);
+      for (const pragma of pragmas) {
+        await new Promise<void>((resolve, reject) =>
+          connection.run(pragma, (err) => (err ? reject(err) : resolve())),
+        );
+      }
+    }
+    return connection;
+  };
+}
+
+const sleep = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
+
+export async function openDatabase(databaseUrl: string, options: DatabaseOptions = {}): Promise<Database> {
   const storage = sqliteStorage(databaseUrl);
   if (storage) mkdirSync(path.dirname(storage), { recursive: true });
   const sequelize = new Sequelize({
     dialect: 'sqlite',
     storage: storage ?? ':memory:',
     logging: false,
+    // No statement-level retry: a busy write is retried as a whole transaction below.
+    retry: { max: 1 },
   });
+  const pragmas: string[] = [];
+  prepareConnections(sequelize, options.busyTimeoutMs ?? DEFAULT_BUSY_TIMEOUT_MS, pragmas);
   // WAL lets readers go on while the one writer commits; the mode persists in the file.
   if (storage) await sequelize.query('PRAGMA journal_mode = WAL;');
   await migrate(sequelize);
   const models = defineModels(sequelize);
   const queue = new WriteQueue();
+  const attempts = options.writeAttempts ?? DEFAULT_WRITE_ATTEMPTS;
+  let busyRetries = 0;
+  let state: StorageState = { ok: true, failure: null, message: null, checkedAt: null };
+  const note = (err: unknown) => {
+    const failure = storageFailureOf(err);
+    if (failure === null) {
+      if (err === undefined) state = { ok: true, failure: null, message: null, checkedAt: new Date() };
+      return;
+    }
+    if (failure !== 'busy') {
+      state = { ok: false, failure, message: (err as Error).message ?? null, checkedAt: new Date() };
+    }
+  };
+
+  /**
+   * IMMEDIATE takes the write lock at BEGIN, so a transaction never reads a snapshot and then finds that
+   * another process wrote meanwhile (which SQLite answers busy at once, whatever the timeout). Waiting
+   * for the lock is SQLite's busy timeout; past it the whole transaction is tried again, then refused.
+   */
+  const transact = async <T>(work: (transaction: Transaction) => Promise<T>): Promise<T> => {
+    for (let attempt = 1; ; attempt += 1) {
+      try {
+        const result = await sequelize.transaction({ type: Transaction.TYPES.IMMEDIATE }, work);
+        note(undefined);
+        return result;
+      } catch (err) {
+        note(err);
+        if (!isBusy(err)) throw err;
+        if (attempt >= attempts) throw storageFailureProblem('busy');
+        busyRetries += 1;
+        options.onBusyRetry?.(attempt, err);
+        await sleep(20 + Math.random() * 80 * attempt);
+      }
+    }
+  };
+
+  let probing: Promise<void> | null = null;
+  let lastProbeAt = 0;
+  const probeOnce = () =>
+    queue.run(() =>
+      transact(async (transaction) => {
+        await sequelize.query('INSERT INTO storage_probe (pad) VALUES (randomblob(8192))', { transaction });
+        await sequelize.query('DELETE FROM storage_probe', { transaction });
+      }),
+    );
   return {
     sequelize,
     models,
-    write: (work) => queue.run(() => sequelize.transaction((transaction) => work(transaction))),
+    write: (work) => queue.run(() => transact(work)),
+    connectionPragmas: pragmas,
+    storage: () => state,
+    async probeWrite() {
+      // While writes work, probe at most every PROBE_INTERVAL_MS; after a failure, on every call, one at a time.
+      if (!probing && (!state.ok || Date.now() - lastProbeAt >= PROBE_INTERVAL_MS)) {
+        lastProbeAt = Date.now();
+        probing = probeOnce().then(
+          () => {
+            probing = null;
+          },
+          () => {
+            probing = null;
+          },
+        );
+      }
+      if (probing) await probing;
+      return state;
+    },
+    get busyRetries() {
+      return busyRetries;
+    },
     close: async () => {
       await queue.drain();
       await sequelize.close();

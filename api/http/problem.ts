@@ -190,8 +190,14 @@ export interface ErrorLogger {
   error(details: object, message: string): void;
 }
 
-/** One error path: every error becomes a problem document; unexpected ones are logged, never shown. */
-export function problemHandler(logger: ErrorLogger): ErrorRequestHandler {
+/**
+ * One error path: every error becomes a problem document; unexpected ones are logged, never shown.
+ * `translate` turns errors of lower layers (the database) into problems before the 500 fallback.
+ */
+export function problemHandler(
+  logger: ErrorLogger,
+  translate: (err: unknown) => ProblemError | null = () => null,
+): ErrorRequestHandler {
   return (err: unknown, req, res, next) => {
     if (res.headersSent) return next(err);
     let problem: ProblemError;
@@ -202,12 +208,13 @@ export function problemHandler(logger: ErrorLogger): ErrorRequestHandler {
     } else {
       problem =
         (typeof err === 'object' && err !== null && fromHttpError(err as HttpLikeError)) ||
+        translate(err) ||
         new ProblemError({
           status: 500,
           title: 'Internal error',
           detail: 'The server could not complete the request.',
         });
-      if (problem.status === 500) {
+      if (problem.status >= 500) {
         logger.error({ err, requestId: res.getHeader('Request-Id'), path: req.path }, 'unhandled error');
       }
     }

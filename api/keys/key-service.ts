@@ -3,12 +3,13 @@ import { recordAudit, type AuditEntry } from '../audit/record-audit';
 import { generateKeySecret, hashKeySecret } from '../auth/key-secret';
 import type { KeyStore } from '../auth/key-store';
 import type { Actor } from '../auth/actor';
+import { KEY_ROLES_BY_OWNER_ROLE } from '../auth/key-roles';
 import { isAdmin } from '../auth/permissions';
 import type { Database } from '../db/database';
+import type { Models } from '../db/models';
 import { newId } from '../db/ids';
 import { pageOf, type Page } from '../db/pagination';
 import type { ApiKey, KeyRole } from '../db/models/api-key';
-import type { UserRole } from '../db/models/user';
 import { conflict, forbidden, notFound, ProblemError } from '../http/problem';
 import type { Logger } from '../logger';
 import type { KeyCreatedNotice } from '../mail/messages';
@@ -39,13 +40,6 @@ export interface ListKeysOptions {
   ownerId?: string;
   includeRevoked?: boolean;
 }
-
-/** A key may never do more than its owner: viewers own no keys, developers no admin keys. */
-const KEY_ROLES_BY_OWNER_ROLE: Record<UserRole, readonly KeyRole[]> = {
-  admin: ['calculate', 'tuning', 'admin'],
-  developer: ['calculate', 'tuning'],
-  viewer: [],
-};
 
 const NAME_MAX_LENGTH = 120;
 // Names are stored verbatim (any quotes, semicolons or SQL are just text); only control characters are refused.
@@ -81,6 +75,19 @@ function parseExpiry(value: string | null | undefined, now: Date): Date | null |
   return date;
 }
 
+/** Keys of the owner that are neither revoked nor expired at `now`: what MAX_ACTIVE_KEYS_PER_USER counts. */
+export function countActiveKeys(
+  models: Models,
+  ownerId: string,
+  now: Date,
+  transaction?: Transaction,
+): Promise<number> {
+  return models.ApiKey.count({
+    where: { ownerId, revokedAt: null, [Op.or]: [{ expiresAt: null }, { expiresAt: { [Op.gt]: now } }] },
+    transaction,
+  });
+}
+
 export interface KeyServiceDeps {
   db: Database;
   keys: KeyStore;
@@ -88,6 +95,8 @@ export interface KeyServiceDeps {
   logger: Logger;
   /** Tells an owner that someone else created a key for them; resolves false when the mail failed. */
   notifyKeyCreated?: (notice: KeyCreatedNotice) => Promise<boolean>;
+  /** Most active (not revoked, not expired) keys one user may hold; no limit when absent. */
+  maxActiveKeysPerUser?: number;
   now?: () => Date;
 }
 
@@ -123,6 +132,13 @@ export class KeyService {
       const owner = await db.models.User.findByPk(ownerId, { transaction });
       if (!owner) throw unprocessable('/body/ownerId', `No user ${ownerId}`);
       if (owner.status === 'disabled') throw unprocessable('/body/ownerId', `User ${ownerId} is disabled`);
+      const cap = this.deps.maxActiveKeysPerUser;
+      if (cap !== undefined && (await countActiveKeys(db.models, ownerId, now, transaction)) >= cap) {
+        throw conflict(
+          `User ${ownerId} already has ${cap} active keys, the most one user may hold (MAX_ACTIVE_KEYS_PER_USER); revoke one first.`,
+          [{ pointer: '/body/ownerId', message: `already has ${cap} active keys` }],
+        );
+      }
       if (!KEY_ROLES_BY_OWNER_ROLE[owner.role].includes(input.role)) {
         throw unprocessable(
           '/body/role',
@@ -202,6 +218,7 @@ export class KeyService {
     const key = await this.deps.db.write(async (transaction) => {
       const found = await this.findVisible(actor, id, transaction);
       if (found.revokedAt) throw conflict(`Key ${id} is revoked and cannot be changed.`);
+      if (expiresAt !== undefined) this.checkExpiryChange(actor, found, expiresAt, now);
       const changes: Partial<Pick<ApiKey, 'name' | 'rateLimitPerMinute' | 'expiresAt'>> = {};
       if (input.name !== undefined) changes.name = input.name;
       if (input.rateLimitPerMinute !== undefined) changes.rateLimitPerMinute = input.rateLimitPerMinute;
@@ -239,6 +256,25 @@ export class KeyService {
     this.deps.keys.invalidate();
     this.deps.logger.info({ keyId: id }, 'API key revoked');
     return toKeyView(key, now);
+  }
+
+  /**
+   * An expired key stays expired, for everyone: a new key is the way back. Only an admin (or the operator)
+   * may move an expiry later or remove it; the owner may only bring it nearer or set one where there was none.
+   */
+  private checkExpiryChange(actor: KeyActor, key: ApiKey, next: Date | null, now: Date): void {
+    if (key.expiresAt && key.expiresAt.getTime() <= now.getTime()) {
+      throw conflict(
+        `Key ${key.id} expired at ${key.expiresAt.toISOString()} and stays expired; create a new key instead.`,
+        [{ pointer: '/body/expiresAt', message: 'the key has expired' }],
+      );
+    }
+    const current = key.expiresAt;
+    if (this.scope(actor) === null || current === null) return;
+    if (next === null) throw forbidden("Only an admin may remove a key's expiry.");
+    if (next.getTime() > current.getTime()) {
+      throw forbidden(`Only an admin may move a key's expiry later than ${current.toISOString()}.`);
+    }
   }
 
   /** The one owner whose keys the actor may touch, or null when it may touch everyone's. */

@@ -14,6 +14,7 @@ export function keysRouter(services: Services): Router {
     keyHashSecret: services.config.keyHashSecret,
     logger: services.logger,
     notifyKeyCreated: (notice) => notifyKeyCreated(services, notice),
+    maxActiveKeysPerUser: services.config.maxActiveKeysPerUser,
   });
   const router = Router();
   const mayManageKeys = requirePermission('keys:own', 'keys:all');

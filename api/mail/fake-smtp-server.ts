@@ -4,7 +4,9 @@ import type { Outbox } from './outbox';
 import { parseMessage } from './parse-message';
 
 /** Largest message the development server accepts; ours are a few kilobytes. */
-const MAX_MESSAGE_BYTES = 1024 * 1024;
+export const MAX_MESSAGE_BYTES = 64 * 1024;
+/** Connections at once; the service itself needs one. */
+const MAX_CLIENTS = 4;
 
 export interface FakeSmtpServer {
   host: string;
@@ -22,6 +24,7 @@ export function startFakeSmtpServer(outbox: Outbox): Promise<FakeSmtpServer> {
     authOptional: true,
     disabledCommands: ['AUTH', 'STARTTLS'],
     size: MAX_MESSAGE_BYTES,
+    maxClients: MAX_CLIENTS,
     logger: false,
     banner: 'Isochron development mail server (nothing is delivered)',
     closeTimeout: 1000,

@@ -1,8 +1,10 @@
 import { createServer } from 'node:net';
+import nodemailer from 'nodemailer';
 import { generateKeySecret } from '../auth/key-secret';
 import { createLogger } from '../logger';
 import { createMailer, type Mailer } from './mailer';
 import { notifyKeyCreated } from './notify-key-created';
+import { OUTBOX_MAX_BYTES } from './outbox';
 
 const logger = createLogger('silent');
 const base = { mailFrom: 'Isochron <isochron@test.example>' };
@@ -58,6 +60,45 @@ describe('development mail server and outbox', () => {
     expect(notice.text).toContain('admin@test.example created an API key');
     expect(notice.text).not.toContain(secret);
     expect(notice.text).not.toContain(secret.slice(prefix.length, -4));
+  });
+});
+
+describe('the development mail server under a flood from another local process', () => {
+  it('keeps the outbox within its message and byte limits and refuses oversized messages', async () => {
+    const mail = await createMailer({ ...base, env: 'development', smtpUrl: null }, logger);
+    try {
+      const port = Number(/127\.0\.0\.1:(\d+)/.exec(mail.description)![1]);
+      const intruder = nodemailer.createTransport({
+        host: '127.0.0.1',
+        port,
+        secure: false,
+        ignoreTLS: true,
+      });
+      const text = 'x'.repeat(30 * 1024);
+      for (let i = 0; i < 60; i++) {
+        await intruder.sendMail({
+          from: 'x@test.example',
+          to: 'y@test.example',
+          subject: `flood ${i}`,
+          text,
+        });
+      }
+      expect(mail.outbox!.sizeBytes).toBeLessThanOrEqual(OUTBOX_MAX_BYTES);
+      expect(mail.outbox!.size).toBeLessThan(60);
+      expect(mail.outbox!.list(1).data[0].subject).toBe('flood 59');
+      await expect(
+        intruder.sendMail({
+          from: 'x@test.example',
+          to: 'y@test.example',
+          subject: 'huge',
+          text: 'y'.repeat(100 * 1024),
+        }),
+      ).rejects.toThrow();
+      expect(mail.outbox!.list(1).data[0].subject).toBe('flood 59');
+      intruder.close();
+    } finally {
+      await mail.close();
+    }
   });
 });
 

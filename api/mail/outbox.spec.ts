@@ -39,3 +39,13 @@ describe('Outbox', () => {
     expect(stored.sentAt).toBe('2026-03-02T10:00:00.000Z');
   });
 });
+
+describe('Outbox size limit', () => {
+  it('drops the oldest messages once the text it holds passes its byte limit', () => {
+    const outbox = new Outbox(100, () => new Date(), 10_000);
+    const big = (n: number) => ({ to: 'a@test.example', subject: `Big ${n}`, text: 'x'.repeat(3000) });
+    for (let n = 1; n <= 6; n++) outbox.add(big(n));
+    expect(outbox.sizeBytes).toBeLessThanOrEqual(10_000);
+    expect(outbox.list(10).data.map((m) => m.subject)).toEqual(['Big 6', 'Big 5', 'Big 4']);
+  });
+});

@@ -5,7 +5,7 @@ import type { Measurement } from '../db/models/measurement';
 import { pageOf, type Page, type PageRequest } from '../db/pagination';
 import type { UploadedFile } from '../http/validate';
 import { notFound, ProblemError } from '../http/problem';
-import { findRoomFor, type Caller } from '../rooms/room-access';
+import { findRoomFor, roomStillThere, type Caller } from '../rooms/room-access';
 import { measurementDto } from './measurement-dto';
 import {
   contentFromFile,
@@ -38,8 +38,9 @@ export class MeasurementsService {
     requireRoomChannel(room, input.body.channel);
     const content = input.file ? contentFromFile(input.file, input.body, room) : contentFromJson(input.body);
     const labels: Labels = input.body;
-    const row = await this.db.write((transaction) =>
-      this.db.models.Measurement.create(
+    const row = await this.db.write(async (transaction) => {
+      await roomStillThere(this.db.models, room.id, transaction);
+      return this.db.models.Measurement.create(
         {
           id: newId('meas'),
           roomId: room.id,
@@ -52,8 +53,8 @@ export class MeasurementsService {
           createdByKeyId: caller.principal.keyId ?? null,
         },
         { transaction },
-      ),
-    );
+      );
+    });
     return measurementDto(row, true);
   }
 

@@ -31,6 +31,21 @@ export async function findRoomFor(
   return room;
 }
 
+/**
+ * The room read again inside a write transaction. A room found before the write may have been deleted
+ * by a request that took the write queue first (or by another process); what is written for it must
+ * then answer 404, never fail on the foreign key.
+ */
+export async function roomStillThere(
+  models: Models,
+  roomId: string,
+  transaction: Transaction,
+): Promise<Room> {
+  const room = await models.Room.findByPk(roomId, { transaction });
+  if (!room) throw notFound(`No room ${roomId}.`);
+  return room;
+}
+
 export async function findTuningFor(caller: Caller, models: Models, tuningId: string): Promise<Tuning> {
   const tuning = await models.Tuning.findByPk(tuningId);
   if (!tuning || !visible(caller, tuning.ownerId)) throw notFound(`No tuning ${tuningId}.`);

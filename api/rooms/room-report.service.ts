@@ -1,4 +1,5 @@
 import { roomGeometry } from '../../shared/geometry';
+import { mayIdentify } from '../auth/disclosure';
 import { findLayout } from '../../shared/layouts';
 import { tuningCautions } from '../../shared/plan';
 import type { Database } from '../db/database';
@@ -34,14 +35,22 @@ export async function roomReportHtml(
   let tuning = null;
   if (chosen) {
     const version = await findVersion(db.models, chosen, choice.version);
-    const author = version.createdByUserId ? await db.models.User.findByPk(version.createdByUserId) : null;
+    // The author's name only for the author and admins; a developer's client report never carries
+    // the e-mail address of an admin who edited the tuning.
+    const shown = mayIdentify(caller.principal, version.createdByUserId);
+    const author =
+      version.createdByUserId && shown ? await db.models.User.findByPk(version.createdByUserId) : null;
     const settings = settingsOf(version);
     tuning = {
       name: version.name,
       version: version.version,
       notes: version.notes,
       createdAt: version.createdAt,
-      tunedBy: author ? (author.name ?? author.email) : 'unknown',
+      tunedBy: author
+        ? (author.name ?? author.email)
+        : version.createdByUserId
+          ? 'another Isochron user'
+          : 'unknown',
       settings,
       designed: designAtRate(settings, settings.sampleRateHz),
       cautions: tuningCautions(settings, layout),

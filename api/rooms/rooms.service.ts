@@ -4,7 +4,7 @@ import { DEFAULT_SAMPLE_RATE_HZ } from '../../shared/limits';
 import type { Database } from '../db/database';
 import { newId } from '../db/ids';
 import { pageOf, type Page, type PageRequest } from '../db/pagination';
-import { findRoomFor, ownerScope, type Caller } from './room-access';
+import { findRoomFor, ownerScope, roomStillThere, type Caller } from './room-access';
 import { roomDto, type RoomView } from './room-dto';
 
 type RoomCreate = components['schemas']['RoomCreate'];
@@ -53,8 +53,9 @@ export class RoomsService {
       loudspeakers: changes.loudspeakers ?? room.loudspeakers,
     };
     const layout = checkRoomDefinition(merged);
-    await this.db.write((transaction) =>
-      room.update(
+    await this.db.write(async (transaction) => {
+      await roomStillThere(this.db.models, room.id, transaction);
+      await room.update(
         {
           ...(changes.name !== undefined && { name: changes.name }),
           ...(changes.limits !== undefined && { limits: changes.limits }),
@@ -66,8 +67,8 @@ export class RoomsService {
           loudspeakers: [...merged.loudspeakers],
         },
         { transaction },
-      ),
-    );
+      );
+    });
     return roomDto(room);
   }
 

@@ -50,7 +50,7 @@ export function sessionRouter(services: Services): Router {
 
   router.post(
     '/session',
-    validate('signIn', throttles.perAddress, throttles.perAccount, async ({ body }, req, res) => {
+    validate('signIn', throttles.signIn, async ({ body }, req, res) => {
       const check = await sessions.checkPassword(req, res);
       if ('failure' in check) {
         await recordSignInFailed(db, req, check.failure, normalizeEmail(body.email));
@@ -76,7 +76,7 @@ export function sessionRouter(services: Services): Router {
 
   router.post(
     '/invitations/accept',
-    validate('acceptInvitation', throttles.invitationPerAddress, async ({ body }, req, res) => {
+    validate('acceptInvitation', throttles.invitation, async ({ body }, req, res) => {
       const { token, password } = body;
       const user = toConsoleUser(await acceptInvitation(services, actorOf(req), token, password));
       await sessions.signIn(req, user);

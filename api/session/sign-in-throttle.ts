@@ -1,63 +1,116 @@
-import type { Request } from 'express';
-import {
-  ipKeyGenerator,
-  rateLimit,
-  type RateLimitInfo,
-  type RateLimitRequestHandler,
-} from 'express-rate-limit';
+import type { Request, RequestHandler } from 'express';
+import { ipKeyGenerator } from 'express-rate-limit';
 import { ProblemError } from '../http/problem';
 import { validInput } from '../http/validate';
 import { normalizeEmail } from './credentials';
 
-export interface ThrottleLimits {
-  /** Failed attempts allowed per window, per e-mail address tried. */
-  perAccount: number;
-  /** Failed attempts allowed per window, per client address. */
-  perAddress: number;
-  windowMs: number;
+export interface GrowingDelay {
+  /** Failures allowed before any wait. */
+  freeFailures: number;
+  /** The first wait; each further failure doubles it. */
+  firstDelayMs: number;
+  maxDelayMs: number;
+  /** A key without a failure for this long (and not waiting) starts again from nothing. */
+  forgetAfterMs: number;
 }
 
+export interface ThrottleLimits {
+  /** One account tried from one client address: the real user elsewhere is never held up by it. */
+  perAccountAndAddress: GrowingDelay;
+  /** One client address, whatever accounts it tries (password spraying). */
+  perAddress: GrowingDelay;
+  /** Invitation tokens guessed from one client address. */
+  invitationPerAddress: GrowingDelay;
+}
+
+const MINUTE = 60_000;
+
 /**
- * Ten wrong passwords per account per quarter hour lets a person mistype but stops online guessing
- * (NIST SP 800-63B §5.2.2 requires a limit of at most 100 consecutive failures per account).
+ * Five free failures for an account from one address, then waits of 1 s, 2 s, 4 s… up to 15 minutes;
+ * twenty per address over all accounts. Keyed by address, an attacker elsewhere cannot lock a user out
+ * (OWASP Authentication Cheat Sheet, account lockout; NIST SP 800-63B §5.2.2 rate limiting).
  */
 export const DEFAULT_THROTTLE_LIMITS: ThrottleLimits = {
-  perAccount: 10,
-  perAddress: 30,
-  windowMs: 15 * 60_000,
+  perAccountAndAddress: {
+    freeFailures: 5,
+    firstDelayMs: 1000,
+    maxDelayMs: 15 * MINUTE,
+    forgetAfterMs: 15 * MINUTE,
+  },
+  perAddress: { freeFailures: 20, firstDelayMs: 1000, maxDelayMs: 15 * MINUTE, forgetAfterMs: 15 * MINUTE },
+  invitationPerAddress: {
+    freeFailures: 10,
+    firstDelayMs: 1000,
+    maxDelayMs: 15 * MINUTE,
+    forgetAfterMs: 15 * MINUTE,
+  },
 };
 
-function limiter(
-  name: string,
-  limit: number,
-  windowMs: number,
-  keyGenerator: (req: Request) => string,
-  detail: string,
-): RateLimitRequestHandler {
-  return rateLimit({
-    windowMs,
-    limit,
-    keyGenerator,
-    // Only failures count: a correct password takes its hit back when the response is a success.
-    skipSuccessfulRequests: true,
-    requestPropertyName: name,
-    standardHeaders: false,
-    legacyHeaders: false,
-    handler: (req, _res, next, options) => {
-      const info = (req as unknown as Record<string, RateLimitInfo | undefined>)[options.requestPropertyName];
-      const resetAt = info?.resetTime?.getTime() ?? Date.now() + windowMs;
-      const retryAfter = Math.max(1, Math.ceil((resetAt - Date.now()) / 1000));
-      next(
-        new ProblemError({
-          status: 429,
-          title: 'Too many attempts',
-          detail: `${detail} Try again in ${Math.ceil(retryAfter / 60)} minute(s).`,
-          type: 'too-many-attempts',
-          headers: { 'Retry-After': String(retryAfter) },
-        }),
+/** Keys remembered per throttle; the oldest are forgotten first, so a flood of addresses stays bounded. */
+const MAX_KEYS = 50_000;
+
+interface Entry {
+  failures: number;
+  lastFailureAt: number;
+  blockedUntil: number;
+}
+
+/** Failures per key with an exponentially growing wait after the free ones. Memory only, one process. */
+export class GrowingDelayThrottle {
+  private readonly entries = new Map<string, Entry>();
+
+  constructor(
+    private readonly limits: GrowingDelay,
+    private readonly now: () => number = Date.now,
+  ) {}
+
+  /** Milliseconds the key must still wait, or 0. */
+  waitMs(key: string): number {
+    const entry = this.current(key);
+    return entry ? Math.max(0, entry.blockedUntil - this.now()) : 0;
+  }
+
+  fail(key: string): void {
+    const now = this.now();
+    const entry = this.current(key) ?? { failures: 0, lastFailureAt: now, blockedUntil: 0 };
+    entry.failures += 1;
+    entry.lastFailureAt = now;
+    const beyond = entry.failures - this.limits.freeFailures;
+    if (beyond > 0) {
+      const delay = Math.min(
+        this.limits.maxDelayMs,
+        this.limits.firstDelayMs * 2 ** Math.min(beyond - 1, 30),
       );
-    },
-  });
+      entry.blockedUntil = now + delay;
+    }
+    this.entries.delete(key);
+    this.entries.set(key, entry);
+    if (this.entries.size > MAX_KEYS) this.entries.delete(this.entries.keys().next().value as string);
+  }
+
+  succeed(key: string): void {
+    this.entries.delete(key);
+  }
+
+  /** Takes back one failure counted in advance for an attempt that turned out not to be one. */
+  forgive(key: string): void {
+    const entry = this.entries.get(key);
+    if (!entry) return;
+    entry.failures -= 1;
+    if (entry.failures <= 0) this.entries.delete(key);
+    else if (entry.failures <= this.limits.freeFailures) entry.blockedUntil = 0;
+  }
+
+  private current(key: string): Entry | undefined {
+    const entry = this.entries.get(key);
+    if (!entry) return undefined;
+    const now = this.now();
+    if (now >= entry.blockedUntil && now - entry.lastFailureAt > this.limits.forgetAfterMs) {
+      this.entries.delete(key);
+      return undefined;
+    }
+    return entry;
+  }
 }
 
 const clientAddress = (req: Request): string => ipKeyGenerator(req.ip ?? '');
@@ -66,18 +119,70 @@ const triedEmail = (req: Request): string => {
   return normalizeEmail(validInput(req, 'signIn').body.email);
 };
 
-/** Brakes on password and invitation guessing. Create once per app: each limiter keeps its own counts. */
-export function createSignInThrottles(limits: ThrottleLimits = DEFAULT_THROTTLE_LIMITS) {
-  const tooMany = 'Too many failed sign-in attempts.';
+interface Rule {
+  throttle: GrowingDelayThrottle;
+  key: (req: Request) => string;
+  /** A success forgets the key's failures (the account-and-address pair), or not (an address). */
+  resetOnSuccess: boolean;
+}
+
+/**
+ * Refuses with 429 and `Retry-After` while any rule's key must wait (such a refusal is not checked and
+ * not counted). An attempt let through counts as a failure at once, so a burst of parallel guesses
+ * cannot all slip past before the first answer; once answered, a success (or a server error) takes it
+ * back, and a success resets the rules that reset; a refusal (4xx) keeps it. Mount after validation, before the handler.
+ */
+function throttled(rules: Rule[], detail: string): RequestHandler {
+  return (req, res, next) => {
+    const keys = rules.map((rule) => rule.key(req));
+    const waitMs = Math.max(...rules.map((rule, i) => rule.throttle.waitMs(keys[i])));
+    if (waitMs > 0) {
+      const retryAfter = Math.ceil(waitMs / 1000);
+      throw new ProblemError({
+        status: 429,
+        title: 'Too many attempts',
+        detail: `${detail} Wait ${retryAfter} second${retryAfter === 1 ? '' : 's'} before trying again; each further failure doubles the wait.`,
+        type: 'too-many-attempts',
+        headers: { 'Retry-After': String(retryAfter) },
+      });
+    }
+    rules.forEach((rule, i) => rule.throttle.fail(keys[i]));
+    res.once('close', () => {
+      // An attempt abandoned before its answer stays counted: aborting must not buy free guesses.
+      if (!res.writableFinished) return;
+      const status = res.statusCode;
+      rules.forEach((rule, i) => {
+        if (status < 400 && rule.resetOnSuccess) rule.throttle.succeed(keys[i]);
+        else if (status < 400 || status >= 500) rule.throttle.forgive(keys[i]);
+      });
+    });
+    next();
+  };
+}
+
+/** Brakes on password and invitation guessing. Create once per app: each throttle keeps its own counts. */
+export function createSignInThrottles(
+  limits: ThrottleLimits = DEFAULT_THROTTLE_LIMITS,
+  now: () => number = Date.now,
+) {
+  const pair = new GrowingDelayThrottle(limits.perAccountAndAddress, now);
+  const address = new GrowingDelayThrottle(limits.perAddress, now);
+  const invitations = new GrowingDelayThrottle(limits.invitationPerAddress, now);
   return {
-    perAccount: limiter('signInAccountLimit', limits.perAccount, limits.windowMs, triedEmail, tooMany),
-    perAddress: limiter('signInAddressLimit', limits.perAddress, limits.windowMs, clientAddress, tooMany),
-    invitationPerAddress: limiter(
-      'invitationAddressLimit',
-      limits.perAddress,
-      limits.windowMs,
-      clientAddress,
-      'Too many failed attempts to use an invitation.',
+    signIn: throttled(
+      [
+        { throttle: address, key: clientAddress, resetOnSuccess: false },
+        {
+          throttle: pair,
+          key: (req) => `${triedEmail(req)}\u0000${clientAddress(req)}`,
+          resetOnSuccess: true,
+        },
+      ],
+      'Too many failed sign-in attempts from your address.',
+    ),
+    invitation: throttled(
+      [{ throttle: invitations, key: clientAddress, resetOnSuccess: false }],
+      'Too many failed attempts to use an invitation from your address.',
     ),
   };
 }

@@ -1,3 +1,5 @@
+import { authorAsSeenBy } from '../auth/disclosure';
+import type { Principal } from '../auth/permissions';
 import type { Transaction } from 'sequelize';
 import { findLayout } from '../../shared/layouts';
 import { checkTuningSettings, tuningCautions, type TuningSettings } from '../../shared/plan';
@@ -8,7 +10,7 @@ import type { Tuning } from '../db/models/tuning';
 import type { TuningOrigin, TuningVersion } from '../db/models/tuning-version';
 import type { Models } from '../db/models';
 import { notFound } from '../http/problem';
-import type { Caller } from '../rooms/room-access';
+import { roomStillThere, type Caller } from '../rooms/room-access';
 
 export interface VersionContent {
   name: string;
@@ -47,8 +49,8 @@ export function tuningDto(tuning: Tuning, version: TuningVersion, room: Room | n
   };
 }
 
-/** The API shape of one stored version. */
-export function versionDto(version: TuningVersion) {
+/** The API shape of one stored version; who made it only for the author and admins. */
+export function versionDto(version: TuningVersion, caller: Principal | undefined) {
   return {
     tuningId: version.tuningId,
     version: version.version,
@@ -60,7 +62,7 @@ export function versionDto(version: TuningVersion) {
     channels: version.channels,
     subwoofer: version.subwoofer,
     createdAt: version.createdAt.toISOString(),
-    createdBy: { userId: version.createdByUserId, keyId: version.createdByKeyId },
+    createdBy: authorAsSeenBy(caller, { userId: version.createdByUserId, keyId: version.createdByKeyId }),
   };
 }
 
@@ -101,6 +103,7 @@ export async function createTuning(
 ): Promise<{ tuning: Tuning; version: TuningVersion }> {
   checkTuningSettings(content.settings);
   return db.write(async (transaction) => {
+    await roomStillThere(db.models, room.id, transaction);
     const tuning = await db.models.Tuning.create(
       {
         id: newId('tun'),

@@ -162,14 +162,14 @@ export class TuningsService {
       this.db.models.TuningVersion,
       { tuningId: found.id },
       { limit: page.limit, startingAfter: after },
-      versionDto,
+      (row) => versionDto(row, caller.principal),
       'version',
     );
   }
 
   async version(caller: Caller, tuningId: string, versionNumber: number): Promise<VersionView> {
     const found = await findTuningFor(caller, this.db.models, tuningId);
-    return versionDto(await findVersion(this.db.models, found, versionNumber));
+    return versionDto(await findVersion(this.db.models, found, versionNumber), caller.principal);
   }
 
   /** An old version's content becomes the newest version. */

@@ -1,10 +1,11 @@
 import { Router } from 'express';
 import { can, principalOf, requirePermission } from '../auth/permissions';
 import { badRequest, forbidden } from '../http/problem';
+import { countActiveKeys } from '../keys/key-service';
 import { validate } from '../http/validate';
 import type { Services } from '../services';
-import { usageCsv } from '../usage/usage-csv';
-import { usageReport } from '../usage/usage-report';
+import { usageCsv } from './usage-csv';
+import { usageReport } from './usage-report';
 
 const DAY_MS = 86_400_000;
 const DEFAULT_SPAN_MS = 7 * DAY_MS;
@@ -47,7 +48,20 @@ export function usageRouter(services: Services): Router {
         res.type('text/csv; charset=utf-8').attachment('isochron-usage.csv').send(usageCsv(data));
         return;
       }
-      res.json({ from: from.toISOString(), to: to.toISOString(), groupBy: params.groupBy, data });
+      const { config } = services;
+      const oneUser = everyone ? params.userId : principal.userId;
+      res.json({
+        from: from.toISOString(),
+        to: to.toISOString(),
+        groupBy: params.groupBy,
+        limits: {
+          keyRateLimitPerMinute: config.defaultRateLimitPerMinute,
+          userRateLimitPerMinute: config.userRateLimitPerMinute,
+          maxActiveKeysPerUser: config.maxActiveKeysPerUser,
+          activeKeys: oneUser ? await countActiveKeys(services.db.models, oneUser, new Date()) : null,
+        },
+        data,
+      });
     }),
   );
 

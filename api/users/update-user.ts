@@ -3,6 +3,7 @@ import { actorUserId, type Actor } from '../auth/actor';
 import type { UserRole } from '../db/models/user';
 import { conflict, notFound } from '../http/problem';
 import type { Services } from '../services';
+import { keyRoleEffects, type KeyRoleEffect } from './key-role-effects';
 import { toUserView, type UserView } from './user-view';
 
 export interface UpdateUserInput {
@@ -12,8 +13,12 @@ export interface UpdateUserInput {
   status?: 'active' | 'disabled';
 }
 
+/** The user after a change; after a role change also the keys whose effective role it moved. */
+export type UpdatedUserView = UserView & { keys?: KeyRoleEffect[] };
+
 /**
- * Changes a user's role, name or status. Admins cannot disable or demote themselves, so the service
+ * Changes a user's role, name or status. A role change takes effect on the user's keys at their next
+ * request (each key is capped by its owner's role); the answer and the audit log list the keys it moved. Admins cannot disable or demote themselves, so the service
  * always keeps at least the admin who made the last change.
  */
 export async function updateUser(
@@ -21,7 +26,7 @@ export async function updateUser(
   actor: Actor,
   userId: string,
   input: UpdateUserInput,
-): Promise<UserView> {
+): Promise<UpdatedUserView> {
   const { User } = services.db.models;
   const view = await services.db.write(async (transaction) => {
     const user = await User.findByPk(userId, { transaction });
@@ -40,8 +45,30 @@ export async function updateUser(
 
     const events: AuditEntry[] = [];
     const target = { targetType: 'user', targetId: user.id };
+    let keys: KeyRoleEffect[] | undefined;
     if (input.role !== undefined && input.role !== user.role) {
-      events.push({ action: 'user.roleChanged', ...target, details: { from: user.role, to: input.role } });
+      keys = await keyRoleEffects(
+        services.db.models,
+        user.id,
+        user.role,
+        input.role,
+        new Date(),
+        transaction,
+      );
+      events.push({
+        action: 'user.roleChanged',
+        ...target,
+        details: {
+          from: user.role,
+          to: input.role,
+          keys: keys.map((k) => ({
+            id: k.id,
+            role: k.role,
+            from: k.effectiveRoleBefore,
+            to: k.effectiveRoleAfter,
+          })),
+        },
+      });
       user.role = input.role;
     }
     if (input.name !== undefined && input.name !== user.name) {
@@ -66,9 +93,9 @@ export async function updateUser(
       await user.save({ transaction });
       for (const event of events) await recordAudit(services.db.models, actor, event, transaction);
     }
-    return toUserView(user);
+    return keys === undefined ? toUserView(user) : { ...toUserView(user), keys };
   });
-  // Keys are looked up through a short cache; a disabled owner's keys must stop on the very next request.
-  if (input.status !== undefined) services.keys.invalidate();
+  // Keys are looked up through a short cache; a disabled or demoted owner's keys must change on the very next request.
+  if (input.status !== undefined || input.role !== undefined) services.keys.invalidate();
   return view;
 }

@@ -25,6 +25,8 @@ async function main(): Promise<void> {
     ISOCHRON_SESSION_SECRET: 'bench-session-secret-0123456789abcdef',
     CONSOLE_DIR: path.join(dir, 'no-console'),
     LOG_LEVEL: 'warn',
+    // The per-user ceiling, like the key's own limit, set high enough never to refuse.
+    USER_RATE_LIMIT_PER_MINUTE: '10000000',
   });
   const services = await createServices(config);
   const { secret, prefix, lastFour } = generateKeySecret('test');

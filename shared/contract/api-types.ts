@@ -47,8 +47,10 @@ export type paths = {
          * @description Checks the e-mail address and password and starts a session: the answer sets the cookie
          *     `isochron.sid` (HttpOnly, SameSite=Strict, Secure in production) under a new session id.
          *     An unknown address, a wrong password, an account that has not accepted its invitation and a
-         *     disabled account all get the same 401. After 10 failures for one address, or 30 from one client,
-         *     within 15 minutes, further attempts get 429 with `Retry-After`.
+         *     disabled account all get the same 401. After 5 failures for one account from one client address,
+         *     or 20 from one address over all accounts, that address waits before its next attempt: 1 s, doubling
+         *     with each further failure up to 15 minutes (429 with `Retry-After`). Guesses from elsewhere never
+         *     hold up the real user's own address.
          *
          *     Every state-changing `/auth` request must carry `X-Requested-With: isochron-console`, and an
          *     `Origin` header, when sent, must be this service's own origin; otherwise 403.
@@ -105,7 +107,13 @@ export type paths = {
             path?: never;
             cookie?: never;
         };
-        /** Readiness: the database answers. */
+        /**
+         * Readiness: the database answers and takes writes.
+         * @description Reads from the database and writes a scratch row into it and removes it again (at most once every
+         *     two seconds; calls in between get the last outcome). A full disk, a read-only database file or a
+         *     database that cannot be opened answers 503 with the same problem type the failed requests get:
+         *     `storage-full`, `storage-read-only` or `storage-unavailable`, with `Retry-After`.
+         */
         get: operations["getReadiness"];
         put?: never;
         post?: never;
@@ -418,6 +426,10 @@ export type paths = {
          *     server's default applies) and may create `admin` keys for admin users. A key never does more than
          *     its owner may: viewers own no keys, developers no admin keys (422). `kind: test` makes an
          *     `iso_test_` key, which behaves the same and is easy to tell apart in logs and scripts.
+         *
+         *     One user may hold at most `MAX_ACTIVE_KEYS_PER_USER` keys (10 by default) that are neither revoked
+         *     nor expired (409 beyond; revoke one first), and all of a user's keys together stay under the
+         *     per-user ceiling `USER_RATE_LIMIT_PER_MINUTE`, whatever each key's own limit; `GET /v1/usage` shows both.
          */
         post: operations["createKey"];
         delete?: never;
@@ -452,8 +464,10 @@ export type paths = {
         /**
          * Rename a key, change its rate limit or expiry
          * @description Sets any of `name`, `rateLimitPerMinute` (admins only; `null` returns to the server default) and
-         *     `expiresAt` (`null` removes the expiry). A revoked key cannot be changed (409). The change applies
-         *     to the key's very next request.
+         *     `expiresAt` (`null` removes the expiry). Only an admin may move an expiry later or remove it; a
+         *     key's owner may bring it nearer or set one where there was none (403 otherwise). An expired key
+         *     stays expired: its expiry cannot be changed by anyone (409); create a new key instead. A revoked
+         *     key cannot be changed (409). The change applies to the key's very next request.
          */
         patch: operations["updateKey"];
         trace?: never;
@@ -949,6 +963,10 @@ export type paths = {
          *     and at most 10,000 rows (422 beyond: narrow the range or group coarser). A caller with `usage:own`
          *     sees its own keys' usage; `usage:all` (admins, viewers) sees everyone's and may filter by `userId`.
          *
+         *     `limits` gives the limits in force: the default per-key rate limit (a key may have its own), the
+         *     ceiling per user across all their keys and their console session, the most active keys one user
+         *     may hold, and, when the report covers one user (your own, or `userId`), how many they hold now.
+         *
          *     Send `Accept: text/csv` for the same rows as CSV (columns `bucket,keyId,keyName,userId,route,count,errorCount`).
          */
         get: operations["getUsage"];
@@ -1012,6 +1030,12 @@ export type paths = {
          *     request; `status: active` lifts that (a user who never accepted the invitation goes back to
          *     `invited`). Admins cannot change their own role or disable themselves (409). Send `name: null`
          *     to clear the name. A console session must send `X-Requested-With: isochron-console`.
+         *
+         *     A role change reaches the user's API keys at their next request: a key never does more than its
+         *     owner's current role allows (an `admin` key of a developer acts as `tuning`; a viewer's keys are
+         *     refused with 403). Keys are not revoked, and a later promotion gives a key back at most the role it
+         *     was created with. After a role change the answer lists in `keys` every live key whose effective
+         *     role moved; the audit log records the same.
          */
         patch: operations["updateUser"];
         trace?: never;
@@ -2069,6 +2093,10 @@ export type components = {
         TuningVersion: components["schemas"]["TuningSettingsFields"] & {
             /** Format: date-time */
             createdAt: string;
+            /**
+             * @description Who made this version: the user and, for a key, the key. Shown to that user and to admins;
+             *     anyone else sees both null, as for a version whose author is not known.
+             */
             createdBy: {
                 keyId: string | null;
                 userId: string | null;
@@ -2086,12 +2114,23 @@ export type components = {
             name?: components["schemas"]["KeyName"];
             rateLimitPerMinute?: components["schemas"]["KeyRateLimit"] | null;
         };
+        UsageLimits: {
+            /** @description The active keys of the one user the report covers; null when it covers everyone. */
+            activeKeys: number | null;
+            /** @description Requests per minute for a key without its own limit (DEFAULT_RATE_LIMIT_PER_MINUTE). */
+            keyRateLimitPerMinute: number;
+            /** @description Most keys one user may hold that are neither revoked nor expired (MAX_ACTIVE_KEYS_PER_USER). */
+            maxActiveKeysPerUser: number;
+            /** @description Requests per minute for all keys and the console session of one user together (USER_RATE_LIMIT_PER_MINUTE). */
+            userRateLimitPerMinute: number;
+        };
         UsageReport: {
             data: components["schemas"]["UsageRow"][];
             /** Format: date-time */
             from: string;
             /** @enum {string} */
             groupBy: "hour" | "day" | "route" | "key";
+            limits: components["schemas"]["UsageLimits"];
             /** Format: date-time */
             to: string;
         };
@@ -2138,6 +2177,27 @@ export type components = {
                 url: string;
             };
             user: components["schemas"]["User"];
+        };
+        UserUpdateResult: components["schemas"]["User"] & {
+            /** @description Only after a role change. The user's live keys whose effective role the change moved. */
+            keys?: {
+                /**
+                 * @description What the key may do now; null when the owner's role allows no key (403 on use).
+                 * @enum {string|null}
+                 */
+                effectiveRoleAfter: "calculate" | "tuning" | "admin" | null;
+                /** @enum {string|null} */
+                effectiveRoleBefore: "calculate" | "tuning" | "admin" | null;
+                id: string;
+                lastFour: string;
+                name: string;
+                prefix: string;
+                /**
+                 * @description The role the key was created with.
+                 * @enum {string}
+                 */
+                role: "calculate" | "tuning" | "admin";
+            }[];
         };
         Warning: {
             /** @description Channel the warning is about, if any. */
@@ -2472,9 +2532,11 @@ export interface operations {
                 };
             };
             404: components["responses"]["NotFound"];
-            /** @description The database does not answer. */
+            /** @description The database does not answer or cannot be written. */
             503: {
                 headers: {
+                    /** @description Seconds before asking again. */
+                    "Retry-After"?: number;
                     [name: string]: unknown;
                 };
                 content: {
@@ -2776,6 +2838,15 @@ export interface operations {
             400: components["responses"]["BadRequest"];
             401: components["responses"]["Unauthorized"];
             403: components["responses"]["Forbidden"];
+            /** @description The owner already holds the most active keys one user may hold. */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
             422: components["responses"]["Unprocessable"];
             429: components["responses"]["TooManyRequests"];
         };
@@ -2865,7 +2936,7 @@ export interface operations {
             401: components["responses"]["Unauthorized"];
             403: components["responses"]["Forbidden"];
             404: components["responses"]["NotFound"];
-            /** @description The key is revoked. */
+            /** @description The key is revoked, or it has expired and the request changes its expiry. */
             409: {
                 headers: {
                     [name: string]: unknown;
@@ -3956,7 +4027,7 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content: {
-                    "application/json": components["schemas"]["User"];
+                    "application/json": components["schemas"]["UserUpdateResult"];
                 };
             };
             400: components["responses"]["BadRequest"];

@@ -103,6 +103,8 @@ describe('SIGTERM in the middle of a burst', () => {
           CONSOLE_DIR: path.join(dir, 'no-console'),
           // Long enough that only the shutdown flush can have written the counts.
           USAGE_FLUSH_INTERVAL_MS: '3600000',
+          // Eight keys of one user: the per-user ceiling is not what this test is about.
+          USER_RATE_LIMIT_PER_MINUTE: '1000000',
           LOG_LEVEL: 'warn',
         },
         stdio: ['ignore', 'pipe', 'pipe'],

@@ -166,7 +166,14 @@ describe('GET /v1/usage', () => {
 
 describe('metering under load', () => {
   it('2,000 parallel calls over 20 keys, with flushes and key writes racing them, count exactly 2,000', async () => {
-    const ctx = await createTestContext({ env: { USAGE_FLUSH_INTERVAL_MS: '100' } });
+    // Twenty keys of one user: lift the per-user ceiling and key cap, which are not what this test is about.
+    const ctx = await createTestContext({
+      env: {
+        USAGE_FLUSH_INTERVAL_MS: '100',
+        USER_RATE_LIMIT_PER_MINUTE: '100000',
+        MAX_ACTIVE_KEYS_PER_USER: '100',
+      },
+    });
     const errors = jest.spyOn(ctx.services.logger, 'error');
     const server = ctx.app.listen(0);
     try {

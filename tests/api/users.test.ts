@@ -223,7 +223,7 @@ describe('PATCH /v1/users/{userId}', () => {
     const event = await ctx.db.models.AuditEvent.findOne({
       where: { action: 'user.roleChanged', targetId: user.id },
     });
-    expect(JSON.parse(event!.details!)).toEqual({ from: 'viewer', to: 'developer' });
+    expect(JSON.parse(event!.details!)).toEqual({ from: 'viewer', to: 'developer', keys: [] });
   });
 
   it('disables a user: sign-in refused, open sessions end, user.disabled recorded; re-enabling restores', async () => {

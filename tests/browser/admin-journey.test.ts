@@ -171,7 +171,7 @@ it('revokes the key after confirmation, and the API refuses it from then on', as
   await screenshot(page, 'playground-revoked-key');
 });
 
-it('shows usage with charts and a table, and downloads it as CSV', async () => {
+it('shows usage with charts, the limits in force and a table, and downloads it as CSV', async () => {
   // The service writes metered calls every 200 ms in this run; give the meter a moment.
   await page.waitForTimeout(600);
   await openPage(page, service.origin, '/usage', 'Usage');
@@ -181,6 +181,10 @@ it('shows usage with charts and a table, and downloads it as CSV', async () => {
     .getByRole('cell', { name: /POST \/v1\/biquads/ })
     .first()
     .waitFor();
+  // The limits in force, as GET /v1/usage reports them (the service's defaults in this run).
+  expect(await page.getByTestId('usage-limits').textContent()).toMatch(
+    /600 requests a minute per key.*1,?\s?200 a minute for all keys.*at most 10 active keys per user/s,
+  );
   await screenshot(page, 'usage');
   const [download] = await Promise.all([
     page.waitForEvent('download'),

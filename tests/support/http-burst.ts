@@ -1,14 +1,15 @@
 import http from 'node:http';
 
 export interface BurstRequest {
-  method: 'GET' | 'POST';
+  method: 'GET' | 'POST' | 'PATCH';
   path: string;
   headers?: Record<string, string>;
   body?: unknown;
 }
 
 /** What the client saw: a status for each completed response, or the error that ended the request. */
-export type BurstOutcome = { status: number } | { error: string };
+export type BurstOutcome =
+  { status: number; headers?: http.IncomingHttpHeaders; body?: string } | { error: string };
 
 /**
  * Sends every request at once over a keep-alive pool of `sockets` connections, the way a busy client
@@ -44,10 +45,12 @@ export async function burst(
                 },
               },
               (res) => {
-                res.resume();
+                let body = '';
+                res.setEncoding('utf8');
+                res.on('data', (chunk: string) => (body += chunk));
                 res.on('end', () => {
                   completed += 1;
-                  resolve({ status: res.statusCode ?? 0 });
+                  resolve({ status: res.statusCode ?? 0, headers: res.headers, body });
                   options.onResponse?.(completed);
                 });
                 res.on('error', (err) => resolve({ error: err.message }));

@@ -10,10 +10,22 @@ export interface UsageRow {
   userId?: string | null;
 }
 
+/** The limits in force, as `GET /v1/usage` reports them with every answer. */
+export interface UsageLimits {
+  /** Requests per minute for a key without a limit of its own. */
+  keyRateLimitPerMinute: number;
+  /** Requests per minute for all keys and the console session of one user together. */
+  userRateLimitPerMinute: number;
+  maxActiveKeysPerUser: number;
+  /** Active keys of the one user the report covers; null when it covers everyone. */
+  activeKeys: number | null;
+}
+
 export interface UsageResponse {
   from?: string;
   to?: string;
   groupBy?: string;
+  limits?: UsageLimits;
   data: UsageRow[];
 }
 

@@ -15,9 +15,12 @@ export class UsageService {
   private readonly http = inject(HttpClient);
 
   rows(query: UsageQuery): Observable<UsageRow[]> {
-    return this.http
-      .get<UsageResponse>('/v1/usage', { params: toParams(query) })
-      .pipe(map((body) => body.data));
+    return this.report(query).pipe(map((body) => body.data));
+  }
+
+  /** The rows with the limits in force. */
+  report(query: UsageQuery): Observable<UsageResponse> {
+    return this.http.get<UsageResponse>('/v1/usage', { params: toParams(query) });
   }
 
   /** The same rows as CSV, as the server formats them for spreadsheets. */

@@ -63,10 +63,16 @@ import { KeysService } from '../keys.service';
         </mat-form-field>
         <mat-form-field>
           <mat-label>Expires on</mat-label>
-          <input matInput [matDatepicker]="picker" formControlName="expires" />
+          <input
+            matInput
+            [matDatepicker]="picker"
+            [max]="latestExpiry"
+            formControlName="expires"
+            data-testid="edit-expiry"
+          />
           <mat-datepicker-toggle matIconSuffix [for]="picker" />
           <mat-datepicker #picker />
-          <mat-hint>Empty means it never expires.</mat-hint>
+          <mat-hint>{{ expiryHint }}</mat-hint>
         </mat-form-field>
       </mat-dialog-content>
       <mat-dialog-actions align="end">
@@ -94,6 +100,17 @@ export class KeyEditDialog {
   private readonly dialogRef = inject<MatDialogRef<KeyEditDialog, ApiKey>>(MatDialogRef);
   protected readonly canSetRateLimit = can(inject(SessionService).role(), 'keys:setRateLimit');
   protected readonly masked = maskedKey(this.key);
+  private readonly expired = this.key.status === 'expired';
+  /** Only an admin moves an expiry later or removes it; an owner may only bring it nearer. */
+  protected readonly latestExpiry =
+    this.canSetRateLimit || !this.key.expiresAt ? null : new Date(this.key.expiresAt);
+  protected readonly expiryHint = this.expired
+    ? 'This key has expired and stays expired; create a new key.'
+    : this.canSetRateLimit
+      ? 'Empty means it never expires.'
+      : this.key.expiresAt
+        ? 'You may bring the expiry nearer; only an admin moves it later or removes it.'
+        : 'Empty means it never expires. Once set, only an admin moves it later or removes it.';
   protected readonly busy = signal(false);
   protected readonly error = signal<string | null>(null);
 
@@ -103,7 +120,12 @@ export class KeyEditDialog {
       { value: this.key.rateLimitPerMinute, disabled: !this.canSetRateLimit },
       [Validators.min(1), Validators.max(100000)],
     ],
-    expires: [this.key.expiresAt ? new Date(this.key.expiresAt) : (null as Date | null)],
+    expires: [
+      {
+        value: this.key.expiresAt ? new Date(this.key.expiresAt) : (null as Date | null),
+        disabled: this.expired,
+      },
+    ],
   });
 
   protected save(): void {
@@ -118,7 +140,7 @@ export class KeyEditDialog {
       const limit = controls.rateLimitPerMinute.value;
       changes.rateLimitPerMinute = limit === null || String(limit) === '' ? null : Number(limit);
     }
-    if (controls.expires.dirty)
+    if (controls.expires.enabled && controls.expires.dirty)
       changes.expiresAt = controls.expires.value ? endOfLocalDay(controls.expires.value) : null;
     this.busy.set(true);
     this.error.set(null);

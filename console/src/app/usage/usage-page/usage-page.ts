@@ -31,7 +31,7 @@ import { errorMessage } from '../../problem/http-problem';
 import { ChartView } from '../../ui/chart/chart';
 import { usageRouteChart, usageTimeChart } from '../usage-charts';
 import { type RangePreset, presetRange, usageByRoute, usageOverTime, usageTotals } from '../usage-series';
-import { UsageGrouping, UsageQuery, UsageRow } from '../usage.model';
+import { UsageGrouping, UsageLimits, UsageQuery, UsageRow } from '../usage.model';
 import { UsageService } from '../usage.service';
 
 const DAY_MS = 86_400_000;
@@ -103,7 +103,7 @@ export class UsagePage {
 
   private readonly rowsResource = rxResource({
     params: () => this.query() ?? undefined,
-    stream: ({ params }) => this.usage.rows(params),
+    stream: ({ params }) => this.usage.report(params),
   });
   /** Key names for the filter and the table; people who cannot list keys see prefixes from usage alone. */
   private readonly keysResource = rxResource({
@@ -112,7 +112,11 @@ export class UsagePage {
   });
 
   protected readonly rows = computed<UsageRow[]>(() =>
-    this.rowsResource.hasValue() ? this.rowsResource.value() : [],
+    this.rowsResource.hasValue() ? this.rowsResource.value().data : [],
+  );
+  /** The rate limits and key cap in force; kept from the last answer while a new one loads. */
+  protected readonly limits = computed<UsageLimits | null>(() =>
+    this.rowsResource.hasValue() ? (this.rowsResource.value().limits ?? null) : null,
   );
   protected readonly loading = this.rowsResource.isLoading;
   protected readonly error = computed(() => {
@@ -176,6 +180,12 @@ export class UsagePage {
       }
       if (grew) this.knownRoutes.set([...seen].sort());
     });
+  }
+
+  protected heldKeys(limits: UsageLimits): string {
+    if (limits.activeKeys === null) return '';
+    const who = this.seesEveryone() ? 'This user holds' : 'You hold';
+    return `${who} ${formatCount(limits.activeKeys)} active key${limits.activeKeys === 1 ? '' : 's'}.`;
   }
 
   protected keyName(keyId: string | null): string {

@@ -13,6 +13,7 @@ import { MatTableModule } from '@angular/material/table';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import { catchError, filter, of } from 'rxjs';
 import { UserRole, roleLabel } from '../../auth/roles';
+import { keyEffectsSummary, type KeyRoleEffect } from '../key-effects';
 import { SessionService } from '../../auth/session.service';
 import { formatDateTime, formatRelative } from '../../format/format';
 import { errorMessage } from '../../problem/http-problem';
@@ -131,7 +132,7 @@ export class UsersPage {
     const data: ConfirmDialogData = {
       title: `Disable ${user.email}?`,
       message:
-        'They are signed out and cannot sign in until enabled again. Keys they own keep working until you revoke them.',
+        'They are signed out and cannot sign in until enabled again. Their API keys are refused until then too.',
       confirmLabel: 'Disable user',
       destructive: true,
     };
@@ -145,8 +146,12 @@ export class UsersPage {
   private apply(user: ConsoleUser, changes: UserChanges, done: string): void {
     this.users.update(user.id, changes).subscribe({
       next: (updated) => {
-        this.replace({ ...user, ...updated });
-        this.snackBar.open(done, undefined, { duration: 4000 });
+        const { keys, ...changed } = updated as ConsoleUser & { keys?: KeyRoleEffect[] };
+        this.replace({ ...user, ...changed });
+        const effects = keyEffectsSummary(keys);
+        this.snackBar.open(effects ? `${done} ${effects}` : done, effects ? 'Dismiss' : undefined, {
+          duration: effects ? 10000 : 4000,
+        });
       },
       error: (error: unknown) => {
         // Put the select back to what the server still holds.
