@@ -194,8 +194,9 @@ describe('every id parameter and cursor', () => {
     const agent = request(ctx.app);
     const res = await agent[method as 'get'](path + query).set(asAdmin());
     expect(res.status).toBe(400);
-    expect(pointers(res.body)).toContain(
-      `/${parameter.in === 'path' ? 'params' : 'query'}/${parameter.name}`,
-    );
+    const field = `/${parameter.in === 'path' ? 'params' : 'query'}/${parameter.name}`;
+    // A NUL in the path is refused before routing (api/http/nul-guard.ts), which names the path.
+    const named = bad.includes('\u0000') && parameter.in === 'path' ? ['/path', field] : [field];
+    expect(pointers(res.body).some((p) => named.includes(p))).toBe(true);
   });
 });
