@@ -7,6 +7,7 @@ import { outboxRouter } from './mail/outbox.router';
 import { measurementsRouter } from './measurements/measurements.router';
 import { roomsRouter } from './rooms/rooms.router';
 import type { Services } from './services';
+import { testSignalsRouter } from './test-signals/test-signals.router';
 import { tuningsRouter } from './tunings/tunings.router';
 import { usageRouter } from './usage/usage.router';
 import { usersRouter } from './users/users.router';
@@ -20,6 +21,7 @@ export function v1Router(services: Services): Router {
   router.use(layoutsRouter());
   router.use(calculationsRouter());
   router.use(analysisRouter());
+  router.use(testSignalsRouter());
   router.use(usersRouter(services));
   router.use(outboxRouter(services));
   router.use(keysRouter(services));

@@ -793,6 +793,53 @@ export type paths = {
         patch?: never;
         trace?: never;
     };
+    "/v1/test-signals": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Make a test signal — exponential sweep, pink noise or a sweep sequence for a whole layout (WAV)
+         * @description Answers the signal as a WAV file (`audio/wav`; 16 or 24-bit PCM or 32-bit float, 44.1–192 kHz), or,
+         *     with `Accept: application/json`, its description (the same numbers, no samples). Nothing is stored.
+         *     Levels: ±1.0 is 0 dBFS. A sweep's `levelDbfs` is its sine peak; pink noise's `levelDbfs` is its raw
+         *     RMS, on which a full-scale sine reads −3.01 dBFS (`rmsDbfsSineReferenced` gives the AES17-style
+         *     reading, 3.01 dB higher). Files are at most **64 MiB**; a longer request is refused naming
+         *     `/body/durationS`.
+         *
+         *     - `sweep`: exponential sine sweep `x(t) = A·sin(2π·f1·L·(e^(t/L) − 1))`, `L = T/ln(f2/f1)` (Farina,
+         *       AES 108th Convention, 2000, preprint 5093; Farina, AES 122nd Convention, 2007), from `startHz` to
+         *       `endHz` (at most Nyquist, at least an octave) over `durationS`, half-Hann fades `fadeInS` and
+         *       `fadeOutS`, then `silenceAfterS` of digital silence for the room's decay. The description gives
+         *       where each harmonic's response will land before the linear one: `T·ln N/ln(f2/f1)`.
+         *     - `pinkNoise`: noise with power density ∝ 1/f (−3.01 dB per octave, equal energy per fractional-octave
+         *       band), shaped in the frequency domain with seeded random phases (`seed`; the same seed gives the
+         *       same file), in the `band` `full` 20 Hz–20 kHz, `mid` 500 Hz–2 kHz (loudspeaker level setting) or
+         *       `low` 20–80 Hz (subwoofers) — these bands are common practice, not a standard. `levelDbfs` is the
+         *       RMS (default −20 dBFS RMS, the common reference); the crest factor is reported, and a level whose
+         *       peak would clip is refused.
+         *     - `sweepSequence`: one multichannel file with the sweep on each of `channels` in turn, each followed
+         *       by `gapS` of silence — make the gap longer than the room's decay time (T60) so one response has died
+         *       away before the next sweep starts. With `timingReference: true` one more channel (the last)
+         *       carries every sweep: wire it straight back to an input (loopback) and give that input as
+         *       `referenceChannel` to `POST /v1/analysis/sweep`, so the interface's latency drops out of the arrivals.
+         *
+         *     Fields of another kind are refused (400), not ignored.
+         *
+         *     **Caution.** Every answer carries the test-signal cautions — in `cautions` of the JSON description and
+         *     in the `Test-Signal-Caution` header of the WAV file: start quietly, protect hearing, protect drivers.
+         */
+        post: operations["createTestSignal"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
     "/v1/tunings/{tuningId}": {
         parameters: {
             query?: never;
@@ -1950,6 +1997,106 @@ export type components = {
             gainDb: number;
             /** @constant */
             kind: "lowFrequencyLift";
+        };
+        TestSignal: {
+            cautions: components["schemas"]["Caution"][];
+            channelCount: number;
+            durationS: number;
+            /** @enum {unknown} */
+            encoding: "pcm16" | "pcm24" | "float32";
+            frameCount: number;
+            /** @enum {unknown} */
+            kind: "sweep" | "pinkNoise" | "sweepSequence";
+            peakDbfs: number;
+            pinkNoise?: {
+                /** @enum {unknown} */
+                band: "full" | "mid" | "low";
+                crestFactorDb: number;
+                fromHz: number;
+                peakDbfs: number;
+                /** @description Raw RMS (a full-scale sine reads −3.01 dBFS). */
+                rmsDbfs: number;
+                /** @description RMS + 3.01 dB (a full-scale sine reads 0 dB). */
+                rmsDbfsSineReferenced: number;
+                seed: number;
+                toHz: number;
+            };
+            sampleRateHz: number;
+            sequence?: {
+                gapS: number;
+                /** @description Sweep plus gap, s. */
+                periodS: number;
+                slots: {
+                    channel: string;
+                    channelIndex: number;
+                    startS: number;
+                    startSample: number;
+                }[];
+                timingReferenceChannelIndex: number | null;
+            };
+            /** @description Size of the WAV file, bytes. */
+            sizeBytes: number;
+            sweep?: {
+                durationS: number;
+                endHz: number;
+                fadeInS: number;
+                fadeOutS: number;
+                formula: string;
+                harmonicAdvanceS: {
+                    advanceS: number;
+                    harmonic: number;
+                }[];
+                /** @description Sine peak, dBFS. */
+                levelDbfs: number;
+                /** @description L = T/ln(f2/f1), s. */
+                rateS: number;
+                silenceAfterS: number;
+                startHz: number;
+            };
+        };
+        TestSignalRequest: {
+            /**
+             * @description Pink-noise band (common practice; default full).
+             * @enum {unknown}
+             */
+            band?: "full" | "mid" | "low";
+            /** @description Sweep sequence: the channels to sweep, in order; the file has one channel per label. */
+            channels?: components["schemas"]["ChannelLabel"][];
+            /**
+             * @description Sweep: T, fades included, silence excluded. Noise: length. Seconds.
+             * @default 10
+             */
+            durationS?: number;
+            /**
+             * @default pcm24
+             * @enum {unknown}
+             */
+            encoding?: "pcm16" | "pcm24" | "float32";
+            /** @description Sweep f2, Hz (≤ Nyquist; default 20000). */
+            endHz?: number;
+            /** @description Half-Hann fade-in, s (default 0.05). */
+            fadeInS?: number;
+            /** @description Half-Hann fade-out, s (default 0.01). */
+            fadeOutS?: number;
+            /** @description Sweep sequence: silence after each sweep, s (longer than the room's T60; default 3). */
+            gapS?: number;
+            /** @enum {unknown} */
+            kind: "sweep" | "pinkNoise" | "sweepSequence";
+            /** @description Sweep: sine peak, dBFS (default −12). Pink noise: RMS, dBFS raw (default −20). */
+            levelDbfs?: number;
+            /**
+             * @description Sample rate of the file, Hz.
+             * @default 48000
+             */
+            sampleRateHz?: number;
+            /** @description Pink-noise phases (default 1). */
+            seed?: number;
+            /** @description Silence after a single sweep, s (default 2). */
+            silenceAfterS?: number;
+            /** @description Sweep f1, Hz (default 20). */
+            startHz?: number;
+            /** @description Sweep sequence: add a last channel carrying every sweep, for a loopback (default false). */
+            timingReference?: boolean;
         };
         Tuning: components["schemas"]["TuningSettingsFields"] & {
             cautions: components["schemas"]["Caution"][];
@@ -3570,6 +3717,47 @@ export interface operations {
             429: components["responses"]["TooManyRequests"];
         };
     };
+    createTestSignal: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["TestSignalRequest"];
+            };
+        };
+        responses: {
+            /** @description The WAV file, or its description with `Accept: application/json`. */
+            200: {
+                headers: {
+                    /** @description The test-signal caution in plain ASCII (start quietly, protect hearing, protect drivers). */
+                    "Test-Signal-Caution"?: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["TestSignal"];
+                    "audio/wav": string;
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            /** @description Neither `audio/wav` nor `application/json` is acceptable to the client. */
+            406: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            422: components["responses"]["Unprocessable"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
     getTuning: {
         parameters: {
             query?: {
@@ -4121,6 +4309,7 @@ export type ValidatedDefaults = {
   createPlan: { query: never; body: never };
   createRoom: { query: never; body: never };
   createRoomTuning: { query: never; body: never };
+  createTestSignal: { query: never; body: "sampleRateHz" | "encoding" | "durationS" };
   deleteMeasurement: { query: never; body: never };
   deleteRoom: { query: never; body: never };
   deleteTuning: { query: never; body: never };
