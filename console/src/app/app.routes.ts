@@ -49,6 +49,12 @@ export const routes: Routes = [
         loadComponent: () => import('./rooms/room-page/room-page').then((m) => m.RoomPage),
       },
       {
+        path: 'rooms/:roomId/tunings/:tuningId',
+        title: 'Tuning · Isochron',
+        canActivate: [requireCapability('rooms:view')],
+        loadComponent: () => import('./tunings/tuning-page/tuning-page').then((m) => m.TuningPage),
+      },
+      {
         path: 'users',
         title: 'Users · Isochron',
         canActivate: [requireCapability('users:manage')],
