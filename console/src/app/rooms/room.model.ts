@@ -10,3 +10,7 @@ export type RoomLoudspeaker = Schemas['RoomLoudspeaker'];
 export type SpeakerGeometry = Schemas['SpeakerGeometry'];
 
 export type { Tuning, TuningComparison } from '../tunings/tuning.model';
+
+export type RoomCreate = Schemas['RoomCreate'];
+export type RoomUpdate = Schemas['RoomUpdate'];
+export type Layout = Schemas['Layout'];

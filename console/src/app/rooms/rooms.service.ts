@@ -1,8 +1,8 @@
 import { HttpClient, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
-import { EMPTY, Observable, expand, reduce } from 'rxjs';
+import { EMPTY, Observable, expand, map, reduce } from 'rxjs';
 import { ListPage } from '../keys/key.model';
-import { Room, Tuning } from './room.model';
+import { Layout, Room, RoomCreate, RoomUpdate, Tuning } from './room.model';
 
 export function allPages<T extends { id: string }>(
   fetchPage: (startingAfter?: string) => Observable<ListPage<T>>,
@@ -39,5 +39,19 @@ export class RoomsService {
         params: pageParams(after),
       }),
     );
+  }
+
+  create(body: RoomCreate): Observable<Room> {
+    return this.http.post<Room>('/v1/rooms', body);
+  }
+
+  /** Fields given replace the stored ones; stored tunings are not changed. */
+  update(id: string, body: RoomUpdate): Observable<Room> {
+    return this.http.patch<Room>(`/v1/rooms/${encodeURIComponent(id)}`, body);
+  }
+
+  /** The ITU-R BS.2051 layouts (and 9.1.6) the API knows. */
+  layouts(): Observable<Layout[]> {
+    return this.http.get<ListPage<Layout>>('/v1/layouts').pipe(map((page) => page.data));
   }
 }

@@ -72,7 +72,7 @@ export class RoomPage {
   );
   protected readonly topView = computed(() => {
     const room = this.room();
-    return room ? topViewChart(room) : null;
+    return room ? topViewChart(room, room.geometry.speakers) : null;
   });
   protected readonly channels = computed(() => {
     const room = this.room();
