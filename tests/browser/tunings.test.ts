@@ -140,7 +140,7 @@ it('shows a past version read-only, compares with another tuning, renames, repor
     await page.getByTestId('delete-tuning').click();
     await page
       .getByRole('dialog')
-      .getByText(/All 2 versions of this tuning are deleted/)
+      .getByText(/Both versions of this tuning are deleted/)
       .waitFor();
     await page.getByRole('dialog').getByTestId('confirm-action').click();
     await page.getByRole('heading', { level: 1, name: 'Stage 3' }).waitFor();

@@ -7,6 +7,7 @@ import {
   limitsSummary,
   versionAuthor,
   versionOrigin,
+  versionsPhrase,
 } from './tuning-view';
 import { downloadName } from './download';
 
@@ -73,6 +74,10 @@ describe('labels', () => {
       'User usr_2, with key key_9',
     );
     expect(versionAuthor({ createdBy: { userId: null, keyId: null } }, 'usr_1')).toBe('Not known');
+  });
+
+  it('counts versions in words where a number reads oddly', () => {
+    expect([1, 2, 5].map(versionsPhrase)).toEqual(['Its one version', 'Both versions', 'All 5 versions']);
   });
 
   it('makes file names from tuning names', () => {

@@ -155,3 +155,10 @@ export function versionAuthor(version: Pick<TuningVersion, 'createdBy'>, myUserI
   const who = userId === myUserId ? 'You' : `User ${userId}`;
   return keyId ? `${who}, with key ${keyId}` : `${who}, in the console`;
 }
+
+/** "Its one version", "Both versions", "All 5 versions": never "All 2". */
+export function versionsPhrase(count: number): string {
+  if (count === 1) return 'Its one version';
+  if (count === 2) return 'Both versions';
+  return `All ${count} versions`;
+}

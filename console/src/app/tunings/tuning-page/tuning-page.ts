@@ -22,7 +22,7 @@ import { ChannelEditor } from '../channel-editor/channel-editor';
 import { ComparisonView } from '../comparison/comparison-view';
 import { TuningDetails, TuningDetailsDialog } from '../tuning-details-dialog';
 import type { Tuning, TuningChannelInput, TuningComparison, TuningVersion } from '../tuning.model';
-import { channelFieldOf, channelRows, versionAuthor, versionOrigin } from '../tuning-view';
+import { channelFieldOf, channelRows, versionAuthor, versionOrigin, versionsPhrase } from '../tuning-view';
 import { TuningsService } from '../tunings.service';
 import { downloadBlob, downloadName } from '../download';
 
@@ -365,7 +365,7 @@ export class TuningPage {
       .open<ConfirmDialog, ConfirmDialogData, boolean>(ConfirmDialog, {
         data: {
           title: `Delete “${tuning.name}”?`,
-          message: `All ${tuning.latestVersion} ${tuning.latestVersion === 1 ? 'version' : 'versions'} of this tuning are deleted for good. Exported files and printed reports are not affected.`,
+          message: `${versionsPhrase(tuning.latestVersion)} of this tuning ${tuning.latestVersion === 1 ? 'is' : 'are'} deleted for good. Exported files and printed reports are not affected.`,
           confirmLabel: 'Delete tuning',
           destructive: true,
         },
