@@ -74,10 +74,8 @@ describe('every documented example is answered as documented', () => {
 
   it.each(cases)('%s', async (_name, method, route, operationId, body) => {
     // JSON answers: operations that can also answer a file (a test signal's WAV) describe it in JSON.
-    const call = request(ctx.app)
-      [method](route)
-      .set('Authorization', `Bearer ${ctx.keys.admin}`)
-      .set('Accept', 'application/json');
+    const call = request(ctx.app)[method](route).set('Authorization', `Bearer ${ctx.keys.admin}`);
+    call.set('Accept', 'application/json');
     const res = body === undefined ? await call : await call.send(body as object);
     if (res.status >= 300) throw new Error(`${res.status}: ${JSON.stringify(res.body)}`);
     expectToMatchContract(operationId, res.status, res.body);
