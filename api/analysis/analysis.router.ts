@@ -2,18 +2,30 @@ import { Router } from 'express';
 import { speedOfSoundMps } from '../../shared/acoustics/speed-of-sound';
 import { analyzeImpulseResponse } from '../../shared/analysis/analyze-impulse-response';
 import { MIN_SMOOTHING_OCTAVES } from '../../shared/analysis/smoothing';
-import { decodeWav } from '../../shared/analysis/wav-decode';
+import { decodeWav, openWav } from '../../shared/analysis/wav-decode';
+import { analyzeSweepRecording } from '../../shared/capture/sweep-analysis';
+import { CalculationInputError } from '../../shared/errors';
 import { requirePermission } from '../auth/permissions';
 import { badRequest } from '../http/problem';
-import { validate, type UploadedFile } from '../http/validate';
+import { validate, type UploadedFile, type ValidInput } from '../http/validate';
 
-/** POST /v1/analysis/impulse-response: arrival, level, smoothed response and decay times of one WAV file. */
+/**
+ * POST /v1/analysis/impulse-response: arrival, level, smoothed response and decay times of one WAV file.
+ * POST /v1/analysis/sweep: the same for a recorded sweep, after deconvolution, with its harmonics.
+ */
 export function analysisRouter(): Router {
   const router = Router();
   router.post(
     '/analysis/impulse-response',
     requirePermission('calculate'),
     validate('analyzeImpulseResponse', ({ body, file }, _req, res) => res.json(analyseUpload(body, file))),
+  );
+  router.post(
+    '/analysis/sweep',
+    requirePermission('calculate'),
+    validate('analyzeSweepRecording', ({ body, file }, _req, res) =>
+      res.json(analyseSweepUpload(body, file)),
+    ),
   );
   return router;
 }
@@ -40,6 +52,61 @@ function analyseUpload(
     ...analysis,
     warnings: [...wav.warnings, ...analysis.warnings],
     file: { sizeBytes: file.size, sampleRateHz, channelCount, channelIndex, encoding, durationS },
+  };
+}
+
+type SweepForm = ValidInput<'analyzeSweepRecording'>['body'];
+
+/** A recorded sweep's analysis, with what was read from the file. */
+export function analyseSweepUpload(form: SweepForm, file: UploadedFile) {
+  const wav = openWav(file.buffer);
+  const { sampleRateHz: fs } = wav;
+  const measured = wav.channel(form.channel, '/channel');
+  const reference =
+    form.referenceChannel === undefined ? undefined : wav.channel(form.referenceChannel, '/referenceChannel');
+  const from = Math.round(form.offsetS * fs);
+  if (from >= wav.frameCount) {
+    throw new CalculationInputError(
+      `offsetS must lie inside the file (${wav.durationS.toFixed(3)} s); received ${form.offsetS} s`,
+      '/offsetS',
+    );
+  }
+  const to =
+    form.lengthS === undefined
+      ? wav.frameCount
+      : Math.min(wav.frameCount, from + Math.round(form.lengthS * fs));
+  const analysis = analyzeSweepRecording(
+    measured.samples.subarray(from, to),
+    {
+      sampleRateHz: fs,
+      startHz: form.startHz,
+      endHz: form.endHz,
+      durationS: form.durationS,
+      fadeInS: form.fadeInS,
+      fadeOutS: form.fadeOutS,
+      levelDbfs: form.levelDbfs,
+      silenceAfterS: 0,
+    },
+    {
+      method: form.method,
+      reference: reference?.samples.subarray(from, to),
+      smoothingOctaves: Math.max(MIN_SMOOTHING_OCTAVES, form.smoothingOctaves),
+      room: roomOf(form),
+      speedOfSoundMps: speedOfSoundMps(form.temperatureC),
+    },
+  );
+  const { channelCount, encoding, durationS } = wav;
+  return {
+    ...analysis,
+    warnings: [...measured.warnings, ...(reference?.warnings ?? []), ...analysis.warnings],
+    file: {
+      sizeBytes: file.size,
+      sampleRateHz: fs,
+      channelCount,
+      channelIndex: measured.channelIndex,
+      encoding,
+      durationS,
+    },
   };
 }
 

@@ -177,6 +177,51 @@ export type paths = {
         patch?: never;
         trace?: never;
     };
+    "/v1/analysis/sweep": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Turn a recorded sweep into an impulse response — linear and harmonic responses, distortion, then the full analysis
+         * @description Upload the recording of a sweep made by `POST /v1/test-signals` (or any exponential sweep with known
+         *     parameters) as `multipart/form-data`, with the WAV file in `file` and the sweep's parameters as fields
+         *     (their defaults are the test-signal defaults). Nothing is stored. Same files and caps as
+         *     `POST /v1/analysis/impulse-response`: **20 MiB** and **30 s** per file.
+         *
+         *     **Deconvolution.** `method` `regularizedDivision` (default): the recording's spectrum divided by the
+         *     sweep's, regularised so nothing outside f1..f2 is amplified (Müller & Massarani, "Transfer-function
+         *     measurement with sweeps", JAES 49(6), 2001); `inverseFilter`: convolution with Farina's inverse filter
+         *     (AES 108th Convention, 2000, preprint 5093), which does not undo the sweep's fades, so the response
+         *     reads low within the fade-in's frequencies. One real FFT of the smallest power of two holding the
+         *     recording (recording + sweep for the inverse filter).
+         *
+         *     **What comes back.** Everything `POST /v1/analysis/impulse-response` answers, for the linear impulse
+         *     response (its arrival counted from the sweep's first sample leaving the output, so with no
+         *     reference it includes the interface's latency), plus:
+         *     - `distortion`: the 2nd to 5th harmonics, each cut from where its response lands — `T·ln N/ln(f2/f1)`
+         *       before the linear one — and given re the fundamental in dB and % against the fundamental frequency
+         *       (f1 to f2/N, third-octave power averaged). Below about ten times f1 the harmonic responses of a sweep
+         *       are less well separated and read high.
+         *     - `timing` (with `referenceChannel`): the loopback's own arrival (the interface's latency) and the
+         *       measured arrival counted from it, in samples and ms — comparable between channels, the basis for
+         *       delay alignment.
+         *     - `deconvolution`: the method and transform size.
+         *
+         *     A sweep sequence (one file sweeping several channels) is analysed one slot at a time: give the slot's
+         *     `startS` as `offsetS` and the sequence's `periodS` as `lengthS`.
+         */
+        post: operations["analyzeSweepRecording"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
     "/v1/bass-management": {
         parameters: {
             query?: never;
@@ -2134,6 +2179,94 @@ export type components = {
             /** @description 1–8 for Butterworth; 2, 4 or 8 for Linkwitz-Riley. */
             order: number;
         };
+        SweepRecordingAnalysis: components["schemas"]["ImpulseResponseAnalysis"] & {
+            deconvolution: {
+                fftSize: number;
+                /** @description Samples of linear response analysed. */
+                linearSamples: number;
+                /** @enum {unknown} */
+                method: "regularizedDivision" | "inverseFilter";
+            };
+            distortion: {
+                harmonics: {
+                    advanceS: number;
+                    frequenciesHz: number[];
+                    harmonic: number;
+                    levelDb: number[];
+                    percent: number[];
+                }[];
+                smoothingOctaves: number;
+            };
+            timing?: {
+                arrivalFromReferenceMs: number;
+                arrivalFromReferenceSamples: number;
+                peakFromReferenceMs: number;
+                peakFromReferenceSamples: number;
+                referenceArrivalMs: number;
+                referenceArrivalSample: number;
+                referencePeakSample: number;
+            };
+        };
+        SweepRecordingUpload: {
+            /** @description 0-based channel holding the microphone; required when the file has more than one channel. */
+            channel?: number;
+            /**
+             * @description Sweep T (fades included), s.
+             * @default 10
+             */
+            durationS?: number;
+            /**
+             * @description Sweep f2, Hz.
+             * @default 20000
+             */
+            endHz?: number;
+            /** @default 0.05 */
+            fadeInS?: number;
+            /** @default 0.01 */
+            fadeOutS?: number;
+            /** @description The recording (at most 20 MiB and 30 s). */
+            file: string;
+            /** @description Length of the part analysed, s (a sequence's periodS); default to the end of the file. */
+            lengthS?: number;
+            /**
+             * @description Sweep sine peak as played, dBFS.
+             * @default -12
+             */
+            levelDbfs?: number;
+            /**
+             * @default regularizedDivision
+             * @enum {unknown}
+             */
+            method?: "regularizedDivision" | "inverseFilter";
+            /**
+             * @description Start of the part analysed, s into the file (a sequence slot's startS).
+             * @default 0
+             */
+            offsetS?: number;
+            /** @description 0-based channel holding the loopback (timing reference), if one was recorded. */
+            referenceChannel?: number;
+            /** @description Inside height (z), metres. */
+            roomHeightM?: number;
+            /** @description Inside length (y), metres. */
+            roomLengthM?: number;
+            /** @description Inside width (x), metres. */
+            roomWidthM?: number;
+            /**
+             * @description Smoothing window in octaves, 1/48 (0.0208) to 1; default 1/12.
+             * @default 0.08333333333333333
+             */
+            smoothingOctaves?: number;
+            /**
+             * @description Sweep f1, Hz.
+             * @default 20
+             */
+            startHz?: number;
+            /**
+             * @description Air temperature for the modes.
+             * @default 20
+             */
+            temperatureC?: number;
+        };
         /**
          * @description The response a channel should reach, in dB relative to its own level. `flat`: 0 dB. `tilt`: a
          *     straight line of `dbPerOctave` through 0 dB at `pivotHz` (default 1000 Hz). `lowFrequencyLift`:
@@ -2889,6 +3022,61 @@ export interface operations {
                 };
                 content: {
                     "application/json": components["schemas"]["ImpulseResponseAnalysis"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            /** @description The file is larger than 20 MiB. */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is not multipart/form-data. */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The file cannot be analysed (type `unusable-audio`, with `reason`), or a value cannot be used. */
+            422: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    analyzeSweepRecording: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "multipart/form-data": components["schemas"]["SweepRecordingUpload"];
+            };
+        };
+        responses: {
+            /** @description The analysis. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["SweepRecordingAnalysis"];
                 };
             };
             400: components["responses"]["BadRequest"];
@@ -4634,6 +4822,7 @@ export interface operations {
 export type ValidatedDefaults = {
   acceptInvitation: { query: never; body: never };
   analyzeImpulseResponse: { query: never; body: "smoothingOctaves" | "temperatureC" };
+  analyzeSweepRecording: { query: never; body: "startHz" | "endHz" | "durationS" | "fadeInS" | "fadeOutS" | "levelDbfs" | "method" | "offsetS" | "smoothingOctaves" | "temperatureC" };
   averageMeasurements: { query: never; body: never };
   compareTunings: { query: never; body: never };
   computeDelays: { query: never; body: never };
