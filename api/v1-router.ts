@@ -6,6 +6,7 @@ import { layoutsRouter } from './layouts/layouts.router';
 import { outboxRouter } from './mail/outbox.router';
 import { measurementsRouter } from './measurements/measurements.router';
 import { roomsRouter } from './rooms/rooms.router';
+import { targetCurvesRouter } from './target-curves/target-curves.router';
 import type { Services } from './services';
 import { tuningsRouter } from './tunings/tunings.router';
 import { usageRouter } from './usage/usage.router';
@@ -18,7 +19,7 @@ import { usersRouter } from './users/users.router';
 export function v1Router(services: Services): Router {
   const router = Router();
   router.use(layoutsRouter());
-  router.use(calculationsRouter());
+  router.use(calculationsRouter(services));
   router.use(analysisRouter());
   router.use(usersRouter(services));
   router.use(outboxRouter(services));
@@ -27,5 +28,6 @@ export function v1Router(services: Services): Router {
   router.use(roomsRouter(services));
   router.use(measurementsRouter(services));
   router.use(tuningsRouter(services));
+  router.use(targetCurvesRouter(services));
   return router;
 }

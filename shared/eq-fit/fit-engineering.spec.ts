@@ -253,7 +253,7 @@ describe('fitParametricEq as an engineer would accept it', () => {
       maxBands: 4,
       toHz: 300,
     };
-    const ranged = fitParametricEq({ ...input, bandFrequencyRangeHz: { min: 40, max: 20000 } });
+    const ranged = fitParametricEq({ ...input, bandFrequencyRangeHz: { fromHz: 40, toHz: 20000 } });
     expect(ranged.bands.length).toBeGreaterThan(0);
     expect(ranged.bands.every((b) => b.frequencyHz >= 40)).toBe(true);
     const noPeaking = fitParametricEq({ ...input, filterTypes: ['lowShelf', 'highShelf'] });

@@ -56,7 +56,7 @@ export interface EqFitInput {
   /** The room, for the transition frequency 2000·√(T/V) (Kuttruff, "Room Acoustics"). */
   room?: { volumeM3: number; reverberationTimeS?: number };
   /** Centre frequencies the processor's bands accept, hertz. */
-  bandFrequencyRangeHz?: { min: number; max: number };
+  bandFrequencyRangeHz?: { fromHz: number; toHz: number };
   /** Filter types the processor offers; without `peaking` no band is fitted. */
   filterTypes?: string[];
   /** Broad, gentle corrections above the transition frequency: only when given. */
@@ -578,6 +578,7 @@ function fitRoomBands(
     }
     fitted = refine([...fitted, start], 20);
   }
+  if (maxBoostDb === 0) reportDipNotBoosted(model, fitted, notUsed);
   if (fitted.length === 0) return fitted;
   fitted = refine(fitted, 60);
 
@@ -1030,6 +1031,24 @@ function reportAboveTransition(
   });
 }
 
+/** With cuts only, names the deepest broad dip left (≥ 1 dB, not a null), which a boost could have lifted. */
+function reportDipNotBoosted(model: BandModel, fitted: Fitted[], notUsed: NotUsed[]): void {
+  const residual = model.residualDb(fitted.map((f) => f.band));
+  let dip = -1;
+  for (let i = 0; i < residual.length; i++) {
+    if (model.data.noBoost[i] || model.data.guard[i]) continue;
+    if (dip < 0 || residual[i] < residual[dip]) dip = i;
+  }
+  if (dip < 0 || residual[dip] > -MIN_FEATURE_DB) return;
+  const [lo, hi] = halfHeightRegion(residual, model.data.noBoost, dip);
+  if (widthOctaves(model.data.grid, lo, hi) < NARROW_DIP_OCTAVES) return;
+  notUsed.push({
+    code: 'boostsNotAllowed',
+    frequencyHz: round1(model.data.grid[dip]),
+    message: `A dip ${(-residual[dip]).toFixed(1)} dB below the target at ${round1(model.data.grid[dip])} Hz was left: boosts are not allowed (maxBoostDb 0).`,
+  });
+}
+
 /** Reports the frequencies where the positions disagree by more than 3 dB (standard deviation), once per region. */
 function reportDisagreement(
   grid: readonly number[],
@@ -1348,6 +1367,9 @@ function requirePositions(input: EqFitInput, fs: number): Position[] {
       ...requireMeasured(p.measured, fs, `/positions/${k}/measured`),
     }));
   }
+  if (input.measured === undefined) {
+    throw new CalculationInputError('give measured (one position) or positions (several)', '/measured');
+  }
   return [{ label: 'measured', ...requireMeasured(input.measured, fs, '/measured') }];
 }
 
@@ -1409,22 +1431,19 @@ function requireQRange(qRange: EqFitInput['qRange']): { min: number; max: number
   return { min, max };
 }
 
-function requireBandRange(
-  range: EqFitInput['bandFrequencyRangeHz'],
-  fs: number,
-): { min: number; max: number } {
+function requireBandRange(range: EqFitInput['bandFrequencyRangeHz'], fs: number): { min: number; max: number } {
   if (!range) return { min: 0, max: fs / 2 };
   const min = requireInRange(
-    range.min,
+    range.fromHz,
     { min: 1, max: 192000, unit: 'Hz' },
-    'bandFrequencyRangeHz.min',
-    '/bandFrequencyRangeHz/min',
+    'bandFrequencyRangeHz.fromHz',
+    '/bandFrequencyRangeHz/fromHz',
   );
   const max = requireInRange(
-    range.max,
+    range.toHz,
     { min, exclusiveMin: true, max: 192000, unit: 'Hz' },
-    'bandFrequencyRangeHz.max',
-    '/bandFrequencyRangeHz/max',
+    'bandFrequencyRangeHz.toHz',
+    '/bandFrequencyRangeHz/toHz',
   );
   return { min, max };
 }

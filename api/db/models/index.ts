@@ -5,6 +5,7 @@ import { initInvitation } from './invitation';
 import { initMeasurement } from './measurement';
 import { initRoom } from './room';
 import { initSession } from './session';
+import { initTargetCurve } from './target-curve';
 import { initTuning } from './tuning';
 import { initTuningVersion } from './tuning-version';
 import { initUsageBucket } from './usage-bucket';
@@ -23,6 +24,7 @@ export function defineModels(sequelize: Sequelize) {
     Tuning: initTuning(sequelize),
     TuningVersion: initTuningVersion(sequelize),
     Measurement: initMeasurement(sequelize),
+    TargetCurve: initTargetCurve(sequelize),
   };
   return models;
 }
