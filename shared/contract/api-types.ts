@@ -1514,7 +1514,7 @@ export type components = {
         };
         EqNotUsed: {
             /** @enum {string} */
-            code: "null" | "positionsDisagree" | "narrowDip" | "boostsNotAllowed" | "belowMinimumGain" | "merged" | "opposesCut" | "madeResidualWorse" | "bandBudget" | "aboveTransition" | "peakingNotSupported";
+            code: "null" | "positionsDisagree" | "narrowDip" | "boostsNotAllowed" | "belowMinimumGain" | "merged" | "opposesCut" | "madeResidualWorse" | "littleBenefit" | "bandBudget" | "aboveTransition" | "peakingNotSupported";
             frequencyHz: number | null;
             message: string;
         };

@@ -110,6 +110,7 @@ export interface NotUsed {
     | 'merged'
     | 'opposesCut'
     | 'madeResidualWorse'
+    | 'littleBenefit'
     | 'bandBudget'
     | 'aboveTransition'
     | 'peakingNotSupported';
@@ -203,6 +204,10 @@ const BOOST_Q_MAX = 3;
 const DISAGREEMENT_NO_BOOST_DB = 3;
 /** Spread (dB) at which a frequency's weight in the fit halves: w = 1/(1 + (σ/σ½)²). */
 const DISAGREEMENT_HALF_WEIGHT_DB = 2;
+/** A response this much lower over the level reference band than in its fit band is band-limited (a subwoofer), dB. */
+const OUT_OF_BAND_DB = 10;
+/** A band that lowers the residual RMS by less than this is not worth a processor slot, dB [product choice]. */
+const MIN_BENEFIT_DB = 0.02;
 /** How far above the correction range the fit still watches the bands' skirts, octaves. */
 const GUARD_OCTAVES = 1;
 /** Smoothing of the response above the transition, octaves: only broad trends count there. */
@@ -401,7 +406,7 @@ export function fitParametricEq(input: EqFitInput): EqFitResult {
       notUsed,
       warnings,
     });
-  } else if (input.toHz === undefined) {
+  } else if (input.toHz === undefined && level.source === 'referenceBand') {
     reportAboveTransition(grid, deviation, toHz, highest, notUsed);
   }
 
@@ -564,6 +569,7 @@ function fitRoomBands(
   reportDisagreement(grid, model.data.errorDb, options.spreadDb, notUsed);
 
   let fitted: Fitted[] = [];
+  let setAside = 0;
   for (;;) {
     const residual = model.residualDb(fitted.map((f) => f.band));
     const start = initialBand(residual, model.data, skipped, { cutBounds, boostBounds, minGainDb, notUsed });
@@ -576,7 +582,22 @@ function fitRoomBands(
       });
       break;
     }
-    fitted = refine([...fitted, start], 20);
+    const trial = refine([...fitted, start], 20);
+    const gain = model.weightedRms(fitted.map((f) => f.band)) - model.weightedRms(trial.map((f) => f.band));
+    if (gain < MIN_BENEFIT_DB) {
+      // A feature no band can help (one sitting at the edge of the range, say) is set aside, not retried.
+      const centre = grid.indexOf(start.feature.featureHz);
+      const [lo, hi] = halfHeightRegion(residual, model.data.noBoost, centre);
+      skipped.fill(start.feature.feature === 'peak' ? 2 : 1, lo, hi + 1);
+      notUsed.push({
+        code: 'littleBenefit',
+        frequencyHz: round1(start.feature.featureHz),
+        message: `A ${start.feature.feature} at ${round1(start.feature.featureHz)} Hz, ${signed(start.feature.aboveTargetDb)} dB from the target, got no band: one within the limits would lower the residual by less than ${MIN_BENEFIT_DB} dB.`,
+      });
+      if (++setAside > 2 * maxBands + 8) break;
+      continue;
+    }
+    fitted = trial;
   }
   if (maxBoostDb === 0) reportDipNotBoosted(model, fitted, notUsed);
   if (fitted.length === 0) return fitted;
@@ -708,6 +729,7 @@ function finalDiscipline(
     if (roomModel) current = withoutBoostIntoNoBoost(roomModel, current);
     current = current.filter((f) => Math.abs(f.band.gainDb) >= minGainDb || dropNote(f, minGainDb, notUsed));
     if (roomModel) current = notWorseThanNone(roomModel, current, notUsed, 'room');
+    if (roomModel) current = withoutIdleBands(roomModel, current, notUsed);
     const stable =
       current.length === before &&
       !limited.scaled &&
@@ -739,6 +761,26 @@ function withoutBoostIntoNoBoost(model: BandModel, fitted: Fitted[]): Fitted[] {
     );
   }
   return current.filter((f) => f.band.gainDb <= 0);
+}
+
+/** Removes room bands that lower the residual by less than {@link MIN_BENEFIT_DB}: they would only fill a slot. */
+function withoutIdleBands(model: BandModel, fitted: Fitted[], notUsed: NotUsed[]): Fitted[] {
+  let current = fitted;
+  for (;;) {
+    const all = model.weightedRms(current.map((f) => f.band));
+    const idle = current.find(
+      (f) =>
+        f.region === 'room' &&
+        model.weightedRms(current.filter((g) => g !== f).map((g) => g.band)) - all < MIN_BENEFIT_DB,
+    );
+    if (!idle) return current;
+    notUsed.push({
+      code: 'littleBenefit',
+      frequencyHz: idle.band.frequencyHz,
+      message: `The band at ${idle.band.frequencyHz} Hz (${idle.band.gainDb} dB) lowered the residual by less than ${MIN_BENEFIT_DB} dB; it was left out.`,
+    });
+    current = current.filter((f) => f !== idle);
+  }
 }
 
 /**
@@ -791,7 +833,7 @@ function initialBand(
   const inBounds = (f: number, b: BandBounds) => f >= b.fromHz && f <= b.toHz;
   let peak = -1;
   for (let i = 0; i < residual.length; i++) {
-    if (!inBounds(data.grid[i], cutBounds)) continue;
+    if (skipped[i] === 2 || !inBounds(data.grid[i], cutBounds)) continue;
     if (peak < 0 || residual[i] * data.weight[i] > residual[peak] * data.weight[peak]) peak = i;
   }
   const peakWorth =
@@ -1187,19 +1229,17 @@ function levelOf(
   grid.forEach((f, i) => {
     if (f >= reference.fromHz && f <= reference.toHz) inside.push(departure[i]);
   });
-  if (inside.length >= GRID_POINTS_PER_OCTAVE / 3) {
-    const from = Math.max(reference.fromHz, grid[0]);
-    const to = Math.min(reference.toHz, grid[grid.length - 1]);
-    return {
-      offsetDb: inside.reduce((s, v) => s + v, 0) / inside.length,
-      fromHz: round1(from),
-      toHz: round1(to),
-      source: 'referenceBand',
-    };
-  }
   const first = Math.max(0, fitFirst);
   const last = fitLast >= first ? fitLast : grid.length - 1;
   const band = departure.slice(first, last + 1);
+  const referenceMean = inside.length > 0 ? inside.reduce((s, v) => s + v, 0) / inside.length : NaN;
+  // A subwoofer or another band-limited feed lies far below its own band over 500 Hz–2 kHz: that is not its level.
+  const outOfBand = band.length > 0 && referenceMean < median(band) - OUT_OF_BAND_DB;
+  if (inside.length >= GRID_POINTS_PER_OCTAVE / 3 && !outOfBand) {
+    const from = Math.max(reference.fromHz, grid[0]);
+    const to = Math.min(reference.toHz, grid[grid.length - 1]);
+    return { offsetDb: referenceMean, fromHz: round1(from), toHz: round1(to), source: 'referenceBand' };
+  }
   // Nulls would drag the median down; leave them out once they are found against a first guess.
   const guess = median(band);
   const nulls =
@@ -1210,10 +1250,17 @@ function levelOf(
         )
       : [];
   const outside = band.filter((_, i) => !nulls.some((n) => i >= n.first && i <= n.last));
-  warnings.push({
-    code: 'levelReferenceNotMeasured',
-    message: `The measurement does not cover the level reference band ${reference.fromHz}..${reference.toHz} Hz, so the target was placed at the median level of the fit band instead (with cuts only, at the mean level of the corrected response).`,
-  });
+  warnings.push(
+    outOfBand
+      ? {
+          code: 'levelReferenceOutOfBand',
+          message: `The response lies ${(median(band) - referenceMean).toFixed(1)} dB lower over ${reference.fromHz}..${reference.toHz} Hz than in the fit band (a subwoofer or band-limited feed?), so the target was placed at the median level of the fit band instead (with cuts only, at the mean level of the corrected response). Give levelReferenceHz inside its band to choose.`,
+        }
+      : {
+          code: 'levelReferenceNotMeasured',
+          message: `The measurement does not cover the level reference band ${reference.fromHz}..${reference.toHz} Hz, so the target was placed at the median level of the fit band instead (with cuts only, at the mean level of the corrected response).`,
+        },
+  );
   return {
     offsetDb: median(outside.length > 0 ? outside : band),
     fromHz: round1(grid[first]),
@@ -1298,7 +1345,12 @@ function fitBand(
 
 function roundBand(band: Band, bounds: BandBounds): Band {
   const clamp = (v: number, lo: number, hi: number) => Math.min(hi, Math.max(lo, v));
-  const frequencyHz = clamp(Math.round(band.frequencyHz * 10) / 10, bounds.fromHz, bounds.toHz);
+  // Rounded to 0.1 Hz, inward at the ends, so a band never sits outside its range.
+  const frequencyHz = clamp(
+    Math.round(band.frequencyHz * 10) / 10,
+    Math.ceil(bounds.fromHz * 10 - 1e-9) / 10,
+    Math.floor(bounds.toHz * 10 + 1e-9) / 10,
+  );
   const q = clamp(Math.round(band.q * 1000) / 1000, bounds.qMin, bounds.qMax);
   return {
     frequencyHz: Math.round(frequencyHz * 1e9) / 1e9,
@@ -1431,7 +1483,10 @@ function requireQRange(qRange: EqFitInput['qRange']): { min: number; max: number
   return { min, max };
 }
 
-function requireBandRange(range: EqFitInput['bandFrequencyRangeHz'], fs: number): { min: number; max: number } {
+function requireBandRange(
+  range: EqFitInput['bandFrequencyRangeHz'],
+  fs: number,
+): { min: number; max: number } {
   if (!range) return { min: 0, max: fs / 2 };
   const min = requireInRange(
     range.fromHz,
