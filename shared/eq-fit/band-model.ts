@@ -127,9 +127,13 @@ export class BandModel {
     return out;
   }
 
-  /** Refines the bands, each within its own bounds; jointly up to 16 bands, beyond that one at a time. */
-  refine(bands: Band[], bounds: BandBounds[], maxIterations: number): Band[] {
+  /**
+   * Refines the bands, each within its own bounds; jointly up to 16 bands, beyond that one at a time.
+   * `onlyLast`: only the last band moves (the greedy step; the joint refinement follows at the end).
+   */
+  refine(bands: Band[], bounds: BandBounds[], maxIterations: number, onlyLast = false): Band[] {
     if (bands.length === 0) return bands;
+    if (onlyLast) return this.refineSubset(bands, bounds, [bands.length - 1], maxIterations);
     if (bands.length <= JOINT_REFINEMENT_MAX_BANDS) {
       return this.refineSubset(
         bands,

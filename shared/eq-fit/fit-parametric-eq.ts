@@ -7,6 +7,7 @@ import { CalculationInputError, requireInRange, requireInteger } from '../errors
 import { designBiquad, FILTER_LIMITS } from '../filters/biquad-design';
 import { requireSampleRate } from '../units/sample-rate';
 import {
+  bandwidthOctaves,
   bandsOverlap,
   combinedExtremes,
   MIN_BAND_SPACING_OCTAVES,
@@ -499,7 +500,17 @@ export function fitParametricEq(input: EqFitInput): EqFitResult {
     levelReference: { fromHz: level.fromHz, toHz: level.toHz, source: level.source },
     combined,
     explanation: {
-      bands: fitted.map(explain),
+      bands: fitted.map((f) =>
+        explain(
+          f.region === 'room'
+            ? featureUnder(
+                f,
+                fitGrid,
+                fitError.map((e) => e - levelBefore),
+              )
+            : f,
+        ),
+      ),
       notUsed: notUsed.slice(0, MAX_NOT_USED),
       octaveBands: octaveResiduals(grid, deviation, eqOnGrid, levelBefore, levelAfter),
     },
@@ -549,11 +560,12 @@ function fitRoomBands(
   };
   const grid = model.data.grid;
   const skipped = new Uint8Array(grid.length);
-  const refine = (fitted: Fitted[], iterations: number): Fitted[] => {
+  const refine = (fitted: Fitted[], iterations: number, onlyLast = false): Fitted[] => {
     const bands = model.refine(
       fitted.map((f) => f.band),
       fitted.map((f) => f.bounds),
       iterations,
+      onlyLast,
     );
     return fitted.map((f, i) => ({ ...f, band: bands[i] }));
   };
@@ -582,7 +594,8 @@ function fitRoomBands(
       });
       break;
     }
-    const trial = refine([...fitted, start], 20);
+    // The new band finds its place against the others; all move together once the greedy pass ends.
+    const trial = refine([...fitted, start], 20, true);
     const gain = model.weightedRms(fitted.map((f) => f.band)) - model.weightedRms(trial.map((f) => f.band));
     if (gain < MIN_BENEFIT_DB) {
       // A feature no band can help (one sitting at the edge of the range, say) is set aside, not retried.
@@ -1117,6 +1130,33 @@ function reportDisagreement(
     });
     i = j + 1;
   }
+}
+
+/**
+ * The feature a room band corrects, read from the response before any EQ: its highest point (a cut) or
+ * lowest (a boost) within the band's half-gain width. Bands move and merge while they are fitted, so the
+ * feature that first placed a band may no longer be the one it sits on.
+ */
+function featureUnder(f: Fitted, grid: readonly number[], errorDb: ArrayLike<number>): Fitted {
+  const half = Math.pow(2, bandwidthOctaves(f.band.q) / 2);
+  const cut = f.band.gainDb < 0;
+  // The turning point nearest the band's centre (a peak for a cut, a dip for a boost), else the extreme.
+  const higher = (a: number, b: number) => (cut ? errorDb[a] > errorDb[b] : errorDb[a] < errorDb[b]);
+  const apart = (i: number) => Math.abs(Math.log(grid[i] / f.band.frequencyHz));
+  let best = -1;
+  let turning = -1;
+  for (let i = 0; i < grid.length; i++) {
+    if (grid[i] < f.band.frequencyHz / half || grid[i] > f.band.frequencyHz * half) continue;
+    if (best < 0 || higher(i, best)) best = i;
+    const isTurning = i > 0 && i < grid.length - 1 && !higher(i - 1, i) && !higher(i + 1, i);
+    if (isTurning && (turning < 0 || apart(i) < apart(turning))) turning = i;
+  }
+  if (turning >= 0) best = turning;
+  if (best < 0) return f;
+  return {
+    ...f,
+    feature: { feature: cut ? 'peak' : 'dip', featureHz: grid[best], aboveTargetDb: errorDb[best] },
+  };
 }
 
 function explain(f: Fitted): BandExplanation {
