@@ -9,6 +9,7 @@
  * BENCH_ROUNDS (default 5) and BENCH_ROUND_S (seconds per target per round, default 4) set the length.
  */
 import { fork, type ChildProcess } from 'node:child_process';
+import { runCaptureBench } from './capture.bench';
 import { existsSync, mkdirSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
@@ -249,6 +250,10 @@ async function report(results: ScenarioResult[], ratio: number, ratios: number[]
   if (analysis === null) console.log('  (bench/analysis.bench.ts not present)');
   else for (const entry of analysis) console.log(`  ${JSON.stringify(entry)}`);
 
+  console.log('\nCapture (sweep analysis, test signals):');
+  const capture = await runCaptureBench();
+  for (const entry of capture) console.log(`  ${JSON.stringify(entry)}`);
+
   const document = {
     measuredAt: new Date().toISOString(),
     node: process.version,
@@ -266,6 +271,7 @@ async function report(results: ScenarioResult[], ratio: number, ratios: number[]
     cpuRatioExpressToChain: cpuRatio,
     checks,
     analysis,
+    capture,
   };
   const dir = path.join(__dirname, 'results');
   mkdirSync(dir, { recursive: true });
