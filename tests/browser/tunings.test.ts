@@ -71,7 +71,7 @@ it('edits a channel: limits refused as typed, a new version saved, its changes s
     await band.getByText('The room allows boosts up to +3 dB.').waitFor();
     expect(await editor(page).getByTestId('save-channel').isDisabled()).toBe(true);
     await editor(page).getByTestId('field-trimDb').fill('-13');
-    await editor(page).getByText('The processor trims down to −12 dB at most.').waitFor();
+    await editor(page).getByText('The room allows trims down to −12 dB.').waitFor();
     await screenshot(page, 'tuning-limits-refused');
 
     await band.getByTestId('band-gainDb').fill('-4.5');

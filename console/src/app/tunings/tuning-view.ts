@@ -59,7 +59,7 @@ export function channelRows(
     highPass: crossoverLabel(channel.highPass),
     eqBands: channel.eq.length,
     bassManaged: channel.bassManaged,
-    overLimits: channelLimitProblems(channel, limits),
+    overLimits: channelLimitProblems(channel, tuning.sampleRateHz, limits),
   }));
 }
 

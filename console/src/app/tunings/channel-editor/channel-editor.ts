@@ -146,7 +146,9 @@ export class ChannelEditor {
     };
   });
 
-  protected readonly limitProblems = computed(() => channelLimitProblems(this.draft(), this.limits()));
+  protected readonly limitProblems = computed(() =>
+    channelLimitProblems(this.draft(), this.sampleRateHz(), this.limits()),
+  );
   protected readonly limitText = computed(() => limitsSummary(this.limits()));
 
   /** The response of the draft, or the field that cannot be designed at this rate. */
