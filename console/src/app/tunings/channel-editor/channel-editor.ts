@@ -35,6 +35,7 @@ import { CalculationInputError } from '../../../../../shared/errors';
 import { formatQuantity } from '../../format/format';
 import type { FieldProblem } from '../../problem/problem-message';
 import { ChartView } from '../../ui/chart/chart';
+import type { ProcessorProfile } from '../../rooms/room.model';
 import type {
   CrossoverFamily,
   FilterSpec,
@@ -91,6 +92,7 @@ export class ChannelEditor {
   readonly subwoofer = input<Tuning['subwoofer']>(null);
   readonly sampleRateHz = input.required<number>();
   readonly limits = input<ProcessorLimits | null | undefined>(null);
+  readonly profile = input<ProcessorProfile | null>(null);
   readonly readOnly = input(false);
   readonly saving = input(false);
   /** Field problems the API answered for this channel, pointers relative to it (`/eq/1/gainDb`). */
@@ -147,9 +149,9 @@ export class ChannelEditor {
   });
 
   protected readonly limitProblems = computed(() =>
-    channelLimitProblems(this.draft(), this.sampleRateHz(), this.limits()),
+    channelLimitProblems(this.draft(), this.sampleRateHz(), this.limits(), this.profile()),
   );
-  protected readonly limitText = computed(() => limitsSummary(this.limits()));
+  protected readonly limitText = computed(() => limitsSummary(this.limits(), this.profile()?.name));
 
   /** The response of the draft, or the field that cannot be designed at this rate. */
   private readonly designed = computed(() => {
