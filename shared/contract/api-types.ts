@@ -2047,6 +2047,11 @@ export type components = {
             sections: components["schemas"]["BiquadSection"][];
         };
         SessionBody: {
+            /**
+             * @description What the signed-in user may do, from the server's own permission table; the console shows
+             *     its pages and controls by these and the server enforces them on every request.
+             */
+            permissions: ("calculate" | "tuning" | "keys:own" | "keys:all" | "usage:own" | "usage:all" | "users")[];
             user: components["schemas"]["SessionUser"];
         };
         SessionUser: {

@@ -11,7 +11,6 @@ import { MatSelectModule } from '@angular/material/select';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { EMPTY, filter, map, switchMap } from 'rxjs';
 import { Router } from '@angular/router';
-import { can } from '../../auth/roles';
 import { SessionService } from '../../auth/session.service';
 import { formatQuantity } from '../../format/format';
 import { errorMessage, toProblem } from '../../problem/http-problem';
@@ -73,7 +72,7 @@ export class RoomMeasurements {
 
   readonly room = input.required<Room>();
 
-  protected readonly canUpload = computed(() => can(this.session.role(), 'rooms:view'));
+  protected readonly canUpload = computed(() => this.session.can('rooms:view'));
 
   private readonly listResource = rxResource({
     params: () => this.room().id,

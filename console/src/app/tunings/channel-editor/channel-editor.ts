@@ -446,7 +446,10 @@ export class ChannelEditor {
       control.updateValueAndValidity({ emitEvent: false, onlySelf: true });
       const own = control.errors ?? {};
       const extra = Object.fromEntries(
-        all.filter((entry) => entry.control === control).map((entry) => [entry.key, entry.message]),
+        all
+          .filter((entry) => entry.control === control)
+          .reverse() // the first problem found for a field is the one it shows
+          .map((entry) => [entry.key, entry.message]),
       );
       control.setErrors({ ...own, ...extra }, { emitEvent: false });
       control.markAsDirty({ onlySelf: true });
