@@ -3,6 +3,7 @@ import { planBassManagement } from '../../shared/bass-management/bass-management
 import { alignDelays } from '../../shared/delay/align-delays';
 import { fitParametricEq, type PeakingBand } from '../../shared/eq-fit/fit-parametric-eq';
 import { planCrossover } from '../../shared/filters/crossover';
+import { eqBoostCaution } from '../../shared/filters/eq-extremes';
 import { designFilterSet } from '../../shared/filters/filter-set';
 import { analyseGeometry } from '../../shared/geometry';
 import { computeLevelTrims } from '../../shared/level/level-trims';
@@ -60,23 +61,14 @@ export function calculationsRouter(): Router {
     validate('fitEq', ({ body }, _req, res) => {
       const sampleRateHz = body.sampleRateHz ?? DEFAULT_SAMPLE_RATE_HZ;
       const result = fitParametricEq({ ...body, sampleRateHz });
-      res.json({ sampleRateHz, ...result, cautions: boostCautions(result.bands) });
+      res.json({ sampleRateHz, ...result, cautions: boostCautions(result.bands, sampleRateHz) });
     }),
   );
   return router;
 }
 
-function boostCautions(bands: PeakingBand[]): Array<{ code: string; message: string }> {
-  const boosts = bands.filter((b) => b.gainDb > 0);
-  if (boosts.length === 0) return [];
-  const largest = Math.max(...boosts.map((b) => b.gainDb));
-  const lowest = Math.min(...boosts.map((b) => b.frequencyHz));
-  return [
-    {
-      code: 'eqBoost',
-      message:
-        `This EQ boosts by up to ${largest} dB, down to ${lowest} Hz. Boosts, especially at low frequencies, ` +
-        'can overdrive amplifiers and drivers; check headroom and raise the level slowly.',
-    },
-  ];
+/** The fitted bands' boost caution: the largest boost of the bands together, as designed. */
+function boostCautions(bands: PeakingBand[], sampleRateHz: number): Array<{ code: string; message: string }> {
+  const caution = eqBoostCaution(bands, sampleRateHz);
+  return caution ? [caution] : [];
 }
