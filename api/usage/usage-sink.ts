@@ -2,12 +2,12 @@ import { QueryTypes, type Transaction } from 'sequelize';
 import type { Database } from '../db/database';
 import type { UsageBatch, UsageCount } from './usage-counter';
 
-/** Where flushed usage goes. SQLite here; another database or a queue would implement the same. */
+/** Where flushed usage goes: the database (SQLite or PostgreSQL, the same statement on both). */
 export interface UsageSink {
   write(batch: UsageBatch): Promise<void>;
 }
 
-// 8 bound values per row; 100 rows stay far below SQLite's limit on bound variables.
+// 8 bound values per row; 100 rows stay far below SQLite's and PostgreSQL's limits on bound variables.
 const ROWS_PER_STATEMENT = 100;
 
 /**
@@ -15,7 +15,7 @@ const ROWS_PER_STATEMENT = 100;
  * through the write queue. Counts are added to the stored ones (`count = count + excluded.count`), so
  * flushes from any number of processes or restarts sum up instead of overwriting each other.
  */
-export class SqliteUsageSink implements UsageSink {
+export class DatabaseUsageSink implements UsageSink {
   constructor(private readonly db: Database) {}
 
   write(batch: UsageBatch): Promise<void> {
@@ -53,7 +53,7 @@ export class SqliteUsageSink implements UsageSink {
       `INSERT INTO usage_buckets ("keyId", "userId", route, "statusClass", "bucketStart", count, "createdAt", "updatedAt")
        VALUES ${rows.map(() => '(?, ?, ?, ?, ?, ?, ?, ?)').join(', ')}
        ON CONFLICT ("keyId", "userId", route, "statusClass", "bucketStart")
-       DO UPDATE SET count = count + excluded.count, "updatedAt" = excluded."updatedAt"`,
+       DO UPDATE SET count = usage_buckets.count + excluded.count, "updatedAt" = excluded."updatedAt"`,
       { replacements: values, type: QueryTypes.INSERT, transaction },
     );
   }
