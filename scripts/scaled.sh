@@ -118,11 +118,15 @@ backend instances
   balance roundrobin
   option httpchk GET /readyz
   http-check expect status 200
+  # Readiness writes a row: under a burst of writes it may take a moment, which is not being down.
+  timeout check 5s
+  retries 3
+  option redispatch
   # The instances see the client's address in X-Forwarded-For (TRUST_PROXY_HOPS=1).
   option forwardfor
 EOF
     for i in $(seq 1 "$count"); do
-      echo "  server instance$i 127.0.0.1:$((INSTANCE_BASE_PORT + i - 1)) check inter 2s fall 2 rise 1"
+      echo "  server instance$i 127.0.0.1:$((INSTANCE_BASE_PORT + i - 1)) check inter 2s fall 3 rise 1"
     done
   } >"$DIR/haproxy.cfg"
   if [ -f "$DIR/haproxy.pid" ] && kill -0 "$(cat "$DIR/haproxy.pid")" 2>/dev/null; then

@@ -36,9 +36,11 @@ export interface Database {
   sequelize: Sequelize;
   models: Models;
   /**
-   * Runs `work` in a write transaction, after every write of this process queued before it. Use it for
-   * every write. SQLite: an IMMEDIATE transaction (the write lock taken at BEGIN). PostgreSQL: READ
-   * COMMITTED, with row locks (`lock: transaction.LOCK.UPDATE`) where a write depends on what it read.
+   * Runs `work` in a write transaction. Use it for every write. SQLite: an IMMEDIATE transaction (the
+   * write lock taken at BEGIN), after every write of this process queued before it (SQLite has one
+   * writer). PostgreSQL: READ COMMITTED transactions side by side on the connection pool, with row locks
+   * (`lock: transaction.LOCK.UPDATE`) where a write depends on what it read; other instances write
+   * the same database at the same time, so an in-process queue would add waiting and no safety.
    * A transaction that lost a lock race (SQLite busy; PostgreSQL deadlock or serialization failure) is
    * retried a few times, then refused with 503.
    */
@@ -144,7 +146,17 @@ export async function openDatabase(databaseUrl: string, options: DatabaseOptions
     }
   }
   const models = defineModels(sequelize);
+  // SQLite: one writer, so one queue. PostgreSQL: a queue that never waits, for draining on close.
   const queue = new WriteQueue();
+  const inFlight = new Set<Promise<unknown>>();
+  const enqueue = <T>(work: () => Promise<T>): Promise<T> => {
+    if (dialect === 'sqlite') return queue.run(work);
+    const running = work();
+    inFlight.add(running);
+    const forget = () => inFlight.delete(running);
+    running.then(forget, forget);
+    return running;
+  };
   const attempts = options.writeAttempts ?? DEFAULT_WRITE_ATTEMPTS;
   let busyRetries = 0;
   let state: StorageState = { ok: true, failure: null, message: null, checkedAt: null };
@@ -189,7 +201,7 @@ export async function openDatabase(databaseUrl: string, options: DatabaseOptions
   let probing: Promise<void> | null = null;
   let lastProbeAt = 0;
   const probeOnce = () =>
-    queue.run(() =>
+    enqueue(() =>
       transact(async (transaction) => {
         await sequelize.query(PROBE_INSERT[dialect], { transaction });
         await sequelize.query('DELETE FROM storage_probe', { transaction });
@@ -199,7 +211,7 @@ export async function openDatabase(databaseUrl: string, options: DatabaseOptions
     dialect,
     sequelize,
     models,
-    write: (work) => queue.run(() => transact(work)),
+    write: (work) => enqueue(() => transact(work)),
     connectionPragmas: pragmas,
     storage: () => state,
     async probeWrite() {
@@ -223,6 +235,7 @@ export async function openDatabase(databaseUrl: string, options: DatabaseOptions
     },
     close: async () => {
       await queue.drain();
+      await Promise.allSettled([...inFlight]);
       await sequelize.close();
     },
   };

@@ -124,6 +124,14 @@ export function storageFailureProblem(failure: StorageFailure): ProblemError {
 export function storageProblem(err: unknown): ProblemError | null {
   const failure = storageFailureOf(err);
   if (failure) return storageFailureProblem(failure);
+  // PostgreSQL runs writes side by side: a racing request may store the same unique value first.
+  if ((err as { name?: string } | null)?.name === 'SequelizeUniqueConstraintError') {
+    return new ProblemError({
+      status: 409,
+      title: 'Conflict',
+      detail: 'Another request stored the same thing at the same moment; nothing was stored. Read it again.',
+    });
+  }
   if ((err as { name?: string } | null)?.name === 'SequelizeForeignKeyConstraintError') {
     return new ProblemError({
       status: 409,

@@ -10,6 +10,15 @@ export interface UsageSink {
 // 8 bound values per row; 100 rows stay far below SQLite's and PostgreSQL's limits on bound variables.
 const ROWS_PER_STATEMENT = 100;
 
+const cellKey = (c: UsageCount): string =>
+  [c.keyId, c.userId, c.route, c.statusClass, String(c.bucketStart).padStart(16, '0')].join('\u0000');
+
+function compareCells(a: UsageCount, b: UsageCount): number {
+  const x = cellKey(a);
+  const y = cellKey(b);
+  return x < y ? -1 : x > y ? 1 : 0;
+}
+
 /**
  * Adds a batch to `usage_buckets` and moves `api_keys.lastUsedAt` forward, all in one transaction
  * through the write queue. Counts are added to the stored ones (`count = count + excluded.count`), so
@@ -20,12 +29,16 @@ export class DatabaseUsageSink implements UsageSink {
 
   write(batch: UsageBatch): Promise<void> {
     if (batch.counts.length === 0 && batch.lastUsedAt.size === 0) return Promise.resolve();
+    // The same order in every instance's flush: two flushes that touch the same rows lock them in one
+    // order on PostgreSQL and so never deadlock.
+    const counts = [...batch.counts].sort((a, b) => compareCells(a, b));
+    const lastUsedAt = [...batch.lastUsedAt].sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0));
     return this.db.write(async (transaction) => {
       const now = new Date();
-      for (let i = 0; i < batch.counts.length; i += ROWS_PER_STATEMENT) {
-        await this.upsert(batch.counts.slice(i, i + ROWS_PER_STATEMENT), now, transaction);
+      for (let i = 0; i < counts.length; i += ROWS_PER_STATEMENT) {
+        await this.upsert(counts.slice(i, i + ROWS_PER_STATEMENT), now, transaction);
       }
-      for (const [keyId, atMs] of batch.lastUsedAt) {
+      for (const [keyId, atMs] of lastUsedAt) {
         const at = new Date(atMs);
         await this.db.sequelize.query(
           'UPDATE api_keys SET "lastUsedAt" = ? WHERE id = ? AND ("lastUsedAt" IS NULL OR "lastUsedAt" < ?)',
