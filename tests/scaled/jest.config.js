@@ -1,6 +1,6 @@
 /**
  * The scaled set-up's own tests: real instances behind HAProxy on PostgreSQL and Redis. Run by
- * `npm run test:scaled` (scripts/test-scaled.sh), which starts the engines; one file at a time, since
+ * `npm run test:scaled` (scripts/with-engines.sh), which starts the engines; one file at a time, since
  * each starts several services.
  * @type {import('jest').Config}
  */

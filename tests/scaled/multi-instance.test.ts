@@ -1,8 +1,11 @@
 import http from 'node:http';
+import { Client } from 'pg';
+import { createClient } from 'redis';
 import { QueryTypes } from 'sequelize';
 import { STAGE3_ROOM } from '../../seeds/demo-stage3-room';
 import { CONSOLE_HEADERS, sessionCookie } from '../support/console-session';
 import { burst, type BurstOutcome } from '../support/http-burst';
+import { testPostgresUrl, testRedisUrl } from '../support/engines';
 import { STARTS_THE_SERVICE_MS } from '../support/service-process';
 import { RIG_PASSWORD, startScaledRig, type ScaledRig } from './support/scaled-rig';
 
@@ -231,6 +234,78 @@ describe('three instances behind the proxy', () => {
     },
     STARTS_THE_SERVICE_MS,
   );
+
+  it('readiness names Redis when it stops answering, and the service recovers', async () => {
+    const client = createClient({ url: testRedisUrl! });
+    await client.connect();
+    try {
+      // Redis holds every client's commands for 3 s: longer than the service waits for an answer.
+      await client.sendCommand(['CLIENT', 'PAUSE', '3000', 'ALL']);
+      const ready = await call(rig.instances[0].port, 'GET', '/readyz');
+      const body = JSON.parse(ready.body);
+      expect([ready.status, body.type, body.dependencies]).toEqual([
+        503,
+        'https://isochron.dev/problems/shared-state-unavailable',
+        [
+          { name: 'database', engine: 'postgresql', status: 'up' },
+          { name: 'redis', engine: 'redis', status: 'down' },
+        ],
+      ]);
+      expect(Number(ready.headers['retry-after'])).toBeGreaterThan(0);
+    } finally {
+      await client.sendCommand(['CLIENT', 'UNPAUSE']);
+      await client.close();
+    }
+    expect((await call(rig.instances[0].port, 'GET', '/readyz')).status).toBe(200);
+    expect((await call(rig.instances[0].port, 'GET', '/v1/layouts/5.1', bearer(adminKey))).status).toBe(200);
+  });
+
+  it('a PostgreSQL database turned read-only answers writes 503 storage-read-only on every instance, and recovers', async () => {
+    const name = new URL(rig.databaseUrl).pathname.slice(1);
+    const admin = new Client({ connectionString: testPostgresUrl! });
+    await admin.connect();
+    // New connections start read-only; the instances' open ones are ended, so they reconnect.
+    const reconnectAll = () =>
+      admin.query(
+        'SELECT pg_terminate_backend(pid) FROM pg_stat_activity WHERE datname = $1 AND pid <> pg_backend_pid()',
+        [name],
+      );
+    const roomBody = { ...STAGE3_ROOM, notes: 'read-only test' };
+    const createRoom = (port: number) => call(port, 'POST', '/v1/rooms', bearer(adminKey), roomBody);
+    const until = async (port: number, status: number) => {
+      for (let i = 0; i < 50; i += 1) {
+        const res = await createRoom(port);
+        if (res.status === status) return res;
+        await new Promise((resolve) => setTimeout(resolve, 100));
+      }
+      return createRoom(port);
+    };
+    try {
+      await admin.query(`ALTER DATABASE "${name}" SET default_transaction_read_only = on`);
+      await reconnectAll();
+      for (const instance of rig.instances) {
+        const refused = await until(instance.port, 503);
+        expect([refused.status, JSON.parse(refused.body).type]).toEqual([
+          503,
+          'https://isochron.dev/problems/storage-read-only',
+        ]);
+        expect((await call(instance.port, 'GET', '/v1/rooms', bearer(adminKey))).status).toBe(200);
+      }
+      const ready = await call(rig.instances[0].port, 'GET', '/readyz');
+      expect([ready.status, JSON.parse(ready.body).dependencies[0]]).toEqual([
+        503,
+        { name: 'database', engine: 'postgresql', status: 'down' },
+      ]);
+    } finally {
+      await admin.query(`ALTER DATABASE "${name}" RESET default_transaction_read_only`);
+      await reconnectAll();
+      await admin.end();
+    }
+    for (const instance of rig.instances) expect((await until(instance.port, 201)).status).toBe(201);
+    // Readiness probes at most every two seconds while writes work.
+    await new Promise((resolve) => setTimeout(resolve, 2100));
+    expect((await call(rig.instances[0].port, 'GET', '/readyz')).status).toBe(200);
+  });
 
   // Last: it stops an instance.
   it(

@@ -1,14 +1,13 @@
 #!/usr/bin/env bash
-# The test suite on the scaled engines: starts a throw-away PostgreSQL cluster and Redis on free ports
-# in a temporary folder, runs the whole jest suite against them (every test context gets a fresh
-# PostgreSQL database and a Redis prefix of its own), then the multi-instance tests (three instances
-# behind HAProxy), and removes everything again.
+# Runs a command with a throw-away PostgreSQL cluster and Redis: starts both on free ports in a temporary
+# folder, exports ISOCHRON_TEST_POSTGRES_URL and ISOCHRON_TEST_REDIS_URL for the command, and removes
+# everything when it ends. Uses the variables as they are when already set (engines of your own).
 #
-#   npm run test:scaled            # both
-#   npm run test:scaled -- --only-scaled   # only the multi-instance tests
+#   scripts/with-engines.sh npx jest       # what `npm run test:scaled` does, and then tests/scaled/
+#   scripts/with-engines.sh tsx bench/scaled.ts
 #
-# Needs PostgreSQL, Redis and HAProxy from Debian: apt-get install -y postgresql redis-server haproxy
-# (.ci/run installs them). Uses ISOCHRON_TEST_POSTGRES_URL / ISOCHRON_TEST_REDIS_URL instead when set.
+# Needs PostgreSQL and Redis from Debian: apt-get install -y postgresql redis-server (.ci/run installs
+# them, and HAProxy for tests/scaled/).
 set -euo pipefail
 cd "$(dirname "$0")/.."
 
@@ -51,9 +50,8 @@ if [ -z "${ISOCHRON_TEST_REDIS_URL:-}" ]; then
   STARTED_REDIS=$port
   export ISOCHRON_TEST_REDIS_URL="redis://127.0.0.1:$port"
 fi
+# Where the engines' pid files are (bench/scaled.ts reads their CPU time).
+export ISOCHRON_ENGINES_DIR=$WORK
 echo "test engines: $ISOCHRON_TEST_POSTGRES_URL and $ISOCHRON_TEST_REDIS_URL" >&2
 
-if [ "${1:-}" != "--only-scaled" ]; then
-  npx jest "$@"
-fi
-npx jest -c tests/scaled/jest.config.js --runInBand
+"$@"
