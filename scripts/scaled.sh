@@ -71,7 +71,12 @@ secrets() {
 
 start_instances() {
   local count=$1
-  [ -f dist/server/api/main.js ] || npm run build:server >&2
+  # As `npm start`: the console and the server are built first (the server again when its sources changed).
+  if [ ! -f dist/console/browser/index.html ]; then
+    npm run build >&2
+  elif [ ! -f dist/server/api/main.js ] || [ -n "$(find api shared seeds openapi -newer dist/server/api/main.js -type f | head -1)" ]; then
+    npm run build:server >&2
+  fi
   secrets
   for i in $(seq 1 "$count"); do
     local port=$((INSTANCE_BASE_PORT + i - 1))

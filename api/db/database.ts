@@ -51,6 +51,12 @@ export interface Database {
   storage(): StorageState;
   /** Writes and removes a page-sized row, so readiness knows that writing really works; answers the state after it. */
   probeWrite(): Promise<StorageState>;
+  /**
+   * Runs `work` while no other instance runs work under this call on the same database (PostgreSQL: a
+   * session advisory lock on a connection of its own). For start-up steps such as loading the demo
+   * data into an empty database. SQLite: runs it at once.
+   */
+  exclusively<T>(work: () => Promise<T>): Promise<T>;
   /** Busy answers seen and retried since the database was opened. */
   readonly busyRetries: number;
   close(): Promise<void>;
@@ -139,7 +145,7 @@ export async function openDatabase(databaseUrl: string, options: DatabaseOptions
     await migrate(sequelize);
   } else {
     try {
-      await migrateOnce(sequelize, databaseUrl);
+      await withAdvisoryLock(databaseUrl, MIGRATION_LOCK_ID, () => migrate(sequelize));
     } catch (err) {
       await sequelize.close();
       throw err;
@@ -214,6 +220,8 @@ export async function openDatabase(databaseUrl: string, options: DatabaseOptions
     write: (work) => enqueue(() => transact(work)),
     connectionPragmas: pragmas,
     storage: () => state,
+    exclusively: (work) =>
+      dialect === 'postgres' ? withAdvisoryLock(databaseUrl, START_UP_LOCK_ID, work) : work(),
     async probeWrite() {
       // While writes work, probe at most every PROBE_INTERVAL_MS; after a failure, on every call, one at a time.
       if (!probing && (!state.ok || Date.now() - lastProbeAt >= PROBE_INTERVAL_MS)) {
@@ -243,22 +251,23 @@ export async function openDatabase(databaseUrl: string, options: DatabaseOptions
 
 /**
  * Several instances may start at once against one PostgreSQL database: a session-level advisory lock,
- * held on a connection of its own while the migrations run, lets exactly one of them migrate; the
+ * held on a connection of its own while `work` runs, lets exactly one of them migrate (or seed); the
  * others wait and then find nothing left to do.
  */
-async function migrateOnce(sequelize: Sequelize, databaseUrl: string): Promise<void> {
+async function withAdvisoryLock<T>(databaseUrl: string, lockId: number, work: () => Promise<T>): Promise<T> {
   const client = new Client({ connectionString: databaseUrl });
   await client.connect();
   try {
-    await client.query('SELECT pg_advisory_lock($1)', [MIGRATION_LOCK_ID]);
-    await migrate(sequelize);
+    await client.query('SELECT pg_advisory_lock($1)', [lockId]);
+    return await work();
   } finally {
     await client.end();
   }
 }
 
-/** Any fixed number; only Isochron's migrations take this advisory lock. */
+/** Any fixed numbers; only Isochron takes these advisory locks. */
 const MIGRATION_LOCK_ID = 0x1c0c4;
+const START_UP_LOCK_ID = 0x1c0c5;
 
 export async function migrate(sequelize: Sequelize): Promise<void> {
   const umzug = new Umzug({
