@@ -37,7 +37,10 @@ if [ -z "${ISOCHRON_TEST_POSTGRES_URL:-}" ]; then
   [ "$(id -u)" = 0 ] && chown postgres "$WORK"
   as_pg "'$PG_BIN/initdb' -D '$WORK/pg' -U isochron --auth=trust --encoding=UTF8 >'$WORK/initdb.log'"
   # fsync off: a throw-away test cluster, never for data anyone keeps.
-  as_pg "'$PG_BIN/pg_ctl' -D '$WORK/pg' -l '$WORK/postgres.log' -w -o \"-p $port -k '$WORK' -c listen_addresses=127.0.0.1 -c fsync=off -c synchronous_commit=off -c full_page_writes=off -c max_connections=400\" start" >/dev/null
+  if ! as_pg "'$PG_BIN/pg_ctl' -D '$WORK/pg' -l '$WORK/postgres.log' -w -o \"-p $port -k '$WORK' -c listen_addresses=127.0.0.1 -c fsync=off -c synchronous_commit=off -c full_page_writes=off -c max_connections=300\" start" >/dev/null; then
+    cat "$WORK/postgres.log" >&2
+    exit 1
+  fi
   STARTED_PG=1
   export ISOCHRON_TEST_POSTGRES_URL="postgres://isochron@127.0.0.1:$port/postgres"
 fi
