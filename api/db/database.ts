@@ -1,6 +1,5 @@
 import { mkdirSync } from 'node:fs';
 import path from 'node:path';
-import { Client } from 'pg';
 import { Sequelize, Transaction } from 'sequelize';
 import { SequelizeStorage, Umzug } from 'umzug';
 import { isPostgresUrl, sqliteStorage } from '../config';
@@ -255,6 +254,8 @@ export async function openDatabase(databaseUrl: string, options: DatabaseOptions
  * others wait and then find nothing left to do.
  */
 async function withAdvisoryLock<T>(databaseUrl: string, lockId: number, work: () => Promise<T>): Promise<T> {
+  // Loaded here: the embedded default never needs the PostgreSQL driver.
+  const { Client } = await import('pg');
   const client = new Client({ connectionString: databaseUrl });
   await client.connect();
   try {

@@ -1,8 +1,6 @@
-import { RedisStore as RedisSessionStore } from 'connect-redis';
 import type session from 'express-session';
 import { MemoryStore, type Store } from 'express-rate-limit';
-import { RedisStore as RedisRateLimitStore } from 'rate-limit-redis';
-import { createClient } from 'redis';
+import type { RedisStore as ConnectRedisStore } from 'connect-redis';
 import type { Logger } from '../logger';
 import { storedSessionKey } from '../session/session-store';
 import { GrowingDelayThrottle, type GrowingDelay } from '../session/sign-in-throttle';
@@ -63,31 +61,13 @@ export function memorySharedState(): SharedState {
   };
 }
 
-/**
- * connect-redis keyed by the SHA-256 of the session id (as the database store is), so a copy of Redis
- * cannot be replayed as cookies.
- */
-class HashedRedisSessionStore extends RedisSessionStore {
-  override get(sid: string, cb: Parameters<RedisSessionStore['get']>[1]) {
-    return super.get(storedSessionKey(sid), cb);
-  }
-  override set(sid: string, sess: session.SessionData, cb?: Parameters<RedisSessionStore['set']>[2]) {
-    return super.set(storedSessionKey(sid), sess, cb);
-  }
-  override touch(sid: string, sess: session.SessionData, cb?: Parameters<RedisSessionStore['touch']>[2]) {
-    return super.touch(storedSessionKey(sid), sess, cb);
-  }
-  override destroy(sid: string, cb?: Parameters<RedisSessionStore['destroy']>[1]) {
-    return super.destroy(storedSessionKey(sid), cb);
-  }
-}
-
 /** How long a command may wait for a Redis that does not answer before the request gets a 503. */
 const REDIS_TIMEOUT_MS = 2000;
 
-function newRedisClient(url: string) {
+// The Redis packages are loaded only when REDIS_URL is set: the embedded default never pays for them.
+function newRedisClient(redis: typeof import('redis'), url: string) {
   // No offline queue: while Redis is away, commands fail at once (503) instead of piling up.
-  return createClient({
+  return redis.createClient({
     url,
     disableOfflineQueue: true,
     socket: {
@@ -98,7 +78,30 @@ function newRedisClient(url: string) {
 }
 
 export async function redisSharedState(url: string, prefix: string, logger: Logger): Promise<SharedState> {
-  const client = newRedisClient(url);
+  const [redis, { RedisStore: RedisSessionStore }, { RedisStore: RedisRateLimitStore }] = await Promise.all([
+    import('redis'),
+    import('connect-redis'),
+    import('rate-limit-redis'),
+  ]);
+  /**
+   * connect-redis keyed by the SHA-256 of the session id (as the database store is), so a copy of Redis
+   * cannot be replayed as cookies.
+   */
+  class HashedRedisSessionStore extends RedisSessionStore {
+    override get(sid: string, cb: Parameters<ConnectRedisStore['get']>[1]) {
+      return super.get(storedSessionKey(sid), cb);
+    }
+    override set(sid: string, sess: session.SessionData, cb?: Parameters<ConnectRedisStore['set']>[2]) {
+      return super.set(storedSessionKey(sid), sess, cb);
+    }
+    override touch(sid: string, sess: session.SessionData, cb?: Parameters<ConnectRedisStore['touch']>[2]) {
+      return super.touch(storedSessionKey(sid), sess, cb);
+    }
+    override destroy(sid: string, cb?: Parameters<ConnectRedisStore['destroy']>[1]) {
+      return super.destroy(storedSessionKey(sid), cb);
+    }
+  }
+  const client = newRedisClient(redis, url);
   let lastError = '';
   client.on('error', (err: Error) => {
     // One log line per distinct failure, not one per reconnect attempt.
@@ -118,7 +121,6 @@ export async function redisSharedState(url: string, prefix: string, logger: Logg
   await subscriber.subscribe(channel, () => {
     for (const listener of listeners) listener();
   });
-  const stores: RedisSessionStore[] = [];
   return {
     kind: 'redis',
     redis: client,
@@ -131,9 +133,7 @@ export async function redisSharedState(url: string, prefix: string, logger: Logg
     throttleCounter: (name, limits, now) =>
       new RedisThrottleCounter(client, `${prefix}throttle:${name}:`, limits, now),
     sessionStore: () => {
-      const store = new HashedRedisSessionStore({ client, prefix: `${prefix}sess:` });
-      stores.push(store);
-      return store;
+      return new HashedRedisSessionStore({ client, prefix: `${prefix}sess:` });
     },
     publishKeyChange: async () => {
       // This instance drops its own cache at once too (the message also comes back to it).
