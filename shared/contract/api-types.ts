@@ -108,11 +108,13 @@ export type paths = {
             cookie?: never;
         };
         /**
-         * Readiness: the database answers and takes writes.
-         * @description Reads from the database and writes a scratch row into it and removes it again (at most once every
-         *     two seconds; calls in between get the last outcome). A full disk, a read-only database file or a
-         *     database that cannot be opened answers 503 with the same problem type the failed requests get:
-         *     `storage-full`, `storage-read-only` or `storage-unavailable`, with `Retry-After`.
+         * Readiness: every dependency (database, and Redis when configured) answers.
+         * @description Checks each dependency and names it in `dependencies`. The database (SQLite or PostgreSQL) must
+         *     answer a read and take a write: a scratch row is written and removed again (at most once every
+         *     two seconds; calls in between get the last outcome). Redis, when `REDIS_URL` is set, must answer a
+         *     PING. Any dependency down answers 503 with the problem the failed requests get
+         *     (`storage-full`, `storage-read-only`, `storage-unavailable` or `shared-state-unavailable`), with
+         *     `Retry-After` and the same `dependencies` list.
          */
         get: operations["getReadiness"];
         put?: never;
@@ -1450,6 +1452,15 @@ export type components = {
             sampleRateHz: number;
             speedOfSoundMps: number;
             warnings: components["schemas"]["Warning"][];
+        };
+        /** @description One dependency of the service as readiness found it. */
+        DependencyState: {
+            /** @enum {string} */
+            engine: "sqlite" | "postgresql" | "redis";
+            /** @enum {string} */
+            name: "database" | "redis";
+            /** @enum {string} */
+            status: "up" | "down";
         };
         /** @description Metres as a number, or a string with a length unit (`"3.2 m"`, `"10.5 ft"`, `"126 in"`, `"320 cm"`). */
         Distance: number | string;
@@ -3007,13 +3018,14 @@ export interface operations {
                 };
                 content: {
                     "application/json": {
+                        dependencies: components["schemas"]["DependencyState"][];
                         /** @constant */
                         status: "ready";
                     };
                 };
             };
             404: components["responses"]["NotFound"];
-            /** @description The database does not answer or cannot be written. */
+            /** @description A dependency does not answer, or the database cannot be written. */
             503: {
                 headers: {
                     /** @description Seconds before asking again. */
@@ -3021,7 +3033,9 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content: {
-                    "application/problem+json": components["schemas"]["Problem"];
+                    "application/problem+json": components["schemas"]["Problem"] & {
+                        dependencies?: components["schemas"]["DependencyState"][];
+                    };
                 };
             };
         };

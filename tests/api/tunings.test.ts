@@ -222,6 +222,36 @@ describe('versions, duplicate and compare', () => {
   });
 });
 
+describe('concurrent edits', () => {
+  // On SQLite the write queue runs them one by one; on PostgreSQL they run side by side and the row
+  // lock orders them. Either way: versions n+1 … n+40, each once.
+  it('40 edits of one tuning at once get 40 distinct consecutive versions', async () => {
+    const created = await dev().post(`/v1/rooms/${roomId}/tunings`, {
+      name: 'Edited at once',
+      sampleRateHz: 48000,
+      channels: [{ id: 'M+030', delayMs: 1, trimDb: -1 }],
+    });
+    expect(created.status).toBe(201);
+    const id = created.body.id as string;
+    const edits = await Promise.all(
+      Array.from({ length: 40 }, (_, i) => dev().patch(`/v1/tunings/${id}`, { notes: `edit ${i}` })),
+    );
+    expect(edits.map((e) => e.status)).toEqual(Array.from({ length: 40 }, () => 200));
+    const versions = edits.map((e) => e.body.version as number).sort((a, b) => a - b);
+    expect(versions).toEqual(Array.from({ length: 40 }, (_, i) => i + 2));
+    // Each edit's note is in exactly the version that edit answered with.
+    const stored = await ctx.db.models.TuningVersion.findAll({
+      where: { tuningId: id },
+      order: [['version', 'ASC']],
+    });
+    expect(stored.map((v) => v.version)).toEqual(Array.from({ length: 41 }, (_, i) => i + 1));
+    for (const edit of edits) {
+      expect(stored.find((v) => v.version === edit.body.version)?.notes).toBe(edit.body.notes);
+    }
+    expect((await dev().get(`/v1/tunings/${id}`)).body.latestVersion).toBe(41);
+  });
+});
+
 describe('export', () => {
   let eqTuningId: string;
   const filters = [
