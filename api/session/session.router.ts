@@ -42,7 +42,9 @@ const notSignedIn = (): ProblemError =>
 /** Console sign-in under `/auth` (outside `/v1`): sign in, who am I, sign out, take up an invitation. */
 export function sessionRouter(services: Services): Router {
   const { db, sessions } = services;
-  const throttles = createSignInThrottles();
+  const throttles = createSignInThrottles(undefined, undefined, (name, limits, now) =>
+    services.shared.throttleCounter(name, limits, now),
+  );
   const router = Router();
   router.use(consoleRequestGuard(services.config.publicUrl));
   router.use(sessions.middleware);
