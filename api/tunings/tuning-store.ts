@@ -97,7 +97,10 @@ export function tuningDto(
     updatedAt: tuning.updatedAt.toISOString(),
     versionCreatedAt: version.createdAt.toISOString(),
     stale,
-    cautions: tuningCautions(settings, room ? findLayout(room.layoutId) : undefined),
+    cautions: tuningCautions(settings, {
+      layout: room ? findLayout(room.layoutId) : undefined,
+      limits: room?.limits,
+    }),
   };
 }
 

@@ -34,8 +34,10 @@ describe('sign in, who am I, sign out', () => {
       .set(CONSOLE_HEADERS)
       .send({ email: TEST_EMAILS.developer, password: TEST_PASSWORD });
     expect(res.status).toBe(200);
+    // The answer carries the server's own permissions for the role, so the console keeps no table of its own.
     expect(res.body).toEqual({
       user: { id: ctx.users.developer, email: TEST_EMAILS.developer, name: null, role: 'developer' },
+      permissions: ['calculate', 'tuning', 'keys:own', 'usage:own'],
     });
     const setCookie = (res.headers['set-cookie'] as unknown as string[]).find((c) =>
       c.startsWith('isochron.sid='),
