@@ -6,6 +6,7 @@ import { createLogger, type Logger } from './logger';
 import { createMailer, type Mailer } from './mail';
 import { createConsoleSessions, type ConsoleSessions } from './session';
 import { createUsageMeter, type UsageMeter } from './usage/usage-meter';
+import { HeavyWork } from './work/heavy-work';
 
 /** What the routers need, built once per process (or per test). */
 export interface Services {
@@ -21,6 +22,8 @@ export interface Services {
   sessions: ConsoleSessions;
   /** Counts `/v1` calls in memory and writes them in batches; flushed on close. */
   usage: UsageMeter;
+  /** Worker threads for heavy calculations (`work.run(task, input)`); stopped on close. */
+  work: HeavyWork;
   /** Work to run on shutdown, in order, before the database closes (flushing metered usage...). */
   onClose: Array<() => Promise<void>>;
 }
@@ -39,6 +42,7 @@ export async function createServices(config: Config): Promise<Services> {
   logger.info(`mail goes to ${mail.description}`);
   const sessions = createConsoleSessions({ config, db });
   const usage = createUsageMeter(db, config, logger);
+  const work = new HeavyWork({ threads: config.workThreads, queueLimit: config.workQueueLimit });
   return {
     config,
     db,
@@ -48,7 +52,8 @@ export async function createServices(config: Config): Promise<Services> {
     mail,
     sessions,
     usage,
-    onClose: [async () => sessions.close(), () => mail.close(), () => usage.close()],
+    work,
+    onClose: [async () => sessions.close(), () => mail.close(), () => usage.close(), () => work.close()],
   };
 }
 

@@ -18,8 +18,8 @@ import { usersRouter } from './users/users.router';
 export function v1Router(services: Services): Router {
   const router = Router();
   router.use(layoutsRouter());
-  router.use(calculationsRouter());
-  router.use(analysisRouter());
+  router.use(calculationsRouter(services));
+  router.use(analysisRouter(services));
   router.use(usersRouter(services));
   router.use(outboxRouter(services));
   router.use(keysRouter(services));

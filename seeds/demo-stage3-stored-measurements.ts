@@ -108,7 +108,8 @@ export async function seedDemoStage3Measurements(services: Services): Promise<vo
     channel: 'M+090',
     micPosition: 'MLP',
     name: 'Demo data — synthetic impulse response M+090',
-    content: contentFromFile(
+    content: await contentFromFile(
+      services.work,
       { buffer: ir, originalname: 'demo-side-surround-ir.wav', mimetype: 'audio/wav', size: ir.length },
       { channel: 'M+090', micPosition: 'MLP', temperatureC: 21, smoothingOctaves: 1 / 6 },
       room,

@@ -1,21 +1,23 @@
 import { Router } from 'express';
 import { planBassManagement } from '../../shared/bass-management/bass-management';
 import { alignDelays } from '../../shared/delay/align-delays';
-import { fitParametricEq, type PeakingBand } from '../../shared/eq-fit/fit-parametric-eq';
+import type { PeakingBand } from '../../shared/eq-fit/fit-parametric-eq';
 import { planCrossover } from '../../shared/filters/crossover';
 import { designFilterSet } from '../../shared/filters/filter-set';
 import { analyseGeometry } from '../../shared/geometry';
 import { computeLevelTrims } from '../../shared/level/level-trims';
 import { DEFAULT_SAMPLE_RATE_HZ } from '../../shared/limits';
-import { planRoom } from '../../shared/plan/plan-room';
 import { requirePermission } from '../auth/permissions';
 import { validate } from '../http/validate';
+import type { Services } from '../services';
+import { whenClientGone } from '../work/heavy-work';
 
 /**
  * The stateless calculations: each takes the validated body, calls one pure function of `shared/`
- * and answers its result. Any key role may call them.
+ * and answers its result. Any key role may call them. Plans and EQ fits run on a worker thread
+ * (`services.work`); the rest take microseconds and stay on the event loop.
  */
-export function calculationsRouter(): Router {
+export function calculationsRouter({ work }: Services): Router {
   const router = Router();
   const calculate = requirePermission('calculate');
 
@@ -47,7 +49,9 @@ export function calculationsRouter(): Router {
   router.post(
     '/plans',
     calculate,
-    validate('createPlan', ({ body }, _req, res) => res.json(planRoom(body))),
+    validate('createPlan', async ({ body }, _req, res) => {
+      res.json(await work.run('planRoom', body, whenClientGone(res)));
+    }),
   );
   router.post(
     '/geometry',
@@ -57,9 +61,9 @@ export function calculationsRouter(): Router {
   router.post(
     '/eq/fit',
     calculate,
-    validate('fitEq', ({ body }, _req, res) => {
+    validate('fitEq', async ({ body }, _req, res) => {
       const sampleRateHz = body.sampleRateHz ?? DEFAULT_SAMPLE_RATE_HZ;
-      const result = fitParametricEq({ ...body, sampleRateHz });
+      const result = await work.run('fitEq', { ...body, sampleRateHz }, whenClientGone(res));
       res.json({ sampleRateHz, ...result, cautions: boostCautions(result.bands) });
     }),
   );

@@ -4,6 +4,7 @@ import type { Database } from '../db/database';
 import { pageOf, type Page, type PageRequest } from '../db/pagination';
 import { badRequest, calculateAt } from '../http/problem';
 import { findRoomFor, findTuningFor, type Caller } from '../rooms/room-access';
+import type { HeavyWork } from '../work/heavy-work';
 import { designAtRate } from './design-at-rate';
 import { checkPatchedChannel, planForRoom, settingsFromInput, toTuningChannel } from './tuning-input';
 import { addVersion, createTuning, findVersion, settingsOf, tuningDto, versionDto } from './tuning-store';
@@ -16,7 +17,10 @@ const BIQUAD_CONVENTION = 'a0 = 1; H(z) = (b0 + b1 z^-1 + b2 z^-2) / (1 + a1 z^-
 
 /** Tunings of stored rooms: versioned on every edit, duplicable, comparable, exportable. */
 export class TuningsService {
-  constructor(private readonly db: Database) {}
+  constructor(
+    private readonly db: Database,
+    private readonly work: HeavyWork,
+  ) {}
 
   async list(caller: Caller, roomId: string, page: PageRequest): Promise<Page<TuningView>> {
     const room = await findRoomFor(caller, this.db.models, roomId);
@@ -37,7 +41,7 @@ export class TuningsService {
       ]);
     }
     const plan = body.plan;
-    const fromPlan = plan ? calculateAt('/body/plan', () => planForRoom(room, plan)) : null;
+    const fromPlan = plan ? await calculateAt('/body/plan', () => planForRoom(this.work, room, plan)) : null;
     const settings = fromPlan
       ? fromPlan.settings
       : settingsFromInput({ ...body, channels: body.channels ?? [] }, room);
