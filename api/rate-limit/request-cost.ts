@@ -8,31 +8,63 @@ export type RequestCost = (req: Request) => number;
 
 /** The contract's extension naming an operation's cost: `x-rate-limit-cost: 20`. */
 const COST_EXTENSION = 'x-rate-limit-cost';
+/**
+ * Where an operation is heavy in one form only, that form: `multipart/form-data` (a file upload; the
+ * JSON form is cheap) or the name of a body member (`plan`: a tuning made from a plan, not from settings).
+ */
+const WHEN_EXTENSION = 'x-rate-limit-cost-when';
 
 export interface OperationCost {
   operationId: string;
   method: string;
   path: string;
   cost: number;
+  when?: string;
 }
+
+type CostedOperation = OpenApiOperation & { [COST_EXTENSION]?: unknown; [WHEN_EXTENSION]?: unknown };
 
 /** Every operation of the contract with a cost other than 1. */
 export function operationCosts(document: OpenApiDocument): OperationCost[] {
   const costs: OperationCost[] = [];
   for (const [path, item] of Object.entries(document.paths)) {
     for (const method of HTTP_METHODS) {
-      const operation = item?.[method] as (OpenApiOperation & { [COST_EXTENSION]?: unknown }) | undefined;
+      const operation = item?.[method] as CostedOperation | undefined;
       const cost = operation?.[COST_EXTENSION];
       if (cost === undefined) continue;
+      const where = `${method.toUpperCase()} ${path}`;
       if (typeof cost !== 'number' || !Number.isInteger(cost) || cost < 1) {
-        throw new Error(
-          `${method.toUpperCase()} ${path}: ${COST_EXTENSION} must be a whole number of at least 1`,
-        );
+        throw new Error(`${where}: ${COST_EXTENSION} must be a whole number of at least 1`);
       }
-      costs.push({ operationId: operation?.operationId ?? '', method: method.toUpperCase(), path, cost });
+      const when = operation?.[WHEN_EXTENSION];
+      if (when !== undefined && typeof when !== 'string') {
+        throw new Error(`${where}: ${WHEN_EXTENSION} must be a string`);
+      }
+      costs.push({
+        operationId: operation?.operationId ?? '',
+        method: method.toUpperCase(),
+        path,
+        cost,
+        ...(when !== undefined && { when }),
+      });
     }
   }
   return costs;
+}
+
+/** Whether a request is in the costly form of its operation. */
+function inCostlyForm(when: string | undefined): (req: Request) => boolean {
+  if (when === undefined) return () => true;
+  if (when === 'multipart/form-data') return (req) => req.is('multipart/form-data') === when;
+  return (req) => {
+    const body: unknown = req.body;
+    return typeof body === 'object' && body !== null && (body as Record<string, unknown>)[when] !== undefined;
+  };
+}
+
+interface Rule {
+  cost: number;
+  applies: (req: Request) => boolean;
 }
 
 /**
@@ -42,28 +74,30 @@ export function operationCosts(document: OpenApiDocument): OperationCost[] {
  * regular expressions. Express routes ignore case and a trailing slash, and so does this.
  */
 export function compileRequestCost(document: OpenApiDocument, mountPath = '/v1'): RequestCost {
-  const exact = new Map<string, number>();
-  const patterns: Array<{ method: string; pattern: RegExp; cost: number }> = [];
-  for (const { method, path, cost } of operationCosts(document)) {
+  const exact = new Map<string, Rule>();
+  const patterns: Array<Rule & { method: string; pattern: RegExp }> = [];
+  for (const { method, path, cost, when } of operationCosts(document)) {
     if (!path.startsWith(`${mountPath}/`)) throw new Error(`${path}: a cost applies under ${mountPath} only`);
     const relative = path.slice(mountPath.length).toLowerCase();
+    const rule: Rule = { cost, applies: inCostlyForm(when) };
     if (relative.includes('{')) {
       const source = relative.replace(/[.*+?^$()|[\]\\]/g, '\\$&').replace(/\{[^}]+\}/g, '[^/]+');
-      patterns.push({ method, pattern: new RegExp(`^${source}/?$`, 'i'), cost });
+      patterns.push({ ...rule, method, pattern: new RegExp(`^${source}/?$`, 'i') });
     } else {
-      exact.set(`${method} ${relative}`, cost);
+      exact.set(`${method} ${relative}`, rule);
     }
   }
   const methods = new Set(
     [...exact.keys()].map((k) => k.split(' ')[0]).concat(patterns.map((p) => p.method)),
   );
+  const costOf = (rule: Rule, req: Request) => (rule.applies(req) ? rule.cost : 1);
   return (req) => {
     if (!methods.has(req.method)) return 1;
     let path = req.path.toLowerCase();
     if (path.length > 1 && path.endsWith('/')) path = path.slice(0, -1);
-    const cost = exact.get(`${req.method} ${path}`);
-    if (cost !== undefined) return cost;
-    for (const p of patterns) if (p.method === req.method && p.pattern.test(path)) return p.cost;
+    const rule = exact.get(`${req.method} ${path}`);
+    if (rule) return costOf(rule, req);
+    for (const p of patterns) if (p.method === req.method && p.pattern.test(path)) return costOf(p, req);
     return 1;
   };
 }

@@ -34,13 +34,13 @@ const post = (key: string, path: string, body: object) =>
 
 describe('rate limits weighted by cost', () => {
   it('documents a cost on exactly the heavy operations', () => {
-    const costs = operationCosts(loadOpenApiDocument()).map((c) => [c.operationId, c.cost]);
+    const costs = operationCosts(loadOpenApiDocument()).map((c) => [c.operationId, [c.cost, c.when]]);
     expect(Object.fromEntries(costs)).toEqual({
-      analyzeImpulseResponse: 10,
-      createMeasurement: 10,
-      createPlan: 20,
-      createRoomTuning: 20,
-      fitEq: 10,
+      analyzeImpulseResponse: [10, undefined],
+      createMeasurement: [10, 'multipart/form-data'],
+      createPlan: [20, undefined],
+      createRoomTuning: [20, 'plan'],
+      fitEq: [10, undefined],
     });
   });
 
@@ -70,6 +70,34 @@ describe('rate limits weighted by cost', () => {
     const refused = await post(key, '/v1/levels', levels);
     expect(refused.status).toBe(429);
     expect(refused.headers['retry-after']).toBeDefined();
+  });
+
+  it('charges a tuning made from settings 1 unit and one made from a plan 20', async () => {
+    // The admin's own tuning key: its user spends nothing else in this file.
+    const key = await ctx.addKey('tuning', ctx.users.admin, 'cost check');
+    const room = await post(key, '/v1/rooms', {
+      name: 'Cost check',
+      layout: '2.0',
+      dimensions: { widthM: 4, lengthM: 5, heightM: 2.8 },
+      listener: { x: 2, y: 2.5, z: 1.2 },
+      loudspeakers: [
+        { id: 'M+030', x: 1, y: 0.5, z: 1.2 },
+        { id: 'M-030', x: 3, y: 0.5, z: 1.2 },
+      ],
+    });
+    expect(room.status).toBe(201);
+    const left = async (body: object) => {
+      const res = await post(key, `/v1/rooms/${room.body.id}/tunings`, body);
+      expect(res.status).toBe(201);
+      return remaining(res.headers.ratelimit, 'key');
+    };
+    const afterRoom = remaining(room.headers.ratelimit, 'key');
+    const afterSettings = await left({
+      name: 'Settings',
+      channels: [{ id: 'M+030', delayMs: 0, trimDb: 0 }],
+    });
+    const afterPlan = await left({ name: 'Planned', plan: {} });
+    expect([afterRoom - afterSettings, afterSettings - afterPlan]).toEqual([1, 20]);
   });
 
   it('refuses a heavy call that does not fit in what is left, though a cheap one would', async () => {

@@ -148,7 +148,8 @@ describe('eqFitRequest', () => {
     };
     const thinned = eqFitRequest(long, null, 48000, false).measured;
     expect(thinned.frequenciesHz.length).toBeLessThanOrEqual(MAX_FIT_POINTS);
-    expect(thinned.frequenciesHz.length).toBeGreaterThan(MAX_FIT_POINTS * 0.9);
+    // Below about 120 Hz the 1-Hz points are sparser than the log grid, so fewer than the cap are kept.
+    expect(thinned.frequenciesHz.length).toBeGreaterThan(MAX_FIT_POINTS * 0.75);
     // Log spacing keeps the 1-Hz points at the low end, where room modes sit: at 1024 points over
     // 12 octaves a step is 0.8 % of the frequency, under 1 Hz below about 120 Hz.
     for (let f = 10; f <= 100; f += 1) expect(thinned.frequenciesHz).toContain(f);
