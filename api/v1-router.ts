@@ -4,8 +4,10 @@ import { calculationsRouter } from './calculations/calculations.router';
 import { keysRouter } from './keys/keys.router';
 import { layoutsRouter } from './layouts/layouts.router';
 import { outboxRouter } from './mail/outbox.router';
+import { profilesRouter } from './profiles/profiles.router';
 import { measurementsRouter } from './measurements/measurements.router';
 import { roomsRouter } from './rooms/rooms.router';
+import { targetCurvesRouter } from './target-curves/target-curves.router';
 import type { Services } from './services';
 import { tuningsRouter } from './tunings/tunings.router';
 import { usageRouter } from './usage/usage.router';
@@ -24,8 +26,10 @@ export function v1Router(services: Services): Router {
   router.use(outboxRouter(services));
   router.use(keysRouter(services));
   router.use(usageRouter(services));
+  router.use(profilesRouter(services));
   router.use(roomsRouter(services));
   router.use(measurementsRouter(services));
   router.use(tuningsRouter(services));
+  router.use(targetCurvesRouter(services));
   return router;
 }

@@ -1,23 +1,28 @@
 import { Router } from 'express';
 import { planBassManagement } from '../../shared/bass-management/bass-management';
 import { alignDelays } from '../../shared/delay/align-delays';
-import type { PeakingBand } from '../../shared/eq-fit/fit-parametric-eq';
+import type { EqFitResult } from '../../shared/eq-fit/fit-parametric-eq';
 import { planCrossover } from '../../shared/filters/crossover';
 import { designFilterSet } from '../../shared/filters/filter-set';
 import { analyseGeometry } from '../../shared/geometry';
 import { computeLevelTrims } from '../../shared/level/level-trims';
 import { DEFAULT_SAMPLE_RATE_HZ } from '../../shared/limits';
+import { callerOf } from '../auth/actor';
 import { requirePermission } from '../auth/permissions';
 import { validate } from '../http/validate';
 import type { Services } from '../services';
+import { TargetCurvesService } from '../target-curves/target-curves.service';
 import { whenClientGone } from '../work/heavy-work';
 
 /**
  * The stateless calculations: each takes the validated body, calls one pure function of `shared/`
- * and answers its result. Any key role may call them. Plans and EQ fits run on a worker thread
- * (`services.work`); the rest take microseconds and stay on the event loop.
+ * and answers its result. Any key role may call them; naming a stored target curve needs the tuning role.
+ * Plans and EQ fits run on a worker thread (`services.work`); the rest take microseconds and stay on the
+ * event loop.
  */
-export function calculationsRouter({ work }: Services): Router {
+export function calculationsRouter(services: Services): Router {
+  const { work } = services;
+  const targetCurves = new TargetCurvesService(services.db);
   const router = Router();
   const calculate = requirePermission('calculate');
 
@@ -49,8 +54,10 @@ export function calculationsRouter({ work }: Services): Router {
   router.post(
     '/plans',
     calculate,
-    validate('createPlan', async ({ body }, _req, res) => {
-      res.json(await work.run('planRoom', body, whenClientGone(res)));
+    validate('createPlan', async ({ body }, req, res) => {
+      const curve = await targetCurves.resolve(callerOf(req), body.targets?.curve, '/targets/curve');
+      const input = { ...body, targets: body.targets && { ...body.targets, curve } };
+      res.json(await work.run('planRoom', input, whenClientGone(res)));
     }),
   );
   router.post(
@@ -61,26 +68,27 @@ export function calculationsRouter({ work }: Services): Router {
   router.post(
     '/eq/fit',
     calculate,
-    validate('fitEq', async ({ body }, _req, res) => {
+    validate('fitEq', async ({ body }, req, res) => {
       const sampleRateHz = body.sampleRateHz ?? DEFAULT_SAMPLE_RATE_HZ;
-      const result = await work.run('fitEq', { ...body, sampleRateHz }, whenClientGone(res));
-      res.json({ sampleRateHz, ...result, cautions: boostCautions(result.bands) });
+      const target = await targetCurves.resolve(callerOf(req), body.target, '/target');
+      const result = await work.run('fitEq', { ...body, target, sampleRateHz }, whenClientGone(res));
+      res.json({ sampleRateHz, ...result, cautions: boostCautions(result) });
     }),
   );
   return router;
 }
 
-function boostCautions(bands: PeakingBand[]): Array<{ code: string; message: string }> {
-  const boosts = bands.filter((b) => b.gainDb > 0);
+/** The boost caution states what all bands together reach, where the largest boost is. */
+function boostCautions(result: EqFitResult): Array<{ code: string; message: string }> {
+  const boosts = result.bands.filter((b) => b.gainDb > 0);
   if (boosts.length === 0) return [];
-  const largest = Math.max(...boosts.map((b) => b.gainDb));
   const lowest = Math.min(...boosts.map((b) => b.frequencyHz));
   return [
     {
       code: 'eqBoost',
       message:
-        `This EQ boosts by up to ${largest} dB, down to ${lowest} Hz. Boosts, especially at low frequencies, ` +
-        'can overdrive amplifiers and drivers; check headroom and raise the level slowly.',
+        `This EQ boosts by up to ${result.combined.maxBoostDb.toFixed(1)} dB (all bands together), down to ${lowest} Hz. ` +
+        'Boosts, especially at low frequencies, can overdrive amplifiers and drivers; check headroom and raise the level slowly.',
     },
   ];
 }

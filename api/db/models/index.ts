@@ -3,8 +3,11 @@ import { initApiKey } from './api-key';
 import { initAuditEvent } from './audit-event';
 import { initInvitation } from './invitation';
 import { initMeasurement } from './measurement';
+import { initProcessorProfile } from './processor-profile';
 import { initRoom } from './room';
+import { initRoomState } from './room-state';
 import { initSession } from './session';
+import { initTargetCurve } from './target-curve';
 import { initTuning } from './tuning';
 import { initTuningVersion } from './tuning-version';
 import { initUsageBucket } from './usage-bucket';
@@ -23,6 +26,9 @@ export function defineModels(sequelize: Sequelize) {
     Tuning: initTuning(sequelize),
     TuningVersion: initTuningVersion(sequelize),
     Measurement: initMeasurement(sequelize),
+    ProcessorProfile: initProcessorProfile(sequelize),
+    RoomState: initRoomState(sequelize),
+    TargetCurve: initTargetCurve(sequelize),
   };
   return models;
 }
