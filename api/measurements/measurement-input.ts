@@ -47,7 +47,7 @@ const isWav = (bytes: Buffer, fileName: string, mimeType: string): boolean =>
  * the modes, on a worker thread); anything else must be a text frequency response.
  */
 export async function contentFromFile(
-  work: HeavyWork,
+  work: Pick<HeavyWork, 'run'>,
   file: { buffer: Buffer; originalname: string; mimetype: string; size: number },
   form: UploadForm,
   room: Room,

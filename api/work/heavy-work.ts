@@ -3,7 +3,7 @@ import type { Response } from 'express';
 import { Piscina } from 'piscina';
 import { ProblemError } from '../http/problem';
 import type { TaskInput, TaskName, TaskOutput } from './tasks';
-import { reviveRefusal, type TaskReply, type TaskRequest } from './worker';
+import { reviveRefusal, runTask, type TaskReply, type TaskRequest } from './worker';
 
 export interface HeavyWorkOptions {
   /** Worker threads running heavy tasks side by side. */
@@ -122,3 +122,15 @@ export function whenClientGone(res: Response): AbortSignal {
   });
   return controller.signal;
 }
+
+/**
+ * The same tasks on the calling thread, for start-up work no request waits behind (loading the demo
+ * data before the service listens): starting a worker thread for it would only add its start-up time.
+ */
+export const onThisThread: Pick<HeavyWork, 'run'> = {
+  async run<T extends TaskName>(task: T, input: TaskInput<T>): Promise<TaskOutput<T>> {
+    const reply = runTask({ task, input });
+    if (!reply.ok) throw reviveRefusal(reply.refused);
+    return reply.value as TaskOutput<T>;
+  },
+};
