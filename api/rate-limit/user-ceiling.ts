@@ -1,5 +1,5 @@
 import type { Request, RequestHandler } from 'express';
-import { MemoryStore, rateLimit } from 'express-rate-limit';
+import { MemoryStore, rateLimit, type Store } from 'express-rate-limit';
 import { ProblemError, sendProblem } from '../http/problem';
 import type { Services } from '../services';
 import { contractRequestCost, withCost } from './request-cost';
@@ -12,11 +12,11 @@ const WINDOW_MS = 60_000;
  * draft-8 `RateLimit` and `RateLimit-Policy` headers, beside the key's own policy. It counts the same
  * units as the key's limit (heavy operations cost more than one).
  */
-export function createUserRateLimiter(services: Services): RequestHandler {
-  const store = new MemoryStore();
+export function createUserRateLimiter(services: Services, options: { store?: Store } = {}): RequestHandler {
+  const store = options.store ?? new MemoryStore();
   const limit = services.config.userRateLimitPerMinute;
   services.onClose.push(async () => {
-    await store.shutdown();
+    await store.shutdown?.();
   });
   const subject = (req: Request) => `user:${req.principal?.userId ?? ''}`;
   const limiter = rateLimit({
