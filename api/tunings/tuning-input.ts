@@ -13,6 +13,7 @@ import {
 } from '../../shared/plan';
 import type { CrossoverSpec } from '../../shared/plan';
 import type { Room } from '../db/models/room';
+import type { ProcessorProfileSettings } from '../../shared/processor/profile';
 
 /** A channel as a request gives it; everything but the id and the two numbers may be left out. */
 export interface ChannelInput {
@@ -60,6 +61,7 @@ export function settingsFromInput(
 export function planForRoom(
   room: Room,
   plan: Partial<PlanInput>,
+  profile: ProcessorProfileSettings | null = null,
 ): { plan: RoomPlan; settings: TuningSettings } {
   const stored = new Map(room.loudspeakers.map((s) => [s.id, { x: s.x, y: s.y, z: s.z }]));
   const requested: PlanChannelInput[] = plan.channels ?? room.loudspeakers.map((s) => ({ id: s.id }));
@@ -76,6 +78,8 @@ export function planForRoom(
     limits: plan.limits ?? room.limits ?? undefined,
     sampleRateHz: plan.sampleRateHz ?? room.sampleRateHz,
     channels,
+    // The EQ fit keeps to the room's processor as the limit check after it will.
+    processorEq: profile?.eq,
   };
   const result = planRoom(input);
   return { plan: result, settings: planToTuningSettings(result) };

@@ -10,7 +10,7 @@ import { checkPatchedChannel, planForRoom, settingsFromInput, toTuningChannel } 
 import type { Room } from '../db/models/room';
 import type { Tuning } from '../db/models/tuning';
 import type { TuningVersion } from '../db/models/tuning-version';
-import { stalenessOf } from '../rooms/room-state-store';
+import { profileOfRoom, stalenessOf } from '../rooms/room-state-store';
 import {
   addVersion,
   createTuning,
@@ -82,7 +82,10 @@ export class TuningsService {
         ),
       },
     };
-    const fromPlan = plan ? calculateAt('/body/plan', () => planForRoom(room, plan)) : null;
+    const profile = plan ? await profileOfRoom(this.db.models, room) : null;
+    const fromPlan = plan
+      ? calculateAt('/body/plan', () => planForRoom(room, plan, profile?.settings ?? null))
+      : null;
     const settings = fromPlan
       ? fromPlan.settings
       : settingsFromInput({ ...body, channels: body.channels ?? [] }, room);
