@@ -293,6 +293,8 @@ describe('fitParametricEq as an engineer would accept it', () => {
       ...input,
       bandSteps: { frequencyHz: 1 / 12, frequencyStepUnit: 'octave' },
     });
+    // A step coarser than the range leaves no setting for a band: none is fitted, nothing breaks.
+    expect(fitParametricEq({ ...input, bandSteps: { frequencyHz: 1000 } }).bands).toEqual([]);
     // On the 1/12-octave series through 1 kHz: log2(f/1000)·12 is a whole number.
     for (const b of octave.bands)
       expectWithin(

@@ -664,7 +664,7 @@ function disciplined(
   const result: Fitted[] = [];
   for (const candidate of kept) {
     const { band } = candidate;
-    if (Math.abs(band.gainDb) < minGainDb) {
+    if (band.gainDb === 0 || Math.abs(band.gainDb) < minGainDb) {
       changed = true;
       notUsed.push({
         code: 'belowMinimumGain',
@@ -758,7 +758,9 @@ function finalDiscipline(
     );
     current = current.map((f, i) => ({ ...f, band: limited.bands[i] }));
     if (roomModel) current = withoutBoostIntoNoBoost(roomModel, current, gainStepDb);
-    current = current.filter((f) => Math.abs(f.band.gainDb) >= minGainDb || dropNote(f, minGainDb, notUsed));
+    current = current.filter(
+      (f) => (f.band.gainDb !== 0 && Math.abs(f.band.gainDb) >= minGainDb) || dropNote(f, minGainDb, notUsed),
+    );
     if (roomModel) current = notWorseThanNone(roomModel, current, notUsed, 'room');
     if (roomModel) current = withoutIdleBands(roomModel, current, notUsed);
     const stable =
@@ -1412,14 +1414,18 @@ function fitBand(
 function roundBand(band: Band, bounds: BandBounds): Band {
   const { steps } = bounds;
   const clamp = (v: number, lo: number, hi: number) => Math.min(hi, Math.max(lo, v));
+  // No step inside the range: the band cannot be set on this processor, so it gets no gain (and is dropped).
+  let settable = true;
   const onGrid = (v: number, step: number, lo: number, hi: number) => {
     if (!(step > 0)) return clamp(v, lo, hi);
     const fix = (x: number) => Math.round(x * 1e9) / 1e9;
-    return clamp(
-      fix(Math.round(v / step) * step),
-      fix(Math.ceil(lo / step - 1e-9) * step),
-      fix(Math.floor(hi / step + 1e-9) * step),
-    );
+    const first = fix(Math.ceil(lo / step - 1e-9) * step);
+    const last = fix(Math.floor(hi / step + 1e-9) * step);
+    if (first > last) {
+      settable = false;
+      return clamp(v, lo, hi);
+    }
+    return clamp(fix(Math.round(v / step) * step), first, last);
   };
   let frequencyHz: number;
   if (steps.frequencyUnit === 'octave' && steps.frequencyHz > 0) {
@@ -1434,11 +1440,9 @@ function roundBand(band: Band, bounds: BandBounds): Band {
   } else {
     frequencyHz = onGrid(band.frequencyHz, steps.frequencyHz, bounds.fromHz, bounds.toHz);
   }
-  return {
-    frequencyHz,
-    gainDb: clamp(truncateToStep(band.gainDb, steps.gainDb), bounds.minGainDb, bounds.maxGainDb),
-    q: onGrid(band.q, steps.q, bounds.qMin, bounds.qMax),
-  };
+  const q = onGrid(band.q, steps.q, bounds.qMin, bounds.qMax);
+  const gainDb = clamp(truncateToStep(band.gainDb, steps.gainDb), bounds.minGainDb, bounds.maxGainDb);
+  return { frequencyHz, gainDb: settable ? gainDb : 0, q };
 }
 
 function requireSteps(steps: EqFitInput['bandSteps']): BandSteps {
