@@ -7,6 +7,7 @@ import { notFound } from '../http/problem';
 import { designAtRate } from '../tunings/design-at-rate';
 import { findVersion, settingsOf } from '../tunings/tuning-store';
 import { findRoomFor, findTuningFor, type Caller } from './room-access';
+import { stalenessOf } from './room-state-store';
 import { renderRoomReport } from './room-report';
 
 /**
@@ -53,7 +54,8 @@ export async function roomReportHtml(
           : 'unknown',
       settings,
       designed: designAtRate(settings, settings.sampleRateHz),
-      cautions: tuningCautions(settings, layout),
+      cautions: tuningCautions(settings, { layout, limits: room.limits }),
+      stale: await stalenessOf(db.models, room, version.roomRevision),
     };
   }
   return renderRoomReport({

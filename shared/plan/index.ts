@@ -23,6 +23,5 @@ export {
   type DesignedChannel,
   type DesignedSection,
 } from './tuning-design';
-export { tuningToCsv } from './tuning-csv';
 export { compareTunings, type TuningComparison, type ChannelDifference } from './tuning-compare';
 export { tuningCautions } from './tuning-cautions';
