@@ -8,7 +8,7 @@ import { TuningsService } from './tunings.service';
 
 /** Tunings of stored rooms: versioned on every edit, duplicable, comparable, exportable. */
 export function tuningsRouter(services: Services): Router {
-  const tunings = new TuningsService(services.db);
+  const tunings = new TuningsService(services.db, services.work);
   const router = Router();
   const tuning = requirePermission('tuning');
 
