@@ -5,6 +5,7 @@ import { keysRouter } from './keys/keys.router';
 import { layoutsRouter } from './layouts/layouts.router';
 import { outboxRouter } from './mail/outbox.router';
 import { measurementsRouter } from './measurements/measurements.router';
+import { roomPlansRouter } from './room-plans/room-plans.router';
 import { roomsRouter } from './rooms/rooms.router';
 import type { Services } from './services';
 import { tuningsRouter } from './tunings/tunings.router';
@@ -26,6 +27,7 @@ export function v1Router(services: Services): Router {
   router.use(usageRouter(services));
   router.use(roomsRouter(services));
   router.use(measurementsRouter(services));
+  router.use(roomPlansRouter(services));
   router.use(tuningsRouter(services));
   return router;
 }

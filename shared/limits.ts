@@ -41,6 +41,8 @@ export const MAX_MEASURED_POINTS = 100000;
 export const MAX_RESPONSE_POINTS = 4096;
 /** Longest name of a room, tuning, key, measurement or user. */
 export const NAME_MAX_LENGTH = 120;
+/** Most measurement ids a room plan may include or exclude by name. */
+export const MAX_PLAN_MEASUREMENT_IDS = 1000;
 /** Longest channel label or microphone position. */
 export const LABEL_MAX_LENGTH = 32;
 
@@ -109,6 +111,9 @@ export const LIMITS = {
   'MeasurementUpload.name': { minLength: 1, maxLength: NAME_MAX_LENGTH },
   'MeasurementUpload.notes': { maxLength: 2000 },
   'MeasurementUpload.temperatureC': { ...TEMPERATURE_RANGE_C, default: 20 },
+  referenceFileChannel: { minimum: 0, maximum: 127 },
+  timingReferenceMs: { minimum: 0, maximum: 1000 },
+  MeasuredTuningVersion: { minimum: 1 },
   min: { minimum: 0.025, maximum: 100 },
   'name|string': { minLength: 1, maxLength: NAME_MAX_LENGTH },
   order: { minimum: 1, maximum: 8 },
@@ -127,6 +132,13 @@ export const LIMITS = {
   'ResponseGrid|object.fromHz': { exclusiveMinimum: 0 },
   'ResponseGrid|object.toHz': { exclusiveMinimum: 0 },
   rightVersion: { minimum: 1 },
+  'RoomPlanRequest.temperatureC': { ...TEMPERATURE_RANGE_C },
+  'RoomPlanRequest.bassManaged': { maxItems: MAX_CHANNELS },
+  'RoomPlanRequest.include': { maxItems: MAX_PLAN_MEASUREMENT_IDS },
+  'RoomPlanRequest.exclude': { maxItems: MAX_PLAN_MEASUREMENT_IDS },
+  'RoomPlanRequest.micPosition': { minLength: 1, maxLength: LABEL_MAX_LENGTH },
+  'RoomPlanRequest.name': { minLength: 1, maxLength: NAME_MAX_LENGTH },
+  'RoomPlanRequest.notes': { maxLength: 4000 },
   'RoomCreate.name': { minLength: 1, maxLength: NAME_MAX_LENGTH },
   'RoomCreate.notes': { maxLength: 4000 },
   roomHeightM: { minimum: 0.5, maximum: 200 },

@@ -6,6 +6,7 @@ import {
   type ParsedFrequencyResponse,
 } from '../../shared/analysis/frequency-response-text';
 import { MIN_SMOOTHING_OCTAVES } from '../../shared/analysis/smoothing';
+import { detectArrival, signalLevel } from '../../shared/analysis/level';
 import { decodeWav } from '../../shared/analysis/wav-decode';
 import { CalculationInputError } from '../../shared/errors';
 import type { MeasurementKind, MeasurementSource } from '../db/models/measurement';
@@ -26,6 +27,8 @@ export interface UploadForm {
   temperatureC?: number;
   name?: string;
   notes?: string;
+  referenceFileChannel?: number;
+  timingReferenceMs?: number;
 }
 
 /** The room must have a loudspeaker with this channel label. */
@@ -62,6 +65,7 @@ export function contentFromFile(
       speedOfSoundMps: speedOfSoundMps(form.temperatureC ?? 20),
     });
     const { sampleRateHz, channelCount, channelIndex, encoding, durationS } = wav;
+    const timingReference = timingReferenceOf(file.buffer, form);
     return {
       kind: 'impulseResponse',
       source: {
@@ -74,7 +78,11 @@ export function contentFromFile(
         encoding,
         durationS,
       },
-      result: { ...analysis, warnings: [...wav.warnings, ...analysis.warnings] },
+      result: {
+        ...analysis,
+        ...(timingReference && { timingReference }),
+        warnings: [...wav.warnings, ...analysis.warnings],
+      },
     };
   }
   if (file.buffer.includes(0)) {
@@ -89,6 +97,41 @@ export function contentFromFile(
     source: { type: 'text', fileName: file.originalname, sizeBytes: file.size },
     result: { ...response },
   };
+}
+
+/**
+ * The timing reference of an impulse-response capture: the arrival in the loopback channel of the same file
+ * (detected as the loudspeaker's arrival is), or the figure the capture tool gave. Plans use arrivals
+ * relative to it, so interface and converter latency cancel between captures.
+ */
+function timingReferenceOf(
+  buffer: Buffer,
+  form: UploadForm,
+): { source: 'loopback' | 'given'; arrivalMs: number; fileChannel?: number } | null {
+  if (form.referenceFileChannel !== undefined && form.timingReferenceMs !== undefined) {
+    throw new CalculationInputError(
+      'give the timing reference either as a file channel or as a time, not both',
+      '/timingReferenceMs',
+    );
+  }
+  if (form.timingReferenceMs !== undefined) return { source: 'given', arrivalMs: form.timingReferenceMs };
+  if (form.referenceFileChannel === undefined) return null;
+  if (form.referenceFileChannel === (form.fileChannel ?? 0)) {
+    throw new CalculationInputError(
+      'the timing reference must be another channel of the file than the loudspeaker',
+      '/referenceFileChannel',
+    );
+  }
+  const loop = decodeWav(buffer, {
+    channel: form.referenceFileChannel,
+    channelField: '/referenceFileChannel',
+  });
+  const level = signalLevel(loop.samples);
+  if (level.peakDbfs < -120) {
+    throw new CalculationInputError('the timing-reference channel is silent', '/referenceFileChannel');
+  }
+  const arrival = detectArrival(loop.samples, loop.sampleRateHz, level);
+  return { source: 'loopback', arrivalMs: arrival.arrivalMs, fileChannel: form.referenceFileChannel };
 }
 
 export type JsonMeasurement =

@@ -22,6 +22,9 @@ interface Labels {
   micPosition?: string;
   name?: string;
   notes?: string;
+  tuningId?: string;
+  tuningVersion?: number;
+  stage?: 'before' | 'after';
 }
 
 /** Measurements of a stored room: uploads analysed on arrival and stored whole, or not at all. */
@@ -38,6 +41,7 @@ export class MeasurementsService {
     requireRoomChannel(room, input.body.channel);
     const content = input.file ? contentFromFile(input.file, input.body, room) : contentFromJson(input.body);
     const labels: Labels = input.body;
+    const loaded = await this.loadedTuning(room.id, labels);
     const row = await this.db.write(async (transaction) => {
       await roomStillThere(this.db.models, room.id, transaction);
       return this.db.models.Measurement.create(
@@ -50,12 +54,36 @@ export class MeasurementsService {
           name: labels.name ?? null,
           notes: labels.notes ?? null,
           ...content,
+          ...loaded,
           createdByKeyId: caller.principal.keyId ?? null,
         },
         { transaction },
       );
     });
     return measurementDto(row, true);
+  }
+
+  /**
+   * Which tuning version was loaded when the measurement was taken: it must be a tuning of this room
+   * (422 naming the field otherwise; never another owner's tuning, since it must be in this room).
+   */
+  private async loadedTuning(roomId: string, labels: Labels) {
+    const stage = labels.stage ?? (labels.tuningId ? 'after' : 'before');
+    if (!labels.tuningId) {
+      if (labels.tuningVersion !== undefined) throw unusable('/body/tuningVersion', 'needs tuningId');
+      if (stage === 'after')
+        throw unusable('/body/tuningId', 'is required for an after measurement (which tuning was loaded?)');
+      return { tuningId: null, tuningVersion: null, stage };
+    }
+    const tuning = await this.db.models.Tuning.findByPk(labels.tuningId);
+    if (!tuning || tuning.roomId !== roomId) {
+      throw unusable('/body/tuningId', `is not a tuning of room ${roomId}`);
+    }
+    const version = labels.tuningVersion ?? tuning.currentVersion;
+    if (version > tuning.currentVersion) {
+      throw unusable('/body/tuningVersion', `tuning ${tuning.id} has versions 1..${tuning.currentVersion}`);
+    }
+    return { tuningId: tuning.id, tuningVersion: version, stage };
   }
 
   async list(
@@ -115,6 +143,16 @@ export class MeasurementsService {
     if (!measurement) throw notFound(`No measurement ${measurementId} in room ${room.id}.`);
     return measurement;
   }
+}
+
+function unusable(pointer: string, message: string): ProblemError {
+  return new ProblemError({
+    status: 422,
+    title: 'Value cannot be used',
+    detail: `${pointer.replace('/body/', '')} ${message}.`,
+    type: 'calculation-input',
+    errors: [{ pointer, message }],
+  });
 }
 
 /** The magnitude response a stored measurement carries: an analysis's smoothed response, or the response itself. */

@@ -10,6 +10,7 @@ import type { Tuning } from '../db/models/tuning';
 import type { TuningOrigin, TuningVersion } from '../db/models/tuning-version';
 import type { Models } from '../db/models';
 import { notFound } from '../http/problem';
+import type { TuningPromise } from '../../shared/verification';
 import { roomStillThere, type Caller } from '../rooms/room-access';
 
 export interface VersionContent {
@@ -18,6 +19,8 @@ export interface VersionContent {
   settings: TuningSettings;
   origin: TuningOrigin;
   restoredFromVersion?: number | null;
+  /** What the plan promised; absent: an edit keeps the promise of the version it edits. */
+  promise?: TuningPromise | null;
 }
 
 function settingsOf(version: TuningVersion): TuningSettings {
@@ -86,6 +89,7 @@ async function insertVersion(
       subwoofer: content.settings.subwoofer,
       origin: content.origin,
       restoredFromVersion: content.restoredFromVersion ?? null,
+      promise: content.promise ?? null,
       createdByUserId: caller.principal.userId,
       createdByKeyId: caller.principal.keyId ?? null,
     },
@@ -134,7 +138,8 @@ export async function addVersion(
     const tuning = await db.models.Tuning.findByPk(tuningId, { transaction });
     if (!tuning) throw notFound(`No tuning ${tuningId}.`);
     const current = await findVersion(db.models, tuning, tuning.currentVersion, transaction);
-    const content = build(current);
+    const built = build(current);
+    const content = { ...built, promise: built.promise !== undefined ? built.promise : current.promise };
     checkTuningSettings(content.settings);
     const version = await insertVersion(
       db.models,

@@ -1,5 +1,6 @@
 import type { components } from '../../shared/contract/api-types';
 import { compareTunings, tuningToCsv } from '../../shared/plan';
+import { promiseOfPlan } from '../../shared/verification';
 import type { Database } from '../db/database';
 import { pageOf, type Page, type PageRequest } from '../db/pagination';
 import { badRequest, calculateAt } from '../http/problem';
@@ -46,6 +47,7 @@ export class TuningsService {
       notes: body.notes ?? null,
       settings,
       origin: fromPlan ? 'plan' : 'settings',
+      promise: fromPlan ? promiseOfPlan(fromPlan.plan, plan?.targets?.curve ?? null) : null,
     });
     const dto = tuningDto(tuning, version, room);
     return fromPlan

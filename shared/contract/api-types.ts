@@ -740,6 +740,63 @@ export type paths = {
         patch?: never;
         trace?: never;
     };
+    "/v1/rooms/{roomId}/plans": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Plan a stored room from its geometry, limits and measurements
+         * @description The whole-room plan of `POST /v1/plans` (the same engine), with every input taken from what is
+         *     stored: layout, dimensions, listening position, loudspeaker positions, limits and sample rate from
+         *     the room; per channel the measured arrival, the SPL reading and the averaged response from its
+         *     measurements. The body only overrides: `targets`, `temperatureC`, `sampleRateHz`, which channels
+         *     are `bassManaged`, and which `measurements` to use.
+         *
+         *     **Where each number comes from** (`channels[].sources`, each with the `measurementIds` that fed it):
+         *     - `delay.source`: `measuredArrival` — the arrival in the newest impulse response of the channel at
+         *       the reference position, relative to the capture's timing reference (loopback) when it has one — or
+         *       `geometry` (distance from the stored positions, temperature-corrected speed of sound). Arrivals
+         *       are used only when every channel has one and all or none of them have a timing reference (captures
+         *       without a common reference are otherwise not comparable); a warning says why they were not.
+         *     - `level.source`: `splReading` — the newest SPL reading at the reference position — or `none`.
+         *     - `response.source`: `responseAverage` — the power average over every microphone position (newest
+         *       per position) of the channel's frequency responses or, if it has more of them, its
+         *       impulse-response analyses (never both: their levels are on different scales) — or `none`. EQ is
+         *       fitted only when the room's limits give `eqBandsPerChannel`.
+         *     - `subwoofer.integration.source`: `measuredResponses` when the subwoofer and at least one
+         *       bass-managed channel have frequency responses with phase at the reference position (measured
+         *       with the same timing reference); then the subwoofer delay (0 to the room's `delayMaxMs`, whole
+         *       samples) and polarity are chosen so that the sum with the crossover filters applied is loudest
+         *       and smoothest from one octave below to one octave above the crossover (score = mean level −
+         *       RMS deviation, averaged over the measured mains), with the summed response and up to three
+         *       runners-up. Otherwise `geometry`: the phase-at-the-crossover suggestion of `POST /v1/plans`, and
+         *       `reason` says what to measure.
+         *
+         *     The reference position is `measurements.micPosition`, or else the position with the most arrivals
+         *     and SPL readings. Measurements taken with a tuning loaded (`stage: after`) are verification data
+         *     and are left out unless listed in `measurements.include`. `measurements.used` and `.ignored` (with
+         *     the reason) account for every measurement of the room.
+         *
+         *     `store: true` saves the plan as a new tuning (version 1, origin `plan`) in the same call, with what
+         *     it promises (reference level, expected levels, corrected ranges) for `GET
+         *     /v1/tunings/{tuningId}/verification`; the stored tuning is in `tuning`.
+         *
+         *     **Cautions.** Level calibration plays loud test signals: start quietly and protect hearing. EQ
+         *     boosts can overdrive amplifiers and drivers. Mounting loudspeakers overhead and running their
+         *     cabling are for qualified installers under local codes.
+         */
+        post: operations["planStoredRoom"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
     "/v1/rooms/{roomId}/report": {
         parameters: {
             query?: never;
@@ -1200,6 +1257,30 @@ export type components = {
         };
         /** @description ITU-R BS.2051 label such as `M+030`, `M-110`, `U+045`, `LFE1`, or another identifier of the feed. */
         ChannelLabel: string;
+        ChannelSources: {
+            delay: {
+                measurementIds: components["schemas"]["SourceIds"];
+                micPosition: string | null;
+                /** @enum {unknown} */
+                source: "measuredArrival" | "geometry";
+                timingReference: boolean | null;
+            };
+            level: {
+                measurementIds: components["schemas"]["SourceIds"];
+                micPosition: string | null;
+                /** @enum {unknown} */
+                source: "splReading" | "none";
+                weighting: string | null;
+            };
+            response: {
+                /** @enum {unknown} */
+                kind: "frequencyResponse" | "impulseResponse" | null;
+                measurementIds: components["schemas"]["SourceIds"];
+                micPositions: string[];
+                /** @enum {unknown} */
+                source: "responseAverage" | "none";
+            };
+        };
         CreatedApiKey: components["schemas"]["ApiKey"] & {
             /** @description The clear key, `iso_live_` or `iso_test_` and 43 characters. Shown only in this answer. */
             secret: string;
@@ -1469,6 +1550,22 @@ export type components = {
              */
             temperatureC?: number;
         };
+        IntegrationCandidate: {
+            /** @description Deepest point below the mean (worst main). */
+            deepestDipDb: number;
+            delayMs: number;
+            delaySamples: number;
+            /** @description RMS deviation of the sum from its mean over the band. */
+            deviationDb: number;
+            /** @description Mean level of the sum over the band. */
+            meanDb: number;
+            /** @enum {unknown} */
+            polarity: "normal" | "inverted";
+            /** @description meanDb − deviationDb; the highest wins. */
+            scoreDb: number;
+            /** @description Mean of 20·log10(|sub + main| / (|sub| + |main|)): 0 dB when they add in phase. */
+            summationDb: number;
+        };
         /** @description A key's `id` (not its secret). */
         KeyId: string;
         /** @description A label for people; stored exactly as given. Control characters are refused. */
@@ -1578,6 +1675,8 @@ export type components = {
             frequenciesHz: number[];
             magnitudeDb: number[];
         };
+        /** @description The version of `tuningId` that was loaded (default its latest); needs `tuningId`. */
+        MeasuredTuningVersion: number;
         Measurement: {
             channel: string;
             /** Format: date-time */
@@ -1607,8 +1706,12 @@ export type components = {
                 /** @enum {unknown} */
                 type: "wav" | "text" | "json";
             };
+            /** @enum {unknown} */
+            stage: "before" | "after";
             /** @description A few numbers for lists: arrival, level and decay times; points and range; or the SPL. */
             summary: Record<string, never>;
+            tuningId: string | null;
+            tuningVersion: number | null;
         };
         /** @description A frequency response (arrays or text) or an SPL reading, for one channel at one microphone position. */
         MeasurementCreate: {
@@ -1623,8 +1726,11 @@ export type components = {
                 magnitudeDb: number[];
                 phaseDeg?: number[];
             };
+            stage?: components["schemas"]["MeasurementStage"];
             /** @description The response as text columns. */
             text?: string;
+            tuningId?: components["schemas"]["TuningId"];
+            tuningVersion?: components["schemas"]["MeasuredTuningVersion"];
         } | {
             channel: components["schemas"]["ChannelLabel"];
             /** @constant */
@@ -1634,11 +1740,14 @@ export type components = {
             notes?: string;
             /** @description Sound pressure level, dB re 20 µPa. */
             splDb: number;
+            stage?: components["schemas"]["MeasurementStage"];
             /**
              * @description Time weighting; default slow.
              * @enum {unknown}
              */
             timeWeighting?: "slow" | "fast";
+            tuningId?: components["schemas"]["TuningId"];
+            tuningVersion?: components["schemas"]["MeasuredTuningVersion"];
             /**
              * @description Frequency weighting; default C.
              * @enum {unknown}
@@ -1646,6 +1755,13 @@ export type components = {
             weighting?: "A" | "C" | "Z";
         };
         MeasurementId: string;
+        /**
+         * @description `before`: taken without a tuning (or before one was loaded) — plans use it. `after`: taken with the
+         *     tuning version `tuningId`/`tuningVersion` loaded in the processor — verification uses it and plans
+         *     leave it out. Default `after` when `tuningId` is given, else `before`; `after` needs `tuningId`.
+         * @enum {unknown}
+         */
+        MeasurementStage: "before" | "after";
         MeasurementUpload: {
             /** @description Loudspeaker id in the room, e.g. M+030. */
             channel: string;
@@ -1657,13 +1773,24 @@ export type components = {
             micPosition?: string;
             name?: string;
             notes?: string;
+            /**
+             * @description 0-based channel of the same WAV file that holds the timing reference (an electrical loopback of
+             *     the test signal). Its arrival is stored as `result.timingReference`, and plans then use the
+             *     loudspeaker's arrival relative to it, so converter and interface latency cancel.
+             */
+            referenceFileChannel?: number;
             /** @default 0.08333333333333333 */
             smoothingOctaves?: number;
+            stage?: components["schemas"]["MeasurementStage"];
             /**
              * @description Air temperature for the modes.
              * @default 20
              */
             temperatureC?: number;
+            /** @description The timing reference's arrival in this file, ms, when the capture tool measured it itself. */
+            timingReferenceMs?: number;
+            tuningId?: components["schemas"]["TuningId"];
+            tuningVersion?: components["schemas"]["MeasuredTuningVersion"];
         };
         OutboxMessage: {
             id: string;
@@ -1865,6 +1992,33 @@ export type components = {
             } | null;
             warnings: components["schemas"]["Warning"][];
         };
+        RoomPlanRequest: {
+            /** @description Channels handed to the subwoofer; default every channel but the LFE ones when the room has an LFE channel, none otherwise. */
+            bassManaged?: components["schemas"]["ChannelLabel"][];
+            measurements?: {
+                /**
+                 * @default auto
+                 * @enum {unknown}
+                 */
+                delaysFrom?: "auto" | "measuredArrival" | "geometry";
+                exclude?: components["schemas"]["MeasurementId"][];
+                /** @description Use only these measurements ("after" measurements too, when listed). */
+                include?: components["schemas"]["MeasurementId"][];
+                /** @description Position whose arrivals and SPL readings are used. */
+                micPosition?: string;
+            };
+            /** @description Name of the stored tuning (default "Plan from measurements"). */
+            name?: string;
+            notes?: string;
+            sampleRateHz?: components["schemas"]["SampleRateHz"];
+            /**
+             * @description Save the plan as a new tuning (version 1).
+             * @default false
+             */
+            store?: boolean;
+            targets?: components["schemas"]["PlanTargets"];
+            temperatureC?: number;
+        };
         /** @description Metres from the floor's front-left corner; x right, y toward the back wall, z up. */
         RoomPoint: {
             x: number;
@@ -1899,6 +2053,7 @@ export type components = {
             /** @enum {string} */
             role: "admin" | "developer" | "viewer";
         };
+        SourceIds: string[];
         SpeakerGeometry: {
             /** @description Positive to the left, in (−180, 180]. */
             azimuthDeg: number;
@@ -1929,6 +2084,56 @@ export type components = {
             frequencyHz: number;
             /** @description 1–8 for Butterworth; 2, 4 or 8 for Linkwitz-Riley. */
             order: number;
+        };
+        StoredRoomPlan: components["schemas"]["RoomPlan"] & {
+            channels: (components["schemas"]["PlanChannel"] & {
+                sources: components["schemas"]["ChannelSources"];
+            })[];
+            measurements: {
+                ignored: {
+                    id: string;
+                    reason: string;
+                }[];
+                referencePosition: string | null;
+                used: components["schemas"]["SourceIds"];
+            };
+            subwoofer: {
+                integration: components["schemas"]["SubwooferIntegration"];
+            } | null;
+            /** @description The stored tuning (only with `store: true`). */
+            tuning?: components["schemas"]["Tuning"];
+        };
+        SubwooferIntegration: {
+            band: {
+                fromHz: number;
+                toHz: number;
+            };
+            chosen: components["schemas"]["IntegrationCandidate"];
+            geometric: {
+                delayMs: number;
+                delaySamples: number;
+                /** @enum {unknown} */
+                polarity: "normal" | "inverted";
+            };
+            mains: string[];
+            measurementIds: components["schemas"]["SourceIds"];
+            micPosition: string;
+            runnersUp: components["schemas"]["IntegrationCandidate"][];
+            searchedUpToMs: number;
+            /** @constant */
+            source: "measuredResponses";
+            subGainDb: number;
+            summed: {
+                channel: string;
+                frequenciesHz: number[];
+                magnitudeDb: number[];
+            }[];
+        } | {
+            /** @description Always empty. */
+            measurementIds: string[];
+            reason: string;
+            /** @constant */
+            source: "geometry";
         };
         /**
          * @description The response a channel should reach, in dB relative to its own level. `flat`: 0 dB. `tilt`: a
@@ -3458,6 +3663,53 @@ export interface operations {
             429: components["responses"]["TooManyRequests"];
         };
     };
+    planStoredRoom: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /**
+                 * @description A room id from `POST /v1/rooms` or `GET /v1/rooms`.
+                 * @example room_0mf3x1c2a9f8a7b6c5d4e
+                 */
+                roomId: components["parameters"]["RoomIdPath"];
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["RoomPlanRequest"];
+            };
+        };
+        responses: {
+            /** @description The plan (nothing stored). */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["StoredRoomPlan"];
+                };
+            };
+            /** @description The plan, stored as a new tuning (`store: true`). */
+            201: {
+                headers: {
+                    /** @description URL of the new tuning. */
+                    Location?: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["StoredRoomPlan"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
+            422: components["responses"]["Unprocessable"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
     getRoomReport: {
         parameters: {
             query?: {
@@ -4153,6 +4405,7 @@ export type ValidatedDefaults = {
   listTuningVersions: { query: "limit"; body: never };
   listUsers: { query: "limit"; body: never };
   planBassManagement: { query: never; body: "lfeGainDb" | "subwooferCount" | "headroomWarningDb" };
+  planStoredRoom: { query: never; body: "store" };
   reissueInvitation: { query: never; body: never };
   restoreTuningVersion: { query: never; body: never };
   revokeKey: { query: never; body: never };

@@ -1,0 +1,1 @@
+export { promiseOfPlan, type TuningPromise, type SignOff } from './promise';
