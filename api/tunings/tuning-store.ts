@@ -65,6 +65,7 @@ export function versionDto(version: TuningVersion, caller: Principal | undefined
     channels: version.channels,
     subwoofer: version.subwoofer,
     createdAt: version.createdAt.toISOString(),
+    signOff: version.signOff ?? null,
     createdBy: authorAsSeenBy(caller, { userId: version.createdByUserId, keyId: version.createdByKeyId }),
   };
 }

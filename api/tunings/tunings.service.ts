@@ -125,6 +125,7 @@ export class TuningsService {
         notes: version.notes,
         settings: settingsOf(version),
         origin: 'duplicate',
+        promise: version.promise ?? null,
       },
       source.id,
     );
@@ -184,6 +185,7 @@ export class TuningsService {
       settings: settingsOf(old),
       origin: 'restore',
       restoredFromVersion: old.version,
+      promise: old.promise ?? null,
     }));
     return tuningDto(tuning, version, await this.db.models.Room.findByPk(tuning.roomId));
   }

@@ -918,6 +918,48 @@ export type paths = {
         patch?: never;
         trace?: never;
     };
+    "/v1/tunings/{tuningId}/verification": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * Check the "after" measurements against what the tuning promised
+         * @description Compares the measurements stored with `tuningId`, `tuningVersion` = `version` (default the latest)
+         *     and `stage: after` with what that version promised (a tuning stored from a plan keeps its
+         *     reference level, expected levels, target curve and corrected ranges; for one typed in by hand, give
+         *     `referenceDb`, or levels are checked for matching against their median). Per channel:
+         *
+         *     - **arrival** — the arrival in the newest impulse response at the reference position (relative to
+         *       its timing reference when it has one) minus the median of the checked channels; and the
+         *       **arrival spread** (latest − earliest). Subwoofer outputs have no arrival line: they are timed
+         *       by the sum at the crossover.
+         *     - **level** — the newest SPL reading minus the promised level (the reference; LFE channels 10 dB
+         *       above it).
+         *     - **response** — the power average over the positions of the "after" responses against the target
+         *       curve over the corrected range, level removed (the level has its own line): RMS and largest
+         *       deviation, 1/48-octave grid.
+         *     - **crossoverSum** — for a bass-managed channel (its "after" response holds the subwoofer, through
+         *       the bass management): the deepest dip below the mean from one octave below to one octave above
+         *       the crossover, 1/6-octave smoothed.
+         *
+         *     Each line passes within its tolerance, warns past 80 % of it, fails beyond it, or is `notMeasured`
+         *     (which does not count). The verdict is the worst line, or `incomplete` when nothing was measured.
+         *     `tolerances` lists every tolerance used, its default, whether the caller set it, and where it comes
+         *     from (`published` with the document, or `commonPractice`). The version's sign-off, if any, is in
+         *     `signOff`.
+         */
+        get: operations["getTuningVerification"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
     "/v1/tunings/{tuningId}/versions": {
         parameters: {
             query?: never;
@@ -969,6 +1011,29 @@ export type paths = {
          * @description Copies the settings of `version` into a new latest version; nothing is overwritten.
          */
         post: operations["restoreTuningVersion"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/v1/tunings/{tuningId}/versions/{version}/sign-off": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        /**
+         * Sign off a verified tuning version
+         * @description Stores the engineer's sign-off with the tuning version: who, the day, the reference level and its
+         *     weighting, the microphone and the positions measured, and notes. The verification verdict at the
+         *     time of signing is stored with it (`verdict`), so a later report shows what was signed. Signing
+         *     again replaces the sign-off. The settings of a version never change; only its sign-off may.
+         */
+        put: operations["signOffTuningVersion"];
+        post?: never;
         delete?: never;
         options?: never;
         head?: never;
@@ -2053,6 +2118,39 @@ export type components = {
             /** @enum {string} */
             role: "admin" | "developer" | "viewer";
         };
+        SignOff: {
+            date: string;
+            engineer: string;
+            microphone: string;
+            notes?: string;
+            positions: string[];
+            referenceLevelDb: number;
+            /** Format: date-time */
+            signedAt: string;
+            /** @enum {unknown} */
+            verdict: "pass" | "warn" | "fail" | "incomplete";
+            /** @enum {unknown} */
+            weighting: "A" | "C" | "Z";
+        };
+        SignOffRequest: {
+            /**
+             * Format: date
+             * @description Day of the verification, YYYY-MM-DD.
+             */
+            date: string;
+            engineer: string;
+            microphone: string;
+            notes?: string;
+            positions: string[];
+            referenceLevelDb: number;
+            /** @enum {unknown} */
+            weighting: "A" | "C" | "Z";
+        };
+        SignOffResult: {
+            signOff: components["schemas"]["SignOff"];
+            tuningId: string;
+            version: number;
+        };
         SourceIds: string[];
         SpeakerGeometry: {
             /** @description Positive to the left, in (−180, 180]. */
@@ -2295,6 +2393,68 @@ export type components = {
             sampleRateHz?: number;
             subwoofer?: components["schemas"]["TuningSubwoofer"] | null;
         };
+        TuningVerification: {
+            arrivalSpread: {
+                channels: string[];
+                spreadMs: number | null;
+                status: components["schemas"]["VerificationStatus"];
+                timingReference: boolean | null;
+            };
+            channels: {
+                arrival: {
+                    arrivalMs: number | null;
+                    deviationMs: number | null;
+                    measurementIds: string[];
+                    note?: string;
+                    status: components["schemas"]["VerificationStatus"];
+                };
+                crossoverSum: {
+                    atHz: number | null;
+                    deepestDipDb: number | null;
+                    fromHz: number | null;
+                    measurementIds: string[];
+                    status: components["schemas"]["VerificationStatus"];
+                    toHz: number | null;
+                };
+                id: string;
+                level: {
+                    deviationDb: number | null;
+                    expectedDb: number | null;
+                    measuredDb: number | null;
+                    measurementIds: string[];
+                    status: components["schemas"]["VerificationStatus"];
+                };
+                response: {
+                    fromHz: number | null;
+                    largestAtHz: number | null;
+                    largestDb: number | null;
+                    measurementIds: string[];
+                    micPositions: string[];
+                    rmsDb: number | null;
+                    status: components["schemas"]["VerificationStatus"];
+                    toHz: number | null;
+                };
+            }[];
+            micPosition: string | null;
+            notes: string[];
+            referenceDb: number | null;
+            /** @enum {unknown} */
+            referenceFrom: "promise" | "request" | "medianOfMeasured" | null;
+            signOff: components["schemas"]["SignOff"] | null;
+            tolerances: {
+                /** @enum {unknown} */
+                basis: "published" | "commonPractice";
+                default: number;
+                name: string;
+                setByCaller: boolean;
+                source: string;
+                value: number;
+            }[];
+            tuningId: string;
+            /** @enum {unknown} */
+            verdict: "pass" | "warn" | "fail" | "incomplete";
+            version: number;
+        };
         TuningVersion: components["schemas"]["TuningSettingsFields"] & {
             /** Format: date-time */
             createdAt: string;
@@ -2311,6 +2471,8 @@ export type components = {
             /** @enum {string} */
             origin: "settings" | "plan" | "edit" | "restore" | "duplicate";
             restoredFromVersion: number | null;
+            /** @description The engineer's sign-off after verification (`PUT …/versions/{version}/sign-off`), or null. */
+            signOff?: components["schemas"]["SignOff"] | null;
             tuningId: string;
             version: number;
         };
@@ -2404,6 +2566,8 @@ export type components = {
                 role: "calculate" | "tuning" | "admin";
             }[];
         };
+        /** @enum {unknown} */
+        VerificationStatus: "pass" | "warn" | "fail" | "notMeasured";
         Warning: {
             /** @description Channel the warning is about, if any. */
             channel?: string;
@@ -3986,6 +4150,49 @@ export interface operations {
             429: components["responses"]["TooManyRequests"];
         };
     };
+    getTuningVerification: {
+        parameters: {
+            query?: {
+                /** @description Default 0.1 ms (ITU-R BS.2051-3, Table 1 note 1). */
+                arrivalToleranceMs?: number;
+                /** @description Default 3 dB (common practice). */
+                crossoverDipToleranceDb?: number;
+                /** @description Default 0.5 dB (common practice). */
+                levelToleranceDb?: number;
+                /** @description Position whose arrivals and SPL readings count; default the one with the most of them. */
+                micPosition?: string;
+                /** @description Reference level to check levels against, when the tuning promised none (or to override it). */
+                referenceDb?: number;
+                /** @description Default 3 dB (common practice). */
+                responseMaxToleranceDb?: number;
+                /** @description Default 1.5 dB (common practice). */
+                responseRmsToleranceDb?: number;
+                version?: number;
+            };
+            header?: never;
+            path: {
+                tuningId: components["parameters"]["TuningIdPath"];
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The verification. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["TuningVerification"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
     listTuningVersions: {
         parameters: {
             query?: {
@@ -4075,6 +4282,38 @@ export interface operations {
             403: components["responses"]["Forbidden"];
             404: components["responses"]["NotFound"];
             422: components["responses"]["Unprocessable"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    signOffTuningVersion: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                tuningId: components["parameters"]["TuningIdPath"];
+                version: components["parameters"]["TuningVersionPath"];
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["SignOffRequest"];
+            };
+        };
+        responses: {
+            /** @description The sign-off as stored. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["SignOffResult"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
             429: components["responses"]["TooManyRequests"];
         };
     };
@@ -4392,6 +4631,7 @@ export type ValidatedDefaults = {
   getRoomReport: { query: never; body: never };
   getSession: { query: never; body: never };
   getTuning: { query: never; body: never };
+  getTuningVerification: { query: never; body: never };
   getTuningVersion: { query: never; body: never };
   getUsage: { query: "groupBy"; body: never };
   getUser: { query: never; body: never };
@@ -4410,6 +4650,7 @@ export type ValidatedDefaults = {
   restoreTuningVersion: { query: never; body: never };
   revokeKey: { query: never; body: never };
   signIn: { query: never; body: never };
+  signOffTuningVersion: { query: never; body: never };
   signOut: { query: never; body: never };
   updateKey: { query: never; body: never };
   updateRoom: { query: never; body: never };

@@ -80,7 +80,11 @@ export type IntegrationReport =
       measurementIds: string[];
       micPosition: string;
       mains: string[];
-      /** Gain applied to the measured subwoofer response: its trim less the LFE channel's +10 dB reading offset, dB. */
+      /**
+       * Gain that matched the subwoofer's response to the mains' before summing, dB: each path is set to the
+       * same level over its own pass band (subwoofer fc/4..fc/2, mains 2·fc..8·fc), as the level calibration
+       * intends, whatever gain the captures were made at. The summed responses are relative to that level.
+       */
       subGainDb: number;
       searchedUpToMs: number;
       geometric: SubwooferSetting;
@@ -98,8 +102,6 @@ export interface StoredRoomPlan extends Omit<RoomPlan, 'channels' | 'subwoofer'>
 }
 
 const LFE_LABEL = /^LFE\d*$/;
-/** The LFE channel's SPL reading is taken 10 dB above the reference (BS.2051-3 Table 1 note 5). */
-const LFE_READING_OFFSET_DB = 10;
 /** Without a delay limit on the room, subwoofer delays are searched up to this, ms [product choice]. */
 const DEFAULT_SUB_SEARCH_MS = 100;
 
@@ -122,16 +124,44 @@ const arrivalOf = (m: StoredMeasurement): Arrival | null => {
 };
 
 type Magnitude = { frequenciesHz: number[]; magnitudeDb: number[] };
-const magnitudeOf = (m: StoredMeasurement): Magnitude =>
-  m.kind === 'impulseResponse'
-    ? (m.result as unknown as { frequencyResponse: Magnitude }).frequencyResponse
-    : (m.result as unknown as Magnitude);
-
-const complexOf = (m: StoredMeasurement): ComplexResponse | null => {
-  const r = m.result as { frequenciesHz?: number[]; magnitudeDb?: number[]; phaseDeg?: number[] };
-  return m.kind === 'frequencyResponse' && Array.isArray(r.phaseDeg) && r.frequenciesHz && r.magnitudeDb
-    ? { frequenciesHz: r.frequenciesHz, magnitudeDb: r.magnitudeDb, phaseDeg: r.phaseDeg }
+/** The magnitude response a measurement carries, if any (an analysis's smoothed response, or the response). */
+export const magnitudeOf = (m: StoredMeasurement): Magnitude | null => {
+  const r = (
+    m.kind === 'impulseResponse' ? (m.result as { frequencyResponse?: unknown }).frequencyResponse : m.result
+  ) as Partial<Magnitude> | undefined;
+  return m.kind !== 'spl' && Array.isArray(r?.frequenciesHz) && Array.isArray(r?.magnitudeDb)
+    ? { frequenciesHz: r.frequenciesHz, magnitudeDb: r.magnitudeDb }
     : null;
+};
+
+/**
+ * The complex response a measurement carries, timed against its capture: a frequency response's own
+ * phase, or an impulse-response analysis's phase (stored relative to its arrival) with the arrival put
+ * back, −360·f·(arrival − timing reference).
+ */
+const complexOf = (m: StoredMeasurement): ComplexResponse | null => {
+  if (m.kind === 'frequencyResponse') {
+    const r = m.result as { frequenciesHz?: number[]; magnitudeDb?: number[]; phaseDeg?: number[] };
+    return Array.isArray(r.phaseDeg) && r.frequenciesHz && r.magnitudeDb
+      ? { frequenciesHz: r.frequenciesHz, magnitudeDb: r.magnitudeDb, phaseDeg: r.phaseDeg }
+      : null;
+  }
+  if (m.kind !== 'impulseResponse') return null;
+  const r = m.result as {
+    arrival?: { arrivalMs?: number };
+    timingReference?: { arrivalMs?: number };
+    frequencyResponse?: { frequenciesHz?: number[]; magnitudeDb?: number[]; phaseDeg?: number[] };
+  };
+  const fr = r.frequencyResponse;
+  if (typeof r.arrival?.arrivalMs !== 'number' || !fr?.frequenciesHz || !fr.magnitudeDb || !fr.phaseDeg)
+    return null;
+  const delayS = (r.arrival.arrivalMs - (r.timingReference?.arrivalMs ?? 0)) / 1000;
+  const phaseDeg = fr.phaseDeg;
+  return {
+    frequenciesHz: fr.frequenciesHz,
+    magnitudeDb: fr.magnitudeDb,
+    phaseDeg: fr.frequenciesHz.map((f, i) => phaseDeg[i] - 360 * f * delayS),
+  };
 };
 
 /** The newest of a list (ids are time-sortable): a re-measurement replaces the one before it. */
@@ -255,7 +285,7 @@ export function planStoredRoom(
   const responses = new Map<string, { sources: StoredMeasurement[]; averaged: Magnitude }>();
   for (const id of channelIds) {
     const byKind = (kind: 'frequencyResponse' | 'impulseResponse') => {
-      const list = usable.filter((m) => m.channel === id && m.kind === kind);
+      const list = usable.filter((m) => m.channel === id && m.kind === kind && magnitudeOf(m) !== null);
       const positions = [...new Set(list.map((m) => m.micPosition))];
       return positions.map((p) => newest(list.filter((m) => m.micPosition === p)) as StoredMeasurement);
     };
@@ -270,7 +300,7 @@ export function planStoredRoom(
         message: `${id} has frequency responses and impulse-response analyses; only the ${chosen === fr ? 'frequency responses' : 'impulse-response analyses'} are averaged (their levels are on different scales).`,
       });
     }
-    const averaged = powerAverageResampled(chosen.map(magnitudeOf));
+    const averaged = powerAverageResampled(chosen.map((m) => magnitudeOf(m) as Magnitude));
     responses.set(id, { sources: chosen, averaged });
   }
   if (responses.size > 0 && eqBands === undefined) {
@@ -397,34 +427,60 @@ function integrationFrom(
   if (!sub.channel || managed.length === 0) {
     return geometric('Nothing is bass-managed, so there is no crossover to integrate the subwoofer at.');
   }
-  const complexAt = (channel: string) => {
+  // One timing basis: the subwoofer's kind of capture (frequency responses, or impulse responses with or
+  // without a loopback reference) decides which mains can be summed with it.
+  const basis = (m: StoredMeasurement) =>
+    m.kind === 'impulseResponse'
+      ? `ir:${(m.result as { timingReference?: unknown }).timingReference ? 'ref' : 'none'}`
+      : m.kind;
+  const complexAt = (channel: string, wanted?: string) => {
     const m = newest(
-      usable.filter((x) => x.channel === channel && x.micPosition === position && complexOf(x) !== null),
+      usable.filter(
+        (x) =>
+          x.channel === channel &&
+          x.micPosition === position &&
+          (wanted === undefined || basis(x) === wanted) &&
+          complexOf(x) !== null,
+      ),
     );
-    return m ? { id: m.id, response: complexOf(m) as ComplexResponse } : null;
+    return m ? { id: m.id, basis: basis(m), response: complexOf(m) as ComplexResponse } : null;
   };
   const subResponse = complexAt(sub.channel);
-  const mains = managed.flatMap((c) => {
-    const r = complexAt(c.id);
-    return r ? [{ channel: c, ...r }] : [];
-  });
+  const mains = subResponse
+    ? managed.flatMap((c) => {
+        const r = complexAt(c.id, subResponse.basis);
+        return r ? [{ channel: c, ...r }] : [];
+      })
+    : [];
   if (!subResponse || mains.length === 0) {
     return geometric(
-      `No frequency responses with phase of ${!subResponse ? `the subwoofer (${sub.channel})` : 'any bass-managed channel'} at position ${position ?? '(none)'}; the delay and polarity are the geometric suggestion (phase of the crossover filters at ${sub.lowPass.frequencyHz} Hz after distance alignment). Measure both with the same timing reference to integrate from responses.`,
+      `No responses with phase (frequency responses with phaseDeg, or impulse responses) of ${!subResponse ? `the subwoofer (${sub.channel})` : 'a bass-managed channel captured the same way as the subwoofer'} at position ${position ?? '(none)'}; the delay and polarity are the geometric suggestion (phase of the crossover filters at ${sub.lowPass.frequencyHz} Hz after distance alignment). Measure both with the same timing reference to integrate from responses.`,
     );
   }
   const fs = plan.sampleRateHz;
-  const subPlan = plan.channels.find((c) => c.id === sub.channel) as PlanChannel;
-  const subGainDb = subPlan.trimDb - (subPlan.expectedDb !== null ? LFE_READING_OFFSET_DB : 0);
+  const fc = sub.lowPass.frequencyHz;
+  // Level match as the calibration intends: each path at 0 dB over its own pass band (the subwoofer from
+  // fc/4 to fc/2, a main from 2·fc to 8·fc), whatever gain the captures were made at.
+  const mainsBand = { fromHz: 2 * fc, toHz: Math.min(8 * fc, 0.45 * fs) };
+  const subBand = { fromHz: fc / 4, toHz: fc / 2 };
+  const subLevel = bandLevelDb(subResponse.response, subBand);
+  const mainLevels = mains.map((m) => bandLevelDb(m.response, mainsBand));
+  if (subLevel === null || mainLevels.some((x) => x === null)) {
+    return geometric(
+      `The responses with phase do not cover the pass bands the levels are matched over (subwoofer ${subBand.fromHz}–${subBand.toHz} Hz, mains ${mainsBand.fromHz}–${mainsBand.toHz} Hz); the delay and polarity are the geometric suggestion.`,
+    );
+  }
+  const meanMainsDb = (mainLevels as number[]).reduce((a, b) => a + b, 0) / mainLevels.length;
+  const subGainDb = meanMainsDb - subLevel;
   const searchedUpToMs = room.limits?.delayMaxMs ?? DEFAULT_SUB_SEARCH_MS;
   try {
     const result = integrateSubwoofer({
-      sub: { response: subResponse.response, gainDb: subGainDb },
-      mains: mains.map((m) => ({
+      sub: { response: subResponse.response, gainDb: subGainDb - meanMainsDb },
+      mains: mains.map((m, k) => ({
         id: m.channel.id,
         response: m.response,
         delayMs: (m.channel.delaySamples / fs) * 1000,
-        gainDb: m.channel.trimDb,
+        gainDb: -(mainLevels[k] as number),
         polarity: m.channel.polarity,
       })),
       lowPass: sub.lowPass.sections,
@@ -453,4 +509,12 @@ function integrationFrom(
       `The measured responses could not be used (${error.message}); the delay and polarity are the geometric suggestion.`,
     );
   }
+}
+
+/** Mean level of a response over a band, dB (points inside it; null when it has fewer than two). */
+function bandLevelDb(r: ComplexResponse, band: { fromHz: number; toHz: number }): number | null {
+  const inBand = r.magnitudeDb.filter(
+    (_, i) => r.frequenciesHz[i] >= band.fromHz && r.frequenciesHz[i] <= band.toHz,
+  );
+  return inBand.length < 2 ? null : inBand.reduce((a, b) => a + b, 0) / inBand.length;
 }

@@ -33,7 +33,7 @@ export interface SignOff {
   positions: string[];
   notes?: string;
   /** Verification outcome when signed, as the verification answered it. */
-  verdict?: 'pass' | 'warn' | 'fail';
+  verdict?: 'pass' | 'warn' | 'fail' | 'incomplete';
   signedAt?: string;
 }
 

@@ -302,7 +302,7 @@ describe('subwoofer integration from measured complex responses', () => {
           kind: 'frequencyResponse',
           channel: id,
           micPosition: 'MLP',
-          response: response((distance(id) / c21) * 1000 + latencyMs, STAGE3_SPL_DB[id]),
+          response: response((distance(id) / c21) * 1000 + latencyMs, 79),
         }),
       );
     }
@@ -319,9 +319,11 @@ describe('subwoofer integration from measured complex responses', () => {
     expect(res.body.subwoofer.suggestedDelaySamples).toBe(integration.chosen.delaySamples);
     expect(res.body.subwoofer.suggestedPolarity).toBe('inverted');
     expect(integration.geometric).toMatchObject({ delaySamples: 0, polarity: 'normal' });
-    // Levels matched by the trims (sub read 10 dB above the reference): the LR4 sum is an all-pass, flat
-    // at the reference level over the band (Linkwitz-Riley sum property; S. H. Linkwitz, JAES 24(1), 1976).
-    for (const s of integration.summed) for (const db of s.magnitudeDb) expect(db).toBeCloseTo(79, 1);
+    // Levels matched over each path's pass band (the sub was captured 11.2 dB hotter than the mains' 79):
+    // the LR4 sum is then an all-pass, flat at 0 dB over the band (Linkwitz-Riley sum property; S. H.
+    // Linkwitz, JAES 24(1), 1976).
+    expect(integration.subGainDb).toBeCloseTo(-11.2, 9);
+    for (const s of integration.summed) for (const db of s.magnitudeDb) expect(db).toBeCloseTo(0, 1);
     expect(integration.runnersUp.length).toBeGreaterThanOrEqual(2);
     // Stored, the tuning's subwoofer output carries the measured choice.
     const stored = await plan(roomId, {
