@@ -4,6 +4,7 @@ import { calculationsRouter } from './calculations/calculations.router';
 import { keysRouter } from './keys/keys.router';
 import { layoutsRouter } from './layouts/layouts.router';
 import { outboxRouter } from './mail/outbox.router';
+import { profilesRouter } from './profiles/profiles.router';
 import { measurementsRouter } from './measurements/measurements.router';
 import { roomPlansRouter } from './room-plans/room-plans.router';
 import { roomsRouter } from './rooms/rooms.router';
@@ -25,6 +26,7 @@ export function v1Router(services: Services): Router {
   router.use(outboxRouter(services));
   router.use(keysRouter(services));
   router.use(usageRouter(services));
+  router.use(profilesRouter(services));
   router.use(roomsRouter(services));
   router.use(measurementsRouter(services));
   router.use(roomPlansRouter(services));

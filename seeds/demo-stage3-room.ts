@@ -64,3 +64,29 @@ export const STAGE3_SPL_DB: Record<string, number> = {
 
 /** The room's reference level for the demo (a common small-room choice, common practice). */
 export const STAGE3_REFERENCE_DB = 79;
+
+/**
+ * DEMO DATA — the processor profile Stage 3's outputs use: an invented, generic 8-band processor at 48 or
+ * 96 kHz (delay in 0.01 ms steps up to 75 ms, trims in 0.1 dB, peaking and shelving bands, coefficients
+ * with a negated feedback sign and nine decimals). Not modelled on any product.
+ */
+export const STAGE3_PROFILE = {
+  name: 'Generic 8-band, 48/96 kHz (demo)',
+  sampleRatesHz: [48000, 96000],
+  delay: { unit: 'ms' as const, min: 0, max: 75, step: 0.01 },
+  trimDb: { min: -12, max: 12, step: 0.1 },
+  eq: {
+    bandsPerChannel: 8,
+    filterTypes: ['peaking' as const, 'lowShelf' as const, 'highShelf' as const],
+    frequencyHz: { min: 20, max: 20000, step: 1 },
+    frequencyStepUnit: 'hz' as const,
+    gainDb: { min: -12, max: 6, step: 0.1 },
+    q: { min: 0.3, max: 10, step: 0.01 },
+  },
+  coefficients: {
+    order: ['b0' as const, 'b1' as const, 'b2' as const, 'a1' as const, 'a2' as const],
+    feedbackSign: 'minus' as const,
+    numberFormat: 'decimal' as const,
+    decimalPlaces: 9,
+  },
+};

@@ -5,10 +5,12 @@ import {
   contentFromJson,
   type MeasurementContent,
 } from '../api/measurements/measurement-input';
+import type { Room } from '../api/db/models/room';
 import type { Services } from '../api/services';
 import { storedMeasurement } from '../api/tunings/verification.service';
 import { sosfreqz } from '../shared/dsp/response';
 import { checkTuningSettings, designTuning, planStoredRoom, planToTuningSettings } from '../shared/plan';
+import { findLimitViolations } from '../shared/plan/tuning-limits';
 import { promiseOfPlan, verifyTuning, type SignOff } from '../shared/verification';
 import { STAGE3_SPL_DB } from './demo-stage3-room';
 import { stage3MeasuredResponses, stage3MeasuredResponsesWithPhase } from './demo-stage3-measurements';
@@ -48,6 +50,15 @@ function capture(arrivalMs: number): Buffer {
   return Buffer.from(wav.toBuffer());
 }
 
+const storedRoom = (room: Room) => ({
+  layoutId: room.layoutId,
+  dimensions: room.dimensions,
+  listener: room.listener,
+  loudspeakers: room.loudspeakers,
+  limits: room.limits,
+  sampleRateHz: room.sampleRateHz,
+});
+
 const meanIn = (f: number[], db: number[], fromHz: number, toHz: number): number => {
   const inBand = db.filter((_, k) => f[k] >= fromHz && f[k] <= toHz);
   return inBand.reduce((a, b) => a + b, 0) / inBand.length;
@@ -59,9 +70,20 @@ export async function seedDemoStage3Verification(services: Services): Promise<vo
   const room = await Room.findOne({ where: { name: 'Stage 3' } });
   if (!room) throw new Error('demo seed: room "Stage 3" is missing; load the Stage 3 room first');
   const rows = await Measurement.findAll({ where: { roomId: room.id }, order: [['id', 'ASC']] });
-  const plan = planStoredRoom(room, rows.map(storedMeasurement), { targets: TARGETS, temperatureC: 21 });
+  const profile = room.profileId ? await services.db.models.ProcessorProfile.findByPk(room.profileId) : null;
+  const plan = planStoredRoom(
+    { ...storedRoom(room), profile: profile?.settings ?? null },
+    rows.map(storedMeasurement),
+    {
+      targets: TARGETS,
+      temperatureC: 21,
+    },
+  );
   const settings = planToTuningSettings(plan);
   checkTuningSettings(settings);
+  const outside = findLimitViolations(settings, room.limits, profile?.settings);
+  if (outside.length > 0)
+    throw new Error(`demo seed: the planned tuning is outside the limits: ${outside[0].message}`);
   const promise = promiseOfPlan(plan, null);
   const designed = designTuning(settings, settings.sampleRateHz);
   const fs = settings.sampleRateHz;
@@ -168,6 +190,7 @@ export async function seedDemoStage3Verification(services: Services): Promise<vo
         origin: 'plan',
         restoredFromVersion: null,
         promise,
+        roomRevision: room.stateRevision,
         createdByUserId: room.ownerId,
         createdByKeyId: null,
       },

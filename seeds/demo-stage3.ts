@@ -2,7 +2,9 @@ import { newId } from '../api/db/ids';
 import type { Services } from '../api/services';
 import { checkRoomDefinition } from '../shared/geometry';
 import { checkTuningSettings, planRoom, planToTuningSettings, type PlanInput } from '../shared/plan';
-import { STAGE3_REFERENCE_DB, STAGE3_ROOM, STAGE3_SPL_DB } from './demo-stage3-room';
+import { recordRoomState } from '../api/rooms/room-state-store';
+import { findLimitViolations } from '../shared/plan/tuning-limits';
+import { STAGE3_PROFILE, STAGE3_REFERENCE_DB, STAGE3_ROOM, STAGE3_SPL_DB } from './demo-stage3-room';
 import { stage3MeasuredResponses } from './demo-stage3-measurements';
 
 /** The demo developer owns the room (the "Sweep rig — Stage 3" key is theirs). */
@@ -31,10 +33,11 @@ function stage3Plan(bassManaged: boolean): PlanInput {
 /**
  * DEMO DATA — the invented room Stage 3 of Kestrel Yard Post (PRODUCT.md §7) with two tunings computed
  * by the whole-room plan from invented SPL readings and responses: bass-managed at 80 Hz (LR4) and full
- * range. Loaded into an empty database only, after the demo users.
+ * range, both within the room's limits and its processor profile. Loaded into an empty database only,
+ * after the demo users.
  */
 export async function seedDemoStage3(services: Services): Promise<void> {
-  const { User, Room, Tuning, TuningVersion } = services.db.models;
+  const { User, Room, Tuning, TuningVersion, ProcessorProfile } = services.db.models;
   const owner = await User.findOne({ where: { email: DEMO_OWNER_EMAIL } });
   if (!owner) throw new Error(`demo seed: ${DEMO_OWNER_EMAIL} is missing; load the demo users first`);
   const layout = checkRoomDefinition(STAGE3_ROOM);
@@ -42,8 +45,17 @@ export async function seedDemoStage3(services: Services): Promise<void> {
     { name: 'Bass-managed 80 Hz (demo)', settings: planToTuningSettings(planRoom(stage3Plan(true))) },
     { name: 'Full range (demo)', settings: planToTuningSettings(planRoom(stage3Plan(false))) },
   ];
-  variants.forEach((v) => checkTuningSettings(v.settings));
+  const { name: profileName, ...profileSettings } = STAGE3_PROFILE;
+  variants.forEach((v) => {
+    checkTuningSettings(v.settings);
+    const outside = findLimitViolations(v.settings, STAGE3_ROOM.limits, profileSettings);
+    if (outside.length > 0) throw new Error(`demo seed: ${v.name}: ${outside[0].message}`);
+  });
   await services.db.write(async (transaction) => {
+    const profile = await ProcessorProfile.create(
+      { id: newId('prof'), ownerId: owner.id, name: profileName, settings: profileSettings },
+      { transaction },
+    );
     const room = await Room.create(
       {
         id: newId('room'),
@@ -55,10 +67,12 @@ export async function seedDemoStage3(services: Services): Promise<void> {
         loudspeakers: STAGE3_ROOM.loudspeakers,
         limits: STAGE3_ROOM.limits,
         sampleRateHz: STAGE3_ROOM.sampleRateHz,
+        profileId: profile.id,
         notes: STAGE3_ROOM.notes,
       },
       { transaction },
     );
+    await recordRoomState(services.db.models, room, transaction);
     for (const variant of variants) {
       const tuning = await Tuning.create(
         {
@@ -83,6 +97,7 @@ export async function seedDemoStage3(services: Services): Promise<void> {
           subwoofer: variant.settings.subwoofer,
           origin: 'plan',
           restoredFromVersion: null,
+          roomRevision: room.stateRevision,
           createdByUserId: owner.id,
           createdByKeyId: null,
         },

@@ -6,6 +6,10 @@ export interface FieldError {
   /** JSON pointer (RFC 6901) into the request: `/body/channels/2/distance`, `/query/limit`. */
   pointer: string;
   message: string;
+  /** For a tuning refused by a limit: the setting, as a JSON pointer into the tuning. */
+  setting?: string;
+  /** For a tuning refused by a limit: which limit, its value, and whether the room or its profile set it. */
+  limit?: { name: string; value: number | string | Array<number | string>; source: 'room' | 'profile' };
 }
 
 export interface ProblemInit {

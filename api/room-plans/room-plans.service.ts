@@ -5,6 +5,7 @@ import type { Database } from '../db/database';
 import type { Room } from '../db/models/room';
 import { calculateAt } from '../http/problem';
 import { findRoomFor, type Caller } from '../rooms/room-access';
+import { profileOfRoom, stalenessOf } from '../rooms/room-state-store';
 import { createTuning, tuningDto } from '../tunings/tuning-store';
 
 type RoomPlanRequest = components['schemas']['RoomPlanRequest'];
@@ -23,13 +24,14 @@ export class RoomPlansService {
     body: RoomPlanRequest,
   ): Promise<StoredRoomPlan & { tuning?: TuningView }> {
     const room = await findRoomFor(caller, this.db.models, roomId);
+    const profile = await profileOfRoom(this.db.models, room);
     const rows = await this.db.models.Measurement.findAll({
       where: { roomId: room.id },
       order: [['id', 'ASC']],
     });
     const plan = calculateAt('/body', () =>
       planStoredRoom(
-        storedRoomOf(room),
+        { ...storedRoomOf(room), profile: profile?.settings ?? null },
         rows.map((m) => ({
           id: m.id,
           channel: m.channel,
@@ -48,14 +50,22 @@ export class RoomPlansService {
       ),
     );
     if (!body.store) return plan;
-    const { tuning, version } = await createTuning(this.db, caller, room, {
-      name: body.name ?? DEFAULT_TUNING_NAME,
-      notes: body.notes ?? null,
-      settings: planToTuningSettings(plan),
-      origin: 'plan',
-      promise: promiseOfPlan(plan, body.targets?.curve ?? null),
-    });
-    return { ...plan, tuning: tuningDto(tuning, version, room) };
+    // The room's limits check every stored setting; one the plan computed outside them is the plan's doing.
+    const { tuning, version } = await createTuning(
+      this.db,
+      caller,
+      room,
+      {
+        name: body.name ?? DEFAULT_TUNING_NAME,
+        notes: body.notes ?? null,
+        settings: planToTuningSettings(plan),
+        origin: 'plan',
+        promise: promiseOfPlan(plan, body.targets?.curve ?? null),
+      },
+      () => '/body/store',
+    );
+    const stale = await stalenessOf(this.db.models, room, version.roomRevision);
+    return { ...plan, tuning: tuningDto(tuning, version, room, stale) };
   }
 }
 

@@ -25,6 +25,7 @@ export function roomDto(room: Room) {
     loudspeakers: room.loudspeakers,
     limits: room.limits,
     sampleRateHz: room.sampleRateHz,
+    profileId: room.profileId ?? null,
     notes: room.notes,
     createdAt: room.createdAt.toISOString(),
     updatedAt: room.updatedAt.toISOString(),

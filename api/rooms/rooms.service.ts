@@ -4,7 +4,10 @@ import { DEFAULT_SAMPLE_RATE_HZ } from '../../shared/limits';
 import type { Database } from '../db/database';
 import { newId } from '../db/ids';
 import { pageOf, type Page, type PageRequest } from '../db/pagination';
+import type { Transaction } from 'sequelize';
+import { ProblemError } from '../http/problem';
 import { findRoomFor, ownerScope, roomStillThere, type Caller } from './room-access';
+import { recordRoomState } from './room-state-store';
 import { roomDto, type RoomView } from './room-dto';
 
 type RoomCreate = components['schemas']['RoomCreate'];
@@ -22,10 +25,31 @@ export class RoomsService {
     return roomDto(await findRoomFor(caller, this.db.models, roomId));
   }
 
+  /** A room may use only its owner's profiles; anything else is named as not found. */
+  private async requireProfile(
+    profileId: string | null | undefined,
+    ownerId: string,
+    pointer: string,
+    transaction: Transaction,
+  ): Promise<void> {
+    if (!profileId) return;
+    const profile = await this.db.models.ProcessorProfile.findByPk(profileId, { transaction });
+    if (!profile || profile.ownerId !== ownerId) {
+      throw new ProblemError({
+        status: 422,
+        title: 'Value cannot be used',
+        type: 'calculation-input',
+        detail: `No processor profile ${profileId} of the room's owner.`,
+        errors: [{ pointer, message: `no processor profile ${profileId} of the room's owner` }],
+      });
+    }
+  }
+
   async create(caller: Caller, input: RoomCreate): Promise<RoomView> {
     const layout = checkRoomDefinition(input);
-    const room = await this.db.write((transaction) =>
-      this.db.models.Room.create(
+    const room = await this.db.write(async (transaction) => {
+      await this.requireProfile(input.profileId, caller.principal.userId, '/body/profileId', transaction);
+      const room = await this.db.models.Room.create(
         {
           id: newId('room'),
           ownerId: caller.principal.userId,
@@ -36,11 +60,14 @@ export class RoomsService {
           loudspeakers: [...input.loudspeakers],
           limits: input.limits ?? null,
           sampleRateHz: input.sampleRateHz ?? DEFAULT_SAMPLE_RATE_HZ,
+          profileId: input.profileId ?? null,
           notes: input.notes ?? null,
         },
         { transaction },
-      ),
-    );
+      );
+      await recordRoomState(this.db.models, room, transaction);
+      return room;
+    });
     return roomDto(room);
   }
 
@@ -55,11 +82,13 @@ export class RoomsService {
     const layout = checkRoomDefinition(merged);
     await this.db.write(async (transaction) => {
       await roomStillThere(this.db.models, room.id, transaction);
+      await this.requireProfile(changes.profileId, room.ownerId, '/body/profileId', transaction);
       await room.update(
         {
           ...(changes.name !== undefined && { name: changes.name }),
           ...(changes.limits !== undefined && { limits: changes.limits }),
           ...(changes.sampleRateHz !== undefined && { sampleRateHz: changes.sampleRateHz }),
+          ...(changes.profileId !== undefined && { profileId: changes.profileId }),
           ...(changes.notes !== undefined && { notes: changes.notes }),
           layoutId: layout.id,
           dimensions: merged.dimensions,
@@ -68,6 +97,7 @@ export class RoomsService {
         },
         { transaction },
       );
+      await recordRoomState(this.db.models, room, transaction);
     });
     return roomDto(room);
   }
@@ -82,6 +112,7 @@ export class RoomsService {
       if (tuningIds.length > 0) await TuningVersion.destroy({ where: { tuningId: tuningIds }, transaction });
       await Tuning.destroy({ where: { roomId: room.id }, transaction });
       await Measurement.destroy({ where: { roomId: room.id }, transaction });
+      await this.db.models.RoomState.destroy({ where: { roomId: room.id }, transaction });
       await room.destroy({ transaction });
     });
   }

@@ -3,15 +3,17 @@ import type { Principal } from '../auth/permissions';
 import type { Transaction } from 'sequelize';
 import { findLayout } from '../../shared/layouts';
 import { checkTuningSettings, tuningCautions, type TuningSettings } from '../../shared/plan';
+import { findLimitViolations } from '../../shared/plan/tuning-limits';
 import type { Database } from '../db/database';
 import { newId } from '../db/ids';
 import type { Room } from '../db/models/room';
 import type { Tuning } from '../db/models/tuning';
 import type { TuningOrigin, TuningVersion } from '../db/models/tuning-version';
 import type { Models } from '../db/models';
-import { notFound } from '../http/problem';
+import { notFound, ProblemError } from '../http/problem';
 import type { TuningPromise } from '../../shared/verification';
 import { roomStillThere, type Caller } from '../rooms/room-access';
+import { profileOfRoom, type Staleness } from '../rooms/room-state-store';
 
 export interface VersionContent {
   name: string;
@@ -21,6 +23,50 @@ export interface VersionContent {
   restoredFromVersion?: number | null;
   /** What the plan promised; absent: an edit keeps the promise of the version it edits. */
   promise?: TuningPromise | null;
+  /** The room state the settings were made from; absent: the room as it is now. */
+  roomRevision?: number;
+}
+
+/**
+ * Where a refused setting sits in the request: maps a pointer into the tuning settings
+ * (`/channels/3/trimDb`) to one into the request (`/body/channels/3/trimDb`, `/path/version`).
+ */
+export type SettingPointer = (setting: string) => string;
+
+/** Settings written as the body gave them (`channels`, `sampleRateHz`, `subwoofer` at the body's top level). */
+export const inBody: SettingPointer = (setting) => `/body${setting}`;
+
+/**
+ * Refuses settings outside the room's limits or its processor profile with one 422 listing every
+ * setting outside, each naming the request field, the setting and the limit. Nothing is clamped.
+ * Every tuning write runs it inside its transaction, on the room as read there; a caller that stores
+ * settings from somewhere else (a plan) passes where they came from in `pointer`.
+ */
+export async function requireWithinRoomLimits(
+  models: Models,
+  room: Room,
+  settings: TuningSettings,
+  pointer: SettingPointer,
+  transaction?: Transaction,
+): Promise<void> {
+  const profile = await profileOfRoom(models, room, transaction);
+  const violations = findLimitViolations(settings, room.limits, profile?.settings);
+  if (violations.length === 0) return;
+  throw new ProblemError({
+    status: 422,
+    title: "Outside the room's limits",
+    type: 'limit-exceeded',
+    detail:
+      violations.length === 1
+        ? `${violations[0].message}. Nothing was stored.`
+        : `${violations.length} settings are outside the room's limits or its processor profile (first: ${violations[0].message}). Nothing was stored.`,
+    errors: violations.map((v) => ({
+      pointer: pointer(v.setting),
+      message: v.message,
+      setting: v.setting,
+      limit: v.limit,
+    })),
+  });
 }
 
 function settingsOf(version: TuningVersion): TuningSettings {
@@ -29,8 +75,13 @@ function settingsOf(version: TuningVersion): TuningSettings {
 
 export { settingsOf };
 
-/** The API shape of a tuning at one of its versions. */
-export function tuningDto(tuning: Tuning, version: TuningVersion, room: Room | null) {
+/** The API shape of a tuning at one of its versions; `stale` from stalenessOf. */
+export function tuningDto(
+  tuning: Tuning,
+  version: TuningVersion,
+  room: Room | null,
+  stale: Staleness | null,
+) {
   const settings = settingsOf(version);
   return {
     id: tuning.id,
@@ -48,6 +99,7 @@ export function tuningDto(tuning: Tuning, version: TuningVersion, room: Room | n
     createdAt: tuning.createdAt.toISOString(),
     updatedAt: tuning.updatedAt.toISOString(),
     versionCreatedAt: version.createdAt.toISOString(),
+    stale,
     cautions: tuningCautions(settings, room ? findLayout(room.layoutId) : undefined),
   };
 }
@@ -76,6 +128,7 @@ async function insertVersion(
   tuningId: string,
   number: number,
   content: VersionContent,
+  room: Room,
   transaction: Transaction,
 ): Promise<TuningVersion> {
   return models.TuningVersion.create(
@@ -91,6 +144,7 @@ async function insertVersion(
       origin: content.origin,
       restoredFromVersion: content.restoredFromVersion ?? null,
       promise: content.promise ?? null,
+      roomRevision: content.roomRevision ?? room.stateRevision,
       createdByUserId: caller.principal.userId,
       createdByKeyId: caller.principal.keyId ?? null,
     },
@@ -98,17 +152,23 @@ async function insertVersion(
   );
 }
 
-/** Stores a new tuning with its first version, after checking the settings (422 naming the field). */
+/**
+ * Stores a new tuning with its first version, after checking the settings (422 naming the field) and
+ * holding them to the room's limits and processor profile (requireWithinRoomLimits; `pointer` says where
+ * a refused setting sits in the request).
+ */
 export async function createTuning(
   db: Database,
   caller: Caller,
   room: Room,
   content: VersionContent,
+  pointer: SettingPointer,
   duplicatedFromId: string | null = null,
 ): Promise<{ tuning: Tuning; version: TuningVersion }> {
   checkTuningSettings(content.settings);
   return db.write(async (transaction) => {
-    await roomStillThere(db.models, room.id, transaction);
+    const current = await roomStillThere(db.models, room.id, transaction);
+    await requireWithinRoomLimits(db.models, current, content.settings, pointer, transaction);
     const tuning = await db.models.Tuning.create(
       {
         id: newId('tun'),
@@ -120,7 +180,7 @@ export async function createTuning(
       },
       { transaction },
     );
-    const version = await insertVersion(db.models, caller, tuning.id, 1, content, transaction);
+    const version = await insertVersion(db.models, caller, tuning.id, 1, content, current, transaction);
     return { tuning, version };
   });
 }
@@ -134,6 +194,7 @@ export async function addVersion(
   caller: Caller,
   tuningId: string,
   build: (current: TuningVersion) => VersionContent,
+  pointer: (content: VersionContent) => SettingPointer,
 ): Promise<{ tuning: Tuning; version: TuningVersion }> {
   return db.write(async (transaction) => {
     const tuning = await db.models.Tuning.findByPk(tuningId, { transaction });
@@ -142,12 +203,15 @@ export async function addVersion(
     const built = build(current);
     const content = { ...built, promise: built.promise !== undefined ? built.promise : current.promise };
     checkTuningSettings(content.settings);
+    const room = await roomStillThere(db.models, tuning.roomId, transaction);
+    await requireWithinRoomLimits(db.models, room, content.settings, pointer(content), transaction);
     const version = await insertVersion(
       db.models,
       caller,
       tuning.id,
       tuning.currentVersion + 1,
       content,
+      room,
       transaction,
     );
     await tuning.update({ currentVersion: version.version, name: content.name }, { transaction });

@@ -7,10 +7,44 @@ import { badRequest, calculateAt } from '../http/problem';
 import { findRoomFor, findTuningFor, type Caller } from '../rooms/room-access';
 import { designAtRate } from './design-at-rate';
 import { checkPatchedChannel, planForRoom, settingsFromInput, toTuningChannel } from './tuning-input';
-import { addVersion, createTuning, findVersion, settingsOf, tuningDto, versionDto } from './tuning-store';
+import type { Room } from '../db/models/room';
+import type { Tuning } from '../db/models/tuning';
+import type { TuningVersion } from '../db/models/tuning-version';
+import { stalenessOf } from '../rooms/room-state-store';
+import {
+  addVersion,
+  createTuning,
+  findVersion,
+  inBody,
+  settingsOf,
+  tuningDto,
+  versionDto,
+  type SettingPointer,
+  type VersionContent,
+} from './tuning-store';
 
 type Schemas = components['schemas'];
 type TuningView = ReturnType<typeof tuningDto>;
+type TuningUpdate = Schemas['TuningUpdate'];
+
+/**
+ * Where a refused setting of an edited tuning sits in the PATCH body: a channel the body names is its
+ * entry there (`/body/channels/<bodyIndex>/…`), the sample rate and the subwoofer when the body gives
+ * them; a stored channel the edit did not touch (the room's limits changed since) is the body itself.
+ */
+function editPointer(body: TuningUpdate, content: VersionContent): SettingPointer {
+  return (setting) => {
+    const channel = /^\/channels\/(\d+)(.*)$/.exec(setting);
+    if (channel) {
+      const id = content.settings.channels[Number(channel[1])]?.id;
+      const bodyIndex = (body.channels ?? []).findIndex((c) => c.id === id);
+      return bodyIndex >= 0 ? `/body/channels/${bodyIndex}${channel[2]}` : '/body';
+    }
+    if (setting === '/sampleRateHz' && body.sampleRateHz !== undefined) return '/body/sampleRateHz';
+    if (setting.startsWith('/subwoofer') && body.subwoofer !== undefined) return `/body${setting}`;
+    return '/body';
+  };
+}
 type VersionView = ReturnType<typeof versionDto>;
 
 const BIQUAD_CONVENTION = 'a0 = 1; H(z) = (b0 + b1 z^-1 + b2 z^-2) / (1 + a1 z^-1 + a2 z^-2)';
@@ -23,7 +57,7 @@ export class TuningsService {
     const room = await findRoomFor(caller, this.db.models, roomId);
     const found = await pageOf(this.db.models.Tuning, { roomId: room.id }, page, (t) => t);
     const data = await Promise.all(
-      found.data.map(async (t) => tuningDto(t, await findVersion(this.db.models, t, undefined), room)),
+      found.data.map(async (t) => this.view(t, await findVersion(this.db.models, t, undefined), room)),
     );
     return { data, hasMore: found.hasMore };
   }
@@ -42,14 +76,21 @@ export class TuningsService {
     const settings = fromPlan
       ? fromPlan.settings
       : settingsFromInput({ ...body, channels: body.channels ?? [] }, room);
-    const { tuning, version } = await createTuning(this.db, caller, room, {
-      name: body.name,
-      notes: body.notes ?? null,
-      settings,
-      origin: fromPlan ? 'plan' : 'settings',
-      promise: fromPlan ? promiseOfPlan(fromPlan.plan, plan?.targets?.curve ?? null) : null,
-    });
-    const dto = tuningDto(tuning, version, room);
+    const { tuning, version } = await createTuning(
+      this.db,
+      caller,
+      room,
+      {
+        name: body.name,
+        notes: body.notes ?? null,
+        settings,
+        origin: fromPlan ? 'plan' : 'settings',
+        promise: fromPlan ? promiseOfPlan(fromPlan.plan, plan?.targets?.curve ?? null) : null,
+      },
+      // A plan's settings are the plan's result, so a refused one is the plan's doing.
+      fromPlan ? () => '/body/plan' : inBody,
+    );
+    const dto = await this.view(tuning, version, room);
     return fromPlan
       ? { ...dto, planWarnings: fromPlan.plan.warnings, cautions: [...fromPlan.plan.cautions] }
       : dto;
@@ -58,7 +99,13 @@ export class TuningsService {
   async get(caller: Caller, tuningId: string, versionNumber?: number): Promise<TuningView> {
     const found = await findTuningFor(caller, this.db.models, tuningId);
     const version = await findVersion(this.db.models, found, versionNumber);
-    return tuningDto(found, version, await this.db.models.Room.findByPk(found.roomId));
+    return this.view(found, version, await this.db.models.Room.findByPk(found.roomId));
+  }
+
+  /** A tuning version as answered, with whether the room has changed since its settings were made. */
+  private async view(tuning: Tuning, version: TuningVersion, room: Room | null): Promise<TuningView> {
+    const stale = room ? await stalenessOf(this.db.models, room, version.roomRevision) : null;
+    return tuningDto(tuning, version, room, stale);
   }
 
   async compare(
@@ -77,31 +124,39 @@ export class TuningsService {
   }
 
   /** Every edit is a new version; channels are merged by id, and errors name the request's entries. */
-  async update(caller: Caller, tuningId: string, body: Schemas['TuningUpdate']): Promise<TuningView> {
+  async update(caller: Caller, tuningId: string, body: TuningUpdate): Promise<TuningView> {
     const found = await findTuningFor(caller, this.db.models, tuningId);
-    const { tuning, version } = await addVersion(this.db, caller, found.id, (current) => {
-      const removed = new Set(body.removeChannels ?? []);
-      const channels = current.channels.filter((c) => !removed.has(c.id));
-      const sampleRateHz = body.sampleRateHz ?? current.sampleRateHz;
-      (body.channels ?? []).forEach((change, bodyIndex) => {
-        const index = channels.findIndex((c) => c.id === change.id);
-        const merged = toTuningChannel(change, index >= 0 ? channels[index] : undefined);
-        checkPatchedChannel(merged, bodyIndex, sampleRateHz);
-        if (index >= 0) channels[index] = merged;
-        else channels.push(merged);
-      });
-      return {
-        name: body.name ?? current.name,
-        notes: body.notes !== undefined ? body.notes : current.notes,
-        origin: 'edit',
-        settings: {
-          sampleRateHz,
-          channels,
-          subwoofer: body.subwoofer !== undefined ? body.subwoofer : current.subwoofer,
-        },
-      };
-    });
-    return tuningDto(tuning, version, await this.db.models.Room.findByPk(tuning.roomId));
+    const { tuning, version } = await addVersion(
+      this.db,
+      caller,
+      found.id,
+      (current) => {
+        const removed = new Set(body.removeChannels ?? []);
+        const channels = current.channels.filter((c) => !removed.has(c.id));
+        const sampleRateHz = body.sampleRateHz ?? current.sampleRateHz;
+        (body.channels ?? []).forEach((change, bodyIndex) => {
+          const index = channels.findIndex((c) => c.id === change.id);
+          const merged = toTuningChannel(change, index >= 0 ? channels[index] : undefined);
+          checkPatchedChannel(merged, bodyIndex, sampleRateHz);
+          if (index >= 0) channels[index] = merged;
+          else channels.push(merged);
+        });
+        return {
+          name: body.name ?? current.name,
+          notes: body.notes !== undefined ? body.notes : current.notes,
+          origin: 'edit',
+          // An edit changes what it names; the rest was made from the room as it was.
+          roomRevision: current.roomRevision,
+          settings: {
+            sampleRateHz,
+            channels,
+            subwoofer: body.subwoofer !== undefined ? body.subwoofer : current.subwoofer,
+          },
+        };
+      },
+      (content) => editPointer(body, content),
+    );
+    return this.view(tuning, version, await this.db.models.Room.findByPk(tuning.roomId));
   }
 
   async delete(caller: Caller, tuningId: string): Promise<void> {
@@ -126,10 +181,13 @@ export class TuningsService {
         settings: settingsOf(version),
         origin: 'duplicate',
         promise: version.promise ?? null,
+        roomRevision: version.roomRevision,
       },
+      // The copy's settings are the source version's: a refused one is that version's.
+      () => (body.version !== undefined ? '/body/version' : '/path/tuningId'),
       source.id,
     );
-    return tuningDto(copy.tuning, copy.version, room);
+    return this.view(copy.tuning, copy.version, room);
   }
 
   /** The designed sections at the stored or a requested sample rate, as JSON or as CSV. */
@@ -179,14 +237,21 @@ export class TuningsService {
   async restore(caller: Caller, tuningId: string, versionNumber: number): Promise<TuningView> {
     const found = await findTuningFor(caller, this.db.models, tuningId);
     const old = await findVersion(this.db.models, found, versionNumber);
-    const { tuning, version } = await addVersion(this.db, caller, found.id, () => ({
-      name: old.name,
-      notes: old.notes,
-      settings: settingsOf(old),
-      origin: 'restore',
-      restoredFromVersion: old.version,
-      promise: old.promise ?? null,
-    }));
-    return tuningDto(tuning, version, await this.db.models.Room.findByPk(tuning.roomId));
+    const { tuning, version } = await addVersion(
+      this.db,
+      caller,
+      found.id,
+      () => ({
+        name: old.name,
+        notes: old.notes,
+        settings: settingsOf(old),
+        origin: 'restore',
+        restoredFromVersion: old.version,
+        roomRevision: old.roomRevision,
+        promise: old.promise ?? null,
+      }),
+      () => () => '/path/version',
+    );
+    return this.view(tuning, version, await this.db.models.Room.findByPk(tuning.roomId));
   }
 }

@@ -606,6 +606,58 @@ export type paths = {
         patch?: never;
         trace?: never;
     };
+    "/v1/processor-profiles": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * List your processor profiles
+         * @description The caller's profiles, oldest first (an admin sees every owner's). Cursor pagination.
+         */
+        get: operations["listProcessorProfiles"];
+        put?: never;
+        /**
+         * Store a processor profile
+         * @description What one kind of speaker processor accepts, in generic terms: its sample rates; delay unit (ms or
+         *     samples), step and range; trim step and range; EQ bands per channel and filter types; frequency,
+         *     gain and Q steps and ranges; and how it wants biquad coefficients written (order, whether a0 is
+         *     written, the sign of the feedback terms, decimal places or float32). A room chooses one with
+         *     `profileId`; its tunings are then checked against it on every write and exported for it. A step
+         *     of 0 means the processor takes any value.
+         */
+        post: operations["createProcessorProfile"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/v1/processor-profiles/{profileId}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** One processor profile */
+        get: operations["getProcessorProfile"];
+        /**
+         * Replace a processor profile
+         * @description The whole profile is replaced. Every room that uses it records the change, so the rooms' tunings
+         *     made before it answer `stale` with the reason "processor profile … was edited".
+         */
+        put: operations["replaceProcessorProfile"];
+        post?: never;
+        /** Delete a processor profile no room uses */
+        delete: operations["deleteProcessorProfile"];
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
     "/v1/rooms": {
         parameters: {
             query?: never;
@@ -651,7 +703,9 @@ export type paths = {
         head?: never;
         /**
          * Change a room
-         * @description Fields given replace the stored ones (`loudspeakers` as a whole list). Stored tunings are not changed.
+         * @description Fields given replace the stored ones (`loudspeakers` as a whole list). Stored tunings are not
+         *     changed, but a change of the listening position, a loudspeaker's position, the limits, the sample
+         *     rate or the processor profile makes every tuning made before it answer `stale` with the reasons.
          */
         patch: operations["updateRoom"];
         trace?: never;
@@ -1729,6 +1783,10 @@ export type components = {
             eqBandsPerChannel?: number;
             eqMaxBoostDb?: number;
             eqMaxCutDb?: number;
+            /** @description Highest frequency of any filter (EQ band or crossover). */
+            frequencyMaxHz?: number;
+            /** @description Lowest frequency of any filter (EQ band or crossover). */
+            frequencyMinHz?: number;
             trimMaxDb?: number;
             trimMinDb?: number;
         };
@@ -1958,9 +2016,27 @@ export type components = {
         Problem: {
             detail?: string;
             errors?: {
+                /** @description For a tuning refused by a limit, the limit itself. */
+                limit?: {
+                    /**
+                     * @example trimMaxDb
+                     * @example eqMaxBoostDb
+                     * @example delay.max
+                     * @example eq.filterTypes
+                     */
+                    name: string;
+                    /** @enum {string} */
+                    source: "room" | "profile";
+                    value: number | string | (number | string)[];
+                };
                 message: string;
                 /** @description JSON pointer (RFC 6901) to the bad field in the request. */
                 pointer: string;
+                /**
+                 * @description For a tuning refused by its room's limits or processor profile: the setting outside the
+                 *     limit, as a JSON pointer into the tuning (`/channels/3/trimDb`, `/channels/0/eq`).
+                 */
+                setting?: string;
             }[];
             instance?: string;
             requestId?: string;
@@ -1968,6 +2044,83 @@ export type components = {
             title: string;
             /** @description A URI reference that identifies the problem type. */
             type: string;
+        };
+        ProcessorProfile: {
+            coefficients: components["schemas"]["ProfileCoefficients"];
+            /** Format: date-time */
+            createdAt: string;
+            delay: components["schemas"]["ProfileDelay"];
+            eq: components["schemas"]["ProfileEq"];
+            id: string;
+            name: string;
+            ownerId: string;
+            sampleRatesHz: number[];
+            trimDb: components["schemas"]["ProfileTrim"];
+            /** Format: date-time */
+            updatedAt: string;
+        };
+        ProcessorProfileSettings: {
+            coefficients: components["schemas"]["ProfileCoefficients"];
+            delay: components["schemas"]["ProfileDelay"];
+            eq: components["schemas"]["ProfileEq"];
+            name: string;
+            sampleRatesHz: number[];
+            trimDb: components["schemas"]["ProfileTrim"];
+        };
+        /**
+         * @description How biquad coefficients are written. `order` lists b0, b1, b2, a1, a2 in the processor's order, and
+         *     a0 where the processor wants it written (always 1: sections are normalised). `feedbackSign` `plus`
+         *     means the denominator 1 + a1·z⁻¹ + a2·z⁻² (a1, a2 as designed); `minus` means 1 − a1·z⁻¹ − a2·z⁻²,
+         *     so a1 and a2 are written negated. `numberFormat` `decimal` rounds to `decimalPlaces`; `float32`
+         *     to the nearest IEEE 754 single-precision value.
+         */
+        ProfileCoefficients: {
+            decimalPlaces?: number;
+            /** @enum {string} */
+            feedbackSign: "plus" | "minus";
+            /** @enum {string} */
+            numberFormat: "decimal" | "float32";
+            order: ("b0" | "b1" | "b2" | "a0" | "a1" | "a2")[];
+        };
+        /** @description Delay as the processor takes it; `min`, `max` and `step` are in `unit`. */
+        ProfileDelay: {
+            max: number;
+            min: number;
+            step: number;
+            /** @enum {string} */
+            unit: "ms" | "samples";
+        };
+        ProfileEq: {
+            bandsPerChannel: number;
+            filterTypes: components["schemas"]["FilterType"][];
+            frequencyHz: components["schemas"]["ProfileFrequency"];
+            /** @enum {string} */
+            frequencyStepUnit: "hz" | "octave";
+            gainDb: components["schemas"]["ProfileGain"];
+            q: components["schemas"]["ProfileQ"];
+        };
+        /** @description Hz; `step` is in hertz, or a fraction of an octave when `frequencyStepUnit` is `octave`. */
+        ProfileFrequency: {
+            max: number;
+            min: number;
+            step: number;
+        };
+        ProfileGain: {
+            max: number;
+            min: number;
+            step: number;
+        };
+        /** @description A processor profile id, as `POST /v1/processor-profiles` answers it. */
+        ProfileId: string;
+        ProfileQ: {
+            max: number;
+            min: number;
+            step: number;
+        };
+        ProfileTrim: {
+            max: number;
+            min: number;
+            step: number;
         };
         /** @description Frequencies at which to evaluate a response, either listed or as a log-spaced sweep. */
         ResponseGrid: {
@@ -1999,6 +2152,7 @@ export type components = {
             name: string;
             notes: string | null;
             ownerId: string;
+            profileId: string | null;
             sampleRateHz: number;
             /** Format: date-time */
             updatedAt: string;
@@ -2012,6 +2166,8 @@ export type components = {
             loudspeakers: components["schemas"]["RoomLoudspeakers"];
             name: string;
             notes?: string;
+            /** @description One of the room owner's processor profiles; tunings are checked against it and exported for it. */
+            profileId?: components["schemas"]["ProfileId"] | null;
             sampleRateHz?: components["schemas"]["SampleRateHz"];
         };
         RoomDimensions: {
@@ -2098,6 +2254,7 @@ export type components = {
             loudspeakers?: components["schemas"]["RoomLoudspeakers"];
             name?: string;
             notes?: string;
+            profileId?: components["schemas"]["ProfileId"] | null;
             sampleRateHz?: number;
         };
         /**
@@ -2269,6 +2426,7 @@ export type components = {
             /** @description Only on a tuning just made from a plan. */
             planWarnings?: components["schemas"]["Warning"][];
             roomId: string;
+            stale: components["schemas"]["TuningStale"] | null;
             /** Format: date-time */
             updatedAt: string;
             /** @description The version shown. */
@@ -2378,6 +2536,23 @@ export type components = {
             channels: components["schemas"]["TuningChannel"][];
             sampleRateHz: number;
             subwoofer: components["schemas"]["TuningSubwoofer"] | null;
+        };
+        /**
+         * @description The room has changed since the settings of this version were made from it: the listening position,
+         *     a loudspeaker's position, the limits, the sample rate or the processor profile. `since` is when the
+         *     first of those changes was stored; `reasons` says what differs now, in words. A tuning made anew
+         *     (from settings or from a plan) takes the room as it is; an edit, a restore or a copy keeps the room
+         *     state its settings came from.
+         */
+        TuningStale: {
+            /**
+             * @example [
+             *       "listener moved 0.80 m"
+             *     ]
+             */
+            reasons: string[];
+            /** Format: date-time */
+            since: string;
         };
         TuningSubwoofer: {
             channel: components["schemas"]["ChannelLabel"];
@@ -2657,6 +2832,8 @@ export type components = {
         /** @description Page size. */
         Limit: number;
         MeasurementIdPath: components["schemas"]["MeasurementId"];
+        /** @example prof_0mf3x1d2a9f8a7b6c5d4e */
+        ProfileIdPath: components["schemas"]["ProfileId"];
         /**
          * @description A room id from `POST /v1/rooms` or `GET /v1/rooms`.
          * @example room_0mf3x1c2a9f8a7b6c5d4e
@@ -3459,6 +3636,164 @@ export interface operations {
             401: components["responses"]["Unauthorized"];
             403: components["responses"]["Forbidden"];
             422: components["responses"]["Unprocessable"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    listProcessorProfiles: {
+        parameters: {
+            query?: {
+                /** @description Page size. */
+                limit?: components["parameters"]["Limit"];
+                /** @description Cursor; the id of the last item of the previous page. */
+                startingAfter?: components["parameters"]["StartingAfter"];
+            };
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description One page of profiles. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": {
+                        data: components["schemas"]["ProcessorProfile"][];
+                        hasMore: boolean;
+                    };
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    createProcessorProfile: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["ProcessorProfileSettings"];
+            };
+        };
+        responses: {
+            /** @description The stored profile. */
+            201: {
+                headers: {
+                    /** @description URL of the new profile. */
+                    Location?: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ProcessorProfile"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            422: components["responses"]["Unprocessable"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    getProcessorProfile: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @example prof_0mf3x1d2a9f8a7b6c5d4e */
+                profileId: components["parameters"]["ProfileIdPath"];
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The profile. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ProcessorProfile"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    replaceProcessorProfile: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @example prof_0mf3x1d2a9f8a7b6c5d4e */
+                profileId: components["parameters"]["ProfileIdPath"];
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["ProcessorProfileSettings"];
+            };
+        };
+        responses: {
+            /** @description The profile as now stored. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ProcessorProfile"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
+            422: components["responses"]["Unprocessable"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    deleteProcessorProfile: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /** @example prof_0mf3x1d2a9f8a7b6c5d4e */
+                profileId: components["parameters"]["ProfileIdPath"];
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description Deleted. */
+            204: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
+            /** @description A room still uses the profile; choose another for it first. */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
             429: components["responses"]["TooManyRequests"];
         };
     };
@@ -4610,9 +4945,11 @@ export type ValidatedDefaults = {
   createKey: { query: never; body: "kind" };
   createMeasurement: { query: never; body: "micPosition" | "smoothingOctaves" | "temperatureC" };
   createPlan: { query: never; body: never };
+  createProcessorProfile: { query: never; body: never };
   createRoom: { query: never; body: never };
   createRoomTuning: { query: never; body: never };
   deleteMeasurement: { query: never; body: never };
+  deleteProcessorProfile: { query: never; body: never };
   deleteRoom: { query: never; body: never };
   deleteTuning: { query: never; body: never };
   designBiquads: { query: never; body: never };
@@ -4626,6 +4963,7 @@ export type ValidatedDefaults = {
   getLayout: { query: never; body: never };
   getMeasurement: { query: never; body: never };
   getOpenApiDocument: { query: never; body: never };
+  getProcessorProfile: { query: never; body: never };
   getReadiness: { query: never; body: never };
   getRoom: { query: never; body: never };
   getRoomReport: { query: never; body: never };
@@ -4640,6 +4978,7 @@ export type ValidatedDefaults = {
   listLayouts: { query: never; body: never };
   listMeasurements: { query: "limit"; body: never };
   listOutbox: { query: "limit"; body: never };
+  listProcessorProfiles: { query: "limit"; body: never };
   listRoomTunings: { query: "limit"; body: never };
   listRooms: { query: "limit"; body: never };
   listTuningVersions: { query: "limit"; body: never };
@@ -4647,6 +4986,7 @@ export type ValidatedDefaults = {
   planBassManagement: { query: never; body: "lfeGainDb" | "subwooferCount" | "headroomWarningDb" };
   planStoredRoom: { query: never; body: "store" };
   reissueInvitation: { query: never; body: never };
+  replaceProcessorProfile: { query: never; body: never };
   restoreTuningVersion: { query: never; body: never };
   revokeKey: { query: never; body: never };
   signIn: { query: never; body: never };

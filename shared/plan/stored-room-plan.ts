@@ -3,6 +3,7 @@ import { CalculationInputError } from '../errors';
 import type { RoomDimensions } from '../geometry/analyse-geometry';
 import type { RoomPoint } from '../geometry/coordinates';
 import type { CalculationWarning } from '../notices';
+import type { ProcessorProfileSettings } from '../processor/profile';
 import {
   planRoom,
   type PlanChannel,
@@ -30,6 +31,33 @@ export interface StoredRoom {
   loudspeakers: ReadonlyArray<{ id: string; x: number; y: number; z: number }>;
   limits: PlanInput['limits'] | null;
   sampleRateHz: number;
+  /** The room's processor profile: its ranges narrow the limits the plan works within. */
+  profile?: ProcessorProfileSettings | null;
+}
+
+/**
+ * The limits a plan works within: the room's, narrowed by its processor profile's ranges (delay, trim,
+ * band count, largest boost and cut). A profile without peaking filters allows no EQ bands.
+ */
+export function effectiveLimits(room: StoredRoom): PlanInput['limits'] | undefined {
+  const base = room.limits ?? undefined;
+  const p = room.profile;
+  if (!p) return base;
+  const lower = (a: number | undefined, b: number) => (a === undefined ? b : Math.min(a, b));
+  const higher = (a: number | undefined, b: number) => (a === undefined ? b : Math.max(a, b));
+  const delayMaxMs = p.delay.unit === 'ms' ? p.delay.max : (p.delay.max / room.sampleRateHz) * 1000;
+  return {
+    ...base,
+    delayMaxMs: lower(base?.delayMaxMs, delayMaxMs),
+    trimMinDb: higher(base?.trimMinDb, p.trimDb.min),
+    trimMaxDb: lower(base?.trimMaxDb, p.trimDb.max),
+    eqBandsPerChannel: lower(
+      base?.eqBandsPerChannel,
+      p.eq.filterTypes.includes('peaking') ? p.eq.bandsPerChannel : 0,
+    ),
+    eqMaxBoostDb: lower(base?.eqMaxBoostDb, Math.max(0, p.eq.gainDb.max)),
+    eqMaxCutDb: lower(base?.eqMaxCutDb, Math.max(0, -p.eq.gainDb.min)),
+  };
 }
 
 /** What a request may change; everything else comes from the stored room and its measurements. */
@@ -281,7 +309,8 @@ export function planStoredRoom(
   }
 
   // Responses: the spatial average over every position, newest per position, one kind per channel.
-  const eqBands = room.limits?.eqBandsPerChannel;
+  const limits = effectiveLimits(room);
+  const eqBands = limits?.eqBandsPerChannel;
   const responses = new Map<string, { sources: StoredMeasurement[]; averaged: Magnitude }>();
   for (const id of channelIds) {
     const byKind = (kind: 'frequencyResponse' | 'impulseResponse') => {
@@ -339,7 +368,7 @@ export function planStoredRoom(
     listener: room.listener,
     channels,
     targets: overrides.targets,
-    limits: room.limits ?? undefined,
+    limits,
     temperatureC: overrides.temperatureC,
     sampleRateHz: overrides.sampleRateHz ?? room.sampleRateHz,
   };
@@ -472,7 +501,7 @@ function integrationFrom(
   }
   const meanMainsDb = (mainLevels as number[]).reduce((a, b) => a + b, 0) / mainLevels.length;
   const subGainDb = meanMainsDb - subLevel;
-  const searchedUpToMs = room.limits?.delayMaxMs ?? DEFAULT_SUB_SEARCH_MS;
+  const searchedUpToMs = effectiveLimits(room)?.delayMaxMs ?? DEFAULT_SUB_SEARCH_MS;
   try {
     const result = integrateSubwoofer({
       sub: { response: subResponse.response, gainDb: subGainDb - meanMainsDb },

@@ -29,11 +29,12 @@ async function roomWithTuning(): Promise<{ roomId: string; tuningId: string }> {
 
 /** What `DELETE /v1/rooms/{id}` removes, done inside a transaction the test controls. */
 async function deleteRoomRows(roomId: string, transaction: Transaction): Promise<void> {
-  const { Room, Tuning, TuningVersion, Measurement } = ctx.db.models;
+  const { Room, RoomState, Tuning, TuningVersion, Measurement } = ctx.db.models;
   const tunings = await Tuning.findAll({ where: { roomId }, transaction });
   await TuningVersion.destroy({ where: { tuningId: tunings.map((t) => t.id) }, transaction });
   await Tuning.destroy({ where: { roomId }, transaction });
   await Measurement.destroy({ where: { roomId }, transaction });
+  await RoomState.destroy({ where: { roomId }, transaction });
   await Room.destroy({ where: { id: roomId }, transaction });
 }
 
@@ -109,11 +110,12 @@ describe.each(OPERATIONS)('%s written while its room is being deleted', (_name, 
     const ids = await roomWithTuning();
     const res = await whileRoomIsDeleted(ids.roomId, () => send(ids));
     expect([res.status, res.body.type]).toEqual([404, 'https://isochron.dev/problems/not-found']);
-    const { Room, Tuning, TuningVersion, Measurement } = ctx.db.models;
+    const { Room, RoomState, Tuning, TuningVersion, Measurement } = ctx.db.models;
     expect(await Room.count({ where: { id: ids.roomId } })).toBe(0);
     expect(await Tuning.count({ where: { roomId: ids.roomId } })).toBe(0);
     expect(await TuningVersion.count({ where: { tuningId: ids.tuningId } })).toBe(0);
     expect(await Measurement.count({ where: { roomId: ids.roomId } })).toBe(0);
+    expect(await RoomState.count({ where: { roomId: ids.roomId } })).toBe(0);
   });
 });
 

@@ -332,8 +332,21 @@ describe('README.md curl examples follow the OpenAPI contract', () => {
       expect(hasHeader(example, 'Content-Type', /^application\/json$/)).toBe(true);
       const body: unknown = JSON.parse(example.data);
       const valid = operationValidators.json!.all(body);
-      const pointers = toFieldErrors(operationValidators.json!.all.errors, '/body').map((e) => e.pointer);
+      // As in paths, a shell variable in a body ("$PROFILE_ID") stands for an id fetched earlier.
+      const fromVariable = (pointer: string) =>
+        isShellVariable(
+          String(
+            pointer
+              .split('/')
+              .slice(2)
+              .reduce<unknown>((at, key) => (at as Record<string, unknown>)?.[key], body),
+          ),
+        );
+      const pointers = toFieldErrors(operationValidators.json!.all.errors, '/body')
+        .map((e) => e.pointer)
+        .filter((pointer) => !fromVariable(pointer));
       if (!example.invalidOnPurpose) {
+        if (!valid && pointers.length === 0) return;
         if (!valid) throw new Error(`The body is refused at ${pointers.join(', ')}`);
         return;
       }

@@ -3,7 +3,9 @@ import { initApiKey } from './api-key';
 import { initAuditEvent } from './audit-event';
 import { initInvitation } from './invitation';
 import { initMeasurement } from './measurement';
+import { initProcessorProfile } from './processor-profile';
 import { initRoom } from './room';
+import { initRoomState } from './room-state';
 import { initSession } from './session';
 import { initTuning } from './tuning';
 import { initTuningVersion } from './tuning-version';
@@ -23,6 +25,8 @@ export function defineModels(sequelize: Sequelize) {
     Tuning: initTuning(sequelize),
     TuningVersion: initTuningVersion(sequelize),
     Measurement: initMeasurement(sequelize),
+    ProcessorProfile: initProcessorProfile(sequelize),
+    RoomState: initRoomState(sequelize),
   };
   return models;
 }

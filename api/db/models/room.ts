@@ -22,6 +22,8 @@ export interface StoredLimits {
   eqBandsPerChannel?: number;
   eqMaxBoostDb?: number;
   eqMaxCutDb?: number;
+  frequencyMinHz?: number;
+  frequencyMaxHz?: number;
 }
 
 /** A listening room: dimensions, listening position, loudspeakers and the processor's limits. */
@@ -35,6 +37,10 @@ export class Room extends Model<InferAttributes<Room>, InferCreationAttributes<R
   declare loudspeakers: StoredLoudspeaker[];
   declare limits: StoredLimits | null;
   declare sampleRateHz: number;
+  /** The processor profile the room's tunings are checked against and exported for, if any. */
+  declare profileId: CreationOptional<string | null>;
+  /** Revision of the room's state (room_states) that its tunings are compared with. */
+  declare stateRevision: CreationOptional<number>;
   declare notes: string | null;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -52,6 +58,8 @@ export function initRoom(sequelize: Sequelize): typeof Room {
       loudspeakers: { type: DataTypes.JSON, allowNull: false },
       limits: { type: DataTypes.JSON, allowNull: true },
       sampleRateHz: { type: DataTypes.INTEGER, allowNull: false },
+      profileId: { type: DataTypes.STRING(40), allowNull: true, defaultValue: null },
+      stateRevision: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
       notes: { type: DataTypes.TEXT, allowNull: true },
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,

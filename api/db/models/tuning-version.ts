@@ -26,6 +26,8 @@ export class TuningVersion extends Model<
   declare subwoofer: TuningSubwoofer | null;
   declare origin: TuningOrigin;
   declare restoredFromVersion: number | null;
+  /** The room state revision the settings were made from (edits, restores and copies keep their source's). */
+  declare roomRevision: number;
   declare createdByUserId: string | null;
   declare createdByKeyId: string | null;
   /** What the plan this version came from promised (null for settings typed in by hand). */
@@ -48,6 +50,7 @@ export function initTuningVersion(sequelize: Sequelize): typeof TuningVersion {
       subwoofer: { type: DataTypes.JSON, allowNull: true },
       origin: { type: DataTypes.STRING(16), allowNull: false },
       restoredFromVersion: { type: DataTypes.INTEGER, allowNull: true },
+      roomRevision: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
       createdByUserId: { type: DataTypes.STRING(40), allowNull: true },
       createdByKeyId: { type: DataTypes.STRING(40), allowNull: true },
       promise: { type: DataTypes.JSON, allowNull: true },
