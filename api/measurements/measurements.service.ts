@@ -1,3 +1,4 @@
+import { Op } from 'sequelize';
 import { powerAverageResampled } from '../../shared/analysis/spatial-average';
 import type { Database } from '../db/database';
 import { newId } from '../db/ids';
@@ -89,18 +90,28 @@ export class MeasurementsService {
   async list(
     caller: Caller,
     roomId: string,
-    query: PageRequest & { channel?: string },
+    query: PageRequest & { channel?: string; stage?: 'before' | 'after' },
   ): Promise<Page<MeasurementView>> {
     const room = await findRoomFor(caller, this.db.models, roomId);
-    const where = { roomId: room.id, ...(query.channel && { channel: query.channel }) };
+    const where = {
+      roomId: room.id,
+      ...(query.channel && { channel: query.channel }),
+      ...(query.stage && stageWhere(query.stage)),
+    };
     return pageOf(this.db.models.Measurement, where, query, (m) => measurementDto(m, false));
   }
 
   /** The power average of a channel's responses over its microphone positions. */
-  async average(caller: Caller, roomId: string, channel: string, kind?: Measurement['kind']) {
+  async average(
+    caller: Caller,
+    roomId: string,
+    channel: string,
+    kind?: Measurement['kind'],
+    stage: 'before' | 'after' = 'before',
+  ) {
     const room = await findRoomFor(caller, this.db.models, roomId);
     const rows = await this.db.models.Measurement.findAll({
-      where: { roomId: room.id, channel },
+      where: { roomId: room.id, channel, ...stageWhere(stage) },
       order: [['id', 'ASC']],
     });
     const withResponse = rows.filter((m) => m.kind !== 'spl' && (kind === undefined || m.kind === kind));
@@ -143,6 +154,11 @@ export class MeasurementsService {
     if (!measurement) throw notFound(`No measurement ${measurementId} in room ${room.id}.`);
     return measurement;
   }
+}
+
+/** Measurements of a stage; rows stored before stages existed count as "before". */
+function stageWhere(stage: 'before' | 'after') {
+  return stage === 'after' ? { stage: 'after' } : { stage: { [Op.or]: [null, 'before'] } };
 }
 
 function unusable(pointer: string, message: string): ProblemError {

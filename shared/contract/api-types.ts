@@ -719,7 +719,9 @@ export type paths = {
         };
         /**
          * List a room's measurements
-         * @description The room's measurements, oldest first, without their arrays (`summary` instead of `result`). Filter by `channel`.
+         * @description The room's measurements, oldest first, without their arrays (`summary` instead of `result`). Filter by
+         *     `channel`, and by `stage`: `before` (taken without a tuning loaded, what plans use) or `after` (taken
+         *     with a tuning loaded, what verification uses).
          */
         get: operations["listMeasurements"];
         put?: never;
@@ -3960,6 +3962,7 @@ export interface operations {
                 channel?: components["schemas"]["ChannelLabel"];
                 /** @description Page size. */
                 limit?: components["parameters"]["Limit"];
+                stage?: components["schemas"]["MeasurementStage"];
                 /** @description Cursor; the id of the last item of the previous page. */
                 startingAfter?: components["parameters"]["StartingAfter"];
             };
@@ -4126,6 +4129,11 @@ export interface operations {
                 channel: components["schemas"]["ChannelLabel"];
                 /** @description Which responses to average; required when the channel has both kinds. */
                 kind?: "frequencyResponse" | "impulseResponse";
+                /**
+                 * @description Average the measurements taken before (default; what plans use) or after a tuning was loaded (what
+                 *     verification uses). The two are never averaged together.
+                 */
+                stage?: "before" | "after";
             };
             header?: never;
             path: {
@@ -4937,7 +4945,7 @@ export interface operations {
 export type ValidatedDefaults = {
   acceptInvitation: { query: never; body: never };
   analyzeImpulseResponse: { query: never; body: "smoothingOctaves" | "temperatureC" };
-  averageMeasurements: { query: never; body: never };
+  averageMeasurements: { query: "stage"; body: never };
   compareTunings: { query: never; body: never };
   computeDelays: { query: never; body: never };
   computeGeometry: { query: never; body: "angleToleranceDeg" };

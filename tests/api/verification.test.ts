@@ -157,3 +157,36 @@ describe('GET /v1/tunings/{tuningId}/verification', () => {
     ).toBe(404);
   });
 });
+
+describe('stages in lists and averages', () => {
+  it('lists and averages the stages apart; rows before stages existed count as before', async () => {
+    const list = (q: string) =>
+      request(ctx.app).get(`/v1/rooms/${roomId}/measurements?limit=100${q}`).set(auth());
+    const all = (await list('')).body.data as Array<{ stage: string }>;
+    const before = (await list('&stage=before')).body.data as Array<{ stage: string }>;
+    const after = (await list('&stage=after')).body.data as Array<{ stage: string }>;
+    expect(before.length + after.length).toBe(all.length);
+    expect(before.every((m) => m.stage === 'before')).toBe(true);
+    expect(after.length).toBeGreaterThan(0);
+    expect(after.every((m) => m.stage === 'after')).toBe(true);
+    const grid = [100, 200, 400];
+    for (const [stage, level] of [
+      ['before', 80],
+      ['after', 70],
+    ] as const) {
+      await measure({
+        kind: 'frequencyResponse',
+        channel: 'M+000',
+        micPosition: 'MLP',
+        response: { frequenciesHz: grid, magnitudeDb: grid.map(() => level) },
+        ...(stage === 'after' && { tuningId }),
+      });
+    }
+    const average = (q: string) =>
+      request(ctx.app).get(`/v1/rooms/${roomId}/measurements/average?channel=M%2B000${q}`).set(auth());
+    const b = await average('');
+    const a = await average('&stage=after');
+    expect(b.body.magnitudeDb.every((x: number) => Math.abs(x - 80) < 1e-9)).toBe(true);
+    expect(a.body.magnitudeDb.every((x: number) => Math.abs(x - 70) < 1e-9)).toBe(true);
+  });
+});
