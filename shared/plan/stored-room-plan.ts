@@ -130,8 +130,13 @@ export interface StoredRoomPlan extends Omit<RoomPlan, 'channels' | 'subwoofer'>
 }
 
 const LFE_LABEL = /^LFE\d*$/;
-/** Without a delay limit on the room, subwoofer delays are searched up to this, ms [product choice]. */
-const DEFAULT_SUB_SEARCH_MS = 100;
+/**
+ * Subwoofer delays are searched up to the room's delay limit, but never beyond this, ms: ten periods of a
+ * 100 Hz crossover, far past any sensible subwoofer delay, and it bounds the work [product choice].
+ */
+const MAX_SUB_SEARCH_MS = 100;
+/** The sum is scored over at most this many bass-managed channels (the first measured ones) [product choice]. */
+const MAX_INTEGRATION_MAINS = 16;
 
 interface Arrival {
   ms: number;
@@ -476,10 +481,12 @@ function integrationFrom(
   };
   const subResponse = complexAt(sub.channel);
   const mains = subResponse
-    ? managed.flatMap((c) => {
-        const r = complexAt(c.id, subResponse.basis);
-        return r ? [{ channel: c, ...r }] : [];
-      })
+    ? managed
+        .flatMap((c) => {
+          const r = complexAt(c.id, subResponse.basis);
+          return r ? [{ channel: c, ...r }] : [];
+        })
+        .slice(0, MAX_INTEGRATION_MAINS)
     : [];
   if (!subResponse || mains.length === 0) {
     return geometric(
@@ -501,7 +508,7 @@ function integrationFrom(
   }
   const meanMainsDb = (mainLevels as number[]).reduce((a, b) => a + b, 0) / mainLevels.length;
   const subGainDb = meanMainsDb - subLevel;
-  const searchedUpToMs = effectiveLimits(room)?.delayMaxMs ?? DEFAULT_SUB_SEARCH_MS;
+  const searchedUpToMs = Math.min(effectiveLimits(room)?.delayMaxMs ?? MAX_SUB_SEARCH_MS, MAX_SUB_SEARCH_MS);
   try {
     const result = integrateSubwoofer({
       sub: { response: subResponse.response, gainDb: subGainDb - meanMainsDb },
