@@ -8,6 +8,7 @@ import { profilesRouter } from './profiles/profiles.router';
 import { measurementsRouter } from './measurements/measurements.router';
 import { roomPlansRouter } from './room-plans/room-plans.router';
 import { roomsRouter } from './rooms/rooms.router';
+import { targetCurvesRouter } from './target-curves/target-curves.router';
 import type { Services } from './services';
 import { tuningsRouter } from './tunings/tunings.router';
 import { usageRouter } from './usage/usage.router';
@@ -20,7 +21,7 @@ import { usersRouter } from './users/users.router';
 export function v1Router(services: Services): Router {
   const router = Router();
   router.use(layoutsRouter());
-  router.use(calculationsRouter());
+  router.use(calculationsRouter(services));
   router.use(analysisRouter());
   router.use(usersRouter(services));
   router.use(outboxRouter(services));
@@ -31,5 +32,6 @@ export function v1Router(services: Services): Router {
   router.use(measurementsRouter(services));
   router.use(roomPlansRouter(services));
   router.use(tuningsRouter(services));
+  router.use(targetCurvesRouter(services));
   return router;
 }

@@ -1,21 +1,25 @@
 import { Router } from 'express';
 import { planBassManagement } from '../../shared/bass-management/bass-management';
 import { alignDelays } from '../../shared/delay/align-delays';
-import { fitParametricEq, type PeakingBand } from '../../shared/eq-fit/fit-parametric-eq';
+import { fitParametricEq, type EqFitResult } from '../../shared/eq-fit/fit-parametric-eq';
 import { planCrossover } from '../../shared/filters/crossover';
 import { designFilterSet } from '../../shared/filters/filter-set';
 import { analyseGeometry } from '../../shared/geometry';
 import { computeLevelTrims } from '../../shared/level/level-trims';
 import { DEFAULT_SAMPLE_RATE_HZ } from '../../shared/limits';
 import { planRoom } from '../../shared/plan/plan-room';
+import { callerOf } from '../auth/actor';
 import { requirePermission } from '../auth/permissions';
 import { validate } from '../http/validate';
+import type { Services } from '../services';
+import { TargetCurvesService } from '../target-curves/target-curves.service';
 
 /**
  * The stateless calculations: each takes the validated body, calls one pure function of `shared/`
- * and answers its result. Any key role may call them.
+ * and answers its result. Any key role may call them; naming a stored target curve needs the tuning role.
  */
-export function calculationsRouter(): Router {
+export function calculationsRouter(services: Services): Router {
+  const targetCurves = new TargetCurvesService(services.db);
   const router = Router();
   const calculate = requirePermission('calculate');
 
@@ -47,7 +51,10 @@ export function calculationsRouter(): Router {
   router.post(
     '/plans',
     calculate,
-    validate('createPlan', ({ body }, _req, res) => res.json(planRoom(body))),
+    validate('createPlan', async ({ body }, req, res) => {
+      const curve = await targetCurves.resolve(callerOf(req), body.targets?.curve, '/targets/curve');
+      res.json(planRoom({ ...body, targets: body.targets && { ...body.targets, curve } }));
+    }),
   );
   router.post(
     '/geometry',
@@ -57,26 +64,27 @@ export function calculationsRouter(): Router {
   router.post(
     '/eq/fit',
     calculate,
-    validate('fitEq', ({ body }, _req, res) => {
+    validate('fitEq', async ({ body }, req, res) => {
       const sampleRateHz = body.sampleRateHz ?? DEFAULT_SAMPLE_RATE_HZ;
-      const result = fitParametricEq({ ...body, sampleRateHz });
-      res.json({ sampleRateHz, ...result, cautions: boostCautions(result.bands) });
+      const target = await targetCurves.resolve(callerOf(req), body.target, '/target');
+      const result = fitParametricEq({ ...body, target, sampleRateHz });
+      res.json({ sampleRateHz, ...result, cautions: boostCautions(result) });
     }),
   );
   return router;
 }
 
-function boostCautions(bands: PeakingBand[]): Array<{ code: string; message: string }> {
-  const boosts = bands.filter((b) => b.gainDb > 0);
+/** The boost caution states what all bands together reach, where the largest boost is. */
+function boostCautions(result: EqFitResult): Array<{ code: string; message: string }> {
+  const boosts = result.bands.filter((b) => b.gainDb > 0);
   if (boosts.length === 0) return [];
-  const largest = Math.max(...boosts.map((b) => b.gainDb));
   const lowest = Math.min(...boosts.map((b) => b.frequencyHz));
   return [
     {
       code: 'eqBoost',
       message:
-        `This EQ boosts by up to ${largest} dB, down to ${lowest} Hz. Boosts, especially at low frequencies, ` +
-        'can overdrive amplifiers and drivers; check headroom and raise the level slowly.',
+        `This EQ boosts by up to ${result.combined.maxBoostDb.toFixed(1)} dB (all bands together), down to ${lowest} Hz. ` +
+        'Boosts, especially at low frequencies, can overdrive amplifiers and drivers; check headroom and raise the level slowly.',
     },
   ];
 }

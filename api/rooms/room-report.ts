@@ -7,7 +7,7 @@ import { responseGrid } from '../../shared/dsp/grid';
 import { cascadeResponse } from '../../shared/dsp/response';
 import { esc, num, signed } from './report-html';
 import { responseSvg } from './response-svg';
-import { topViewSvg } from './top-view-svg';
+import { topViewLegend, topViewSvg } from './top-view-svg';
 
 export interface RoomReportInput {
   room: {
@@ -109,7 +109,10 @@ th { background: #eef3f7; font-weight: 600; } td.n { text-align: right; font-var
 .ok { color: #1d6b2f; } .bad { color: #a4211b; font-weight: 600; } .warn { color: #8a5300; font-weight: 600; } .na { color: #777; }
 table.signoff th { width: 22%; }
 .plots { display: flex; flex-wrap: wrap; gap: 3mm; } .plot { break-inside: avoid; } .plot p { margin: 0; font-size: 8.5pt; font-weight: 600; }
-.legend span { margin-right: 5mm; } .sw { display: inline-block; width: 9px; height: 9px; margin-right: 1.5mm; vertical-align: middle; }
+.legend span { margin-right: 5mm; white-space: nowrap; }
+.mk { display: inline-block; width: 11px; height: 11px; margin-right: 1.5mm; vertical-align: middle; -webkit-print-color-adjust: exact; print-color-adjust: exact; }
+.mk-circle { border-radius: 50%; } .mk-rectRot { transform: rotate(45deg) scale(0.8); } .mk-triangle { clip-path: polygon(50% 0, 100% 100%, 0 100%); }
+.mk-ring { border: 2px solid; border-radius: 50%; width: 9px; height: 9px; background: none; }
 ul.notices li { margin-bottom: 1.5mm; } .caution { border-left: 3px solid #a4551b; padding-left: 3mm; }
 footer { margin-top: 8mm; font-size: 8.5pt; color: #555; border-top: 0.5px solid #ccc; padding-top: 2mm; }
 section { break-inside: auto; } tr { break-inside: avoid; }
@@ -185,7 +188,7 @@ function notices(
 export function renderRoomReport(input: RoomReportInput): string {
   const { room, tuning, layout } = input;
   const title = `${room.name} — calibration report`;
-  const legend = `<p class="legend"><span><i class="sw" style="background:#1d5a85"></i>middle layer</span><span><i class="sw" style="background:#a4551b"></i>upper layer</span><span><i class="sw" style="background:#4b4b4b"></i>subwoofer</span><span>dashed red: nominal direction</span></p>`;
+  const legend = topViewLegend(room.loudspeakers.map((s) => s.id));
   const tuningPart = tuning
     ? `<section><h2>Settings — ${esc(tuning.name)} (version ${tuning.version})</h2>
 <p class="meta">Tuned by ${esc(tuning.tunedBy)} on ${esc(tuning.createdAt.toISOString().slice(0, 10))}. Design sample rate ${tuning.designed.sampleRateHz} Hz.${tuning.notes ? ' ' + esc(tuning.notes) : ''}</p>

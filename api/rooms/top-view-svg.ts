@@ -1,5 +1,11 @@
 import type { Layout } from '../../shared/layouts';
 import type { SpeakerGeometry } from '../../shared/geometry';
+import {
+  OUT_OF_RANGE_MARK,
+  SPEAKER_MARKS,
+  speakerMark,
+  type SpeakerShape,
+} from '../../shared/geometry/speaker-marks';
 import { coord, esc, num } from './report-html';
 
 export interface TopViewInput {
@@ -12,19 +18,24 @@ export interface TopViewInput {
 
 const WIDTH_PX = 520;
 const PAD_PX = 44;
-const COLOURS = { middle: '#1d5a85', upper: '#a4551b', lfe: '#4b4b4b', other: '#6a4c93' } as const;
-
-function colourOf(id: string, layout: Layout | undefined): string {
-  const layer = layout?.channels.find((c) => c.label === id)?.layer;
-  if (layer === 'lfe' || id.startsWith('LFE')) return COLOURS.lfe;
-  if (layer === 'upper' || layer === 'upperHigh' || layer === 'top') return COLOURS.upper;
-  if (layer === 'middle' || layer === 'bottom') return COLOURS.middle;
-  return COLOURS.other;
+/** One mark of the shared code (shared/geometry/speaker-marks.ts) as SVG, centred on (x, y). */
+export function markSvg(shape: SpeakerShape, x: number, y: number, fill: string): string {
+  switch (shape) {
+    case 'rect':
+      return `<rect x="${coord(x - 7)}" y="${coord(y - 7)}" width="14" height="14" fill="${fill}"/>`;
+    case 'triangle':
+      return `<path d="M${coord(x)} ${coord(y - 8)} L${coord(x + 8)} ${coord(y + 6)} L${coord(x - 8)} ${coord(y + 6)} Z" fill="${fill}"/>`;
+    case 'rectRot':
+      return `<path d="M${coord(x)} ${coord(y - 8)} L${coord(x + 8)} ${coord(y)} L${coord(x)} ${coord(y + 8)} L${coord(x - 8)} ${coord(y)} Z" fill="${fill}"/>`;
+    default:
+      return `<circle cx="${coord(x)}" cy="${coord(y)}" r="7" fill="${fill}"/>`;
+  }
 }
 
 /**
  * The room seen from above as inline SVG: front wall at the top, the listening position, every
- * loudspeaker at its measured x/y (upper-layer loudspeakers as diamonds, subwoofers as squares), a thin
+ * loudspeaker at its measured x/y in the shared mark code (shape and colour by layer, a ring when outside
+ * the layout's permitted range), a thin
  * line from the listener to each, and a dashed ray along each loudspeaker's nominal azimuth so the
  * deviation shows. Scale 1 m = `scale` px; no external assets.
  */
@@ -63,13 +74,12 @@ export function topViewSvg(input: TopViewInput): string {
   for (const speaker of input.loudspeakers) {
     const sx = px(speaker.x);
     const sy = py(speaker.y);
-    const colour = colourOf(speaker.id, input.layout);
-    const shape =
-      colour === COLOURS.lfe
-        ? `<rect x="${coord(sx - 7)}" y="${coord(sy - 7)}" width="14" height="14" fill="${colour}"/>`
-        : colour === COLOURS.upper
-          ? `<path d="M${coord(sx)} ${coord(sy - 8)} l8 8 l-8 8 l-8 -8 z" fill="${colour}"/>`
-          : `<circle cx="${coord(sx)}" cy="${coord(sy)}" r="7" fill="${colour}"/>`;
+    const mark = speakerMark(speaker.id);
+    const outside = input.geometry.find((g) => g.id === speaker.id)?.withinTolerance === false;
+    const ring = outside
+      ? `<circle cx="${coord(sx)}" cy="${coord(sy)}" r="12" fill="none" stroke="${OUT_OF_RANGE_MARK.printColour}" stroke-width="2.5"/>`
+      : '';
+    const shape = markSvg(mark.shape, sx, sy, mark.printColour) + ring;
     const labelY = sy < ly ? sy - 11 : sy + 20;
     parts.push(
       `<g>${shape}<text x="${coord(sx)}" y="${coord(labelY)}" class="label">${esc(speaker.id)}</text></g>`,
@@ -84,4 +94,19 @@ export function topViewSvg(input: TopViewInput): string {
     ...parts,
     '</svg>',
   ].join('');
+}
+
+/** The legend of the marks the plan uses, in the shared code's order, with the nominal-direction ray.
+ * Drawn with CSS (classes `mk-<shape>` in the report's style sheet) so the page has one SVG per figure. */
+export function topViewLegend(ids: readonly string[]): string {
+  const used = new Set(ids.map((id) => speakerMark(id).kind));
+  const items = SPEAKER_MARKS.filter((mark) => used.has(mark.kind)).map(
+    (mark) =>
+      `<span><i class="mk mk-${mark.shape}" style="background:${mark.printColour}"></i>${esc(mark.label)}</span>`,
+  );
+  items.push(
+    `<span><i class="mk mk-ring" style="border-color:${OUT_OF_RANGE_MARK.printColour}"></i>${esc(OUT_OF_RANGE_MARK.label)}</span>`,
+    '<span>dashed red: nominal direction</span>',
+  );
+  return `<p class="legend">${items.join('')}</p>`;
 }

@@ -5,6 +5,7 @@ import type { Database } from '../db/database';
 import { pageOf, type Page, type PageRequest } from '../db/pagination';
 import { badRequest, calculateAt } from '../http/problem';
 import { findRoomFor, findTuningFor, type Caller } from '../rooms/room-access';
+import { TargetCurvesService } from '../target-curves/target-curves.service';
 import { designAtRate } from './design-at-rate';
 import { checkPatchedChannel, planForRoom, settingsFromInput, toTuningChannel } from './tuning-input';
 import type { Room } from '../db/models/room';
@@ -71,7 +72,17 @@ export class TuningsService {
         { pointer, message: 'give exactly one of channels or plan' },
       ]);
     }
-    const plan = body.plan;
+    const plan = body.plan && {
+      ...body.plan,
+      targets: body.plan.targets && {
+        ...body.plan.targets,
+        curve: await new TargetCurvesService(this.db).resolve(
+          caller,
+          body.plan.targets.curve,
+          '/plan/targets/curve',
+        ),
+      },
+    };
     const fromPlan = plan ? calculateAt('/body/plan', () => planForRoom(room, plan)) : null;
     const settings = fromPlan
       ? fromPlan.settings

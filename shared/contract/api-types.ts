@@ -334,33 +334,52 @@ export type paths = {
         put?: never;
         /**
          * Fit parametric EQ bands that bring a measured response toward a target curve
-         * @description Fits up to `maxBands` peaking filters (Audio EQ Cookbook sections, a0 = 1,
-         *     `H(z) = (b0 + b1·z⁻¹ + b2·z⁻²) / (1 + a1·z⁻¹ + a2·z⁻²)`) to a measured magnitude response, cut first.
+         * @description Fits peaking filters (Audio EQ Cookbook sections, a0 = 1,
+         *     `H(z) = (b0 + b1·z⁻¹ + b2·z⁻²) / (1 + a1·z⁻¹ + a2·z⁻²)`) that bring a measured response toward a
+         *     target curve the way an engineer would, cut first.
          *
-         *     **How it fits.** The measurement is resampled to a 1/48-octave grid over `fromHz`..`toHz` (default:
-         *     the measured range within 20 Hz..min(20 kHz, 0.45 × sampleRateHz)) and compared with the target curve
-         *     placed at the measurement's median level over that band. The largest peak gets a cut band (centre at
-         *     the peak, gain = −height, Q from its width at half height); a dip gets a boost band only when boosts
-         *     are allowed (`maxBoostDb` > 0) and it is twice as deep as the highest remaining peak is high. After
-         *     each band, all bands are refined together by bounded Levenberg–Marquardt. Excursions under 1 dB are
-         *     left alone. With cuts only, the target's level follows the corrected response (the channel trim sets
-         *     the level), so the cuts flatten the response toward its lower parts.
+         *     **Level first.** The target is placed at the measurement's mean level over `levelReferenceHz`
+         *     (default 500 Hz–2 kHz), so the EQ corrects shape, never overall level. When the measurement does not
+         *     cover that band, the median of the fit band is used (with cuts only: the mean of the corrected
+         *     response) and `levelReferenceNotMeasured` says so.
          *
-         *     **Limits.** Every band respects `maxCutDb` (default 12), `maxBoostDb` (default 0: cuts only), `qRange`
-         *     (default 0.5..10) and the fit band; Q is further capped where the measurement has too few points per
-         *     octave to show a narrower band (warning `qLimitedByResolution`). Band values are rounded (0.1 Hz,
-         *     0.01 dB, 0.001 Q) before the sections are designed, so the sections match what you would type into a
-         *     processor.
+         *     **Range.** Bands are placed from `fromHz` (default: the low end of the measurement, at least 20 Hz) up
+         *     to the room's transition frequency `2000·√(T/V)` (Kuttruff, *Room Acoustics*) from `room.volumeM3`
+         *     and `room.reverberationTimeS` (0.3 s assumed when absent, with a warning), or up to `toHz` when you
+         *     give it; with neither, up to 200 Hz (`transitionFrequencyAssumed`). Above it the measurement at one
+         *     point says little about what a listener hears, so nothing is corrected there unless you give
+         *     `aboveTransition`: then a few broad, gentle bands (default 2, Q ≤ 1, cut ≤ 3 dB, boost ≤ 2 dB)
+         *     follow the ½-octave-smoothed response.
          *
-         *     **Nulls.** A dip at least 6 dB deep and at most 1/3 octave wide at half depth is taken as a
-         *     cancellation: it is left out of the fit, never boosted (nor its shoulders, down to 3 dB), and
-         *     reported with a `nullNotBoosted` warning. Moving the loudspeaker or the listening position changes a
-         *     null; EQ does not.
+         *     **Targets.** `flat`, `tilt` (dB per octave through `pivotHz`), `lowFrequencyLift` (a shelf),
+         *     `points` (interpolated linearly on a log-frequency axis, held beyond the ends) or `stored` (a target
+         *     curve you stored under `/v1/target-curves`, by name; needs a key that may read them).
          *
-         *     **Results.** `predicted` is the measurement with the sections applied, at the measured frequencies.
-         *     `residualRmsDb` is the RMS of (response − target − level) on the fit grid before and after, nulls
-         *     included; `targetOffsetDb` is that level. The answer is deterministic: the same request always gives
-         *     the same bands. Boosts carry a caution: they can overdrive amplifiers and drivers.
+         *     **Limits of the whole correction.** `maxBoostDb` (default 0: cuts only) and `maxCutDb` (default 12)
+         *     bound the summed response of all bands at every frequency, not each band alone; `combined` reports
+         *     the largest boost and cut the bands reach together, and the boost caution states that figure. The
+         *     answer is never worse than no EQ: bands are removed while the residual would be.
+         *
+         *     **Band discipline.** A band must change the response by at least `minGainDb` (default 0.5 dB); no two
+         *     bands lie within 1/6 octave (they are merged); a boost never overlaps a cut (within the mean of their
+         *     half-gain widths); `maxBands`, `qRange` (default 0.5..10; Q is further capped where the measurement
+         *     has too few points per octave, `qLimitedByResolution`), `bandFrequencyRangeHz` and `filterTypes` (no
+         *     `peaking`: no bands) are kept. A dip is boosted only when boosts are allowed, it is at least 1/6
+         *     octave wide at half depth, twice as deep as the highest peak is high, not a null (≥ 6 dB deep,
+         *     ≤ 1/3 octave wide: reported with `nullNotBoosted`) and not where the positions disagree. Boost bands
+         *     keep Q ≤ 3. Band values are rounded (0.1 Hz, 0.01 dB toward 0, 0.001 Q) before the sections are
+         *     designed.
+         *
+         *     **Several microphone positions.** Give `positions` instead of `measured`: they are power-averaged
+         *     on a 1/48-octave grid, each frequency weighs `1/(1 + (σ/2 dB)²)` in the fit (σ: the positions'
+         *     standard deviation there), nothing is boosted where σ > 3 dB, and each position's predicted
+         *     response and residual are returned.
+         *
+         *     **Explanation.** `explanation.bands` says what each band corrects (a peak at f, so many dB above the
+         *     target); `explanation.notUsed` lists corrections considered and left out, with the reason;
+         *     `explanation.octaveBands` gives the residual per IEC 61260-1 octave band before and after.
+         *
+         *     Deterministic: the same request always gives the same answer.
          */
         post: operations["fitEq"];
         delete?: never;
@@ -826,8 +845,8 @@ export type paths = {
          *       fitted only when the room's limits give `eqBandsPerChannel`.
          *     - `subwoofer.integration.source`: `measuredResponses` when the subwoofer and at least one
          *       bass-managed channel have frequency responses with phase at the reference position (measured
-         *       with the same timing reference); then the subwoofer delay (0 to the room's `delayMaxMs`, whole
-         *       samples) and polarity are chosen so that the sum with the crossover filters applied is loudest
+         *       with the same timing reference); then the subwoofer delay (0 to the room's `delayMaxMs`, at most
+         *       100 ms, whole samples) and polarity are chosen so that the sum with the crossover filters applied is loudest
          *       and smoothest from one octave below to one octave above the crossover (score = mean level −
          *       RMS deviation, averaged over the measured mains), with the summed response and up to three
          *       runners-up. Otherwise `geometry`: the phase-at-the-crossover suggestion of `POST /v1/plans`, and
@@ -904,6 +923,55 @@ export type paths = {
         options?: never;
         head?: never;
         patch?: never;
+        trace?: never;
+    };
+    "/v1/target-curves": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * List your stored target curves
+         * @description The caller's target curves, oldest first (an admin sees every owner's). Cursor pagination.
+         */
+        get: operations["listTargetCurves"];
+        put?: never;
+        /**
+         * Store a target curve to reuse by name
+         * @description A target response given as points (level in dB at each frequency, frequencies strictly ascending),
+         *     interpolated linearly on a log-frequency axis and held beyond the first and last point. Use it in
+         *     `POST /v1/eq/fit` and `POST /v1/plans` as `target: { kind: stored, name }`. Names are unique per
+         *     owner (409 when taken).
+         */
+        post: operations["createTargetCurve"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/v1/target-curves/{targetCurveId}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** One stored target curve */
+        get: operations["getTargetCurve"];
+        put?: never;
+        post?: never;
+        /**
+         * Delete a target curve
+         * @description Fits and plans that named it keep their results; a later request naming it gets a 422.
+         */
+        delete: operations["deleteTargetCurve"];
+        options?: never;
+        head?: never;
+        /** Rename a target curve or change its points or notes */
+        patch: operations["updateTargetCurve"];
         trace?: never;
     };
     "/v1/tunings/{tuningId}": {
@@ -1265,6 +1333,28 @@ export type paths = {
 export type webhooks = Record<string, never>;
 export type components = {
     schemas: {
+        /** @description Ask for broad, gentle corrections above the transition; each within these limits. */
+        AboveTransition: {
+            /**
+             * @description They count toward maxBands.
+             * @default 2
+             */
+            maxBands?: number;
+            /**
+             * @description Never more than the request maxBoostDb.
+             * @default 2
+             */
+            maxBoostDb?: number;
+            /**
+             * @description Never more than the request maxCutDb.
+             * @default 3
+             */
+            maxCutDb?: number;
+            /** @default 1 */
+            qMax?: number;
+            /** @description Default: the top of the measurement, at most 20 kHz. */
+            toHz?: number;
+        };
         /** @description `[min, max]` in degrees; an azimuth range runs anticlockwise (leftward) from min to max. A single value in the standard is `[v, v]`. */
         AngleRange: number[];
         ApiKey: {
@@ -1497,40 +1587,109 @@ export type components = {
         };
         /** @description Metres as a number, or a string with a length unit (`"3.2 m"`, `"10.5 ft"`, `"126 in"`, `"320 cm"`). */
         Distance: number | string;
+        EqBandExplanation: {
+            /** @description How far the feature stands above (+) or below (−) the target. */
+            aboveTargetDb: number;
+            /** @enum {string} */
+            feature: "peak" | "dip" | "broadExcess" | "broadDeficit";
+            featureHz: number;
+            frequencyHz: number;
+            gainDb: number;
+            message: string;
+            q: number;
+        };
+        /** @description Largest boost and largest cut (both ≥ 0) of all bands together at any frequency, dB. */
+        EqCombined: {
+            maxBoostDb: number;
+            maxCutDb: number;
+        };
+        EqFitPosition: {
+            /** @description Microphone position, e.g. MLP or 2. */
+            label: string;
+            measured: components["schemas"]["MagnitudeResponse"];
+        };
+        /** @description Give `measured` (one microphone position) or `positions` (several). */
         EqFitRequest: {
-            /** @description Lower end of the fit band. */
+            aboveTransition?: components["schemas"]["AboveTransition"];
+            /** @description Centre frequencies the processor's bands accept. */
+            bandFrequencyRangeHz?: {
+                fromHz: number;
+                toHz: number;
+            };
+            /** @description Filter types the processor offers; without `peaking` no band is fitted. */
+            filterTypes?: components["schemas"]["FilterType"][];
+            /** @description Lower end of the correction. */
             fromHz?: number;
-            /** @description Most peaking bands to use. */
+            /** @description Band over which the target is matched to the measurement's level (default 500..2000 Hz). */
+            levelReferenceHz?: {
+                fromHz: number;
+                toHz: number;
+            };
+            /** @description Most peaking bands to use in all. */
             maxBands: number;
             /**
-             * @description Largest boost per band; 0 = cuts only.
+             * @description Largest boost of all bands together at any frequency; 0 = cuts only.
              * @default 0
              */
             maxBoostDb?: number;
             /**
-             * @description Largest cut per band.
+             * @description Largest cut of all bands together at any frequency.
              * @default 12
              */
             maxCutDb?: number;
-            measured: components["schemas"]["MagnitudeResponse"];
-            /** @description Allowed Q of the bands (default 0.5..10). */
+            measured?: components["schemas"]["MagnitudeResponse"];
+            /**
+             * @description Smallest gain worth a band.
+             * @default 0.5
+             */
+            minGainDb?: number;
+            /** @description The same loudspeaker measured at several microphone positions. */
+            positions?: components["schemas"]["EqFitPosition"][];
+            /** @description Allowed Q of the bands below the transition (default 0.5..10). */
             qRange?: {
                 max: number;
                 min: number;
             };
+            room?: components["schemas"]["EqFitRoom"];
             sampleRateHz?: components["schemas"]["SampleRateHz"];
             target?: components["schemas"]["TargetCurve"];
-            /** @description Upper end of the fit band. */
+            /** @description Upper end of the correction (default: the transition frequency of `room`, else 200 Hz). */
             toHz?: number;
         };
         EqFitResult: {
+            /** @description With positions, their power average on the 1/48-octave grid; otherwise null. */
+            average: components["schemas"]["ResponseCurve"] | null;
             bands: components["schemas"]["PeakingBand"][];
             cautions: components["schemas"]["Caution"][];
-            fromHz: number;
-            predicted: {
-                frequenciesHz: number[];
-                magnitudeDb: number[];
+            combined: components["schemas"]["EqCombined"];
+            explanation: {
+                bands: components["schemas"]["EqBandExplanation"][];
+                notUsed: components["schemas"]["EqNotUsed"][];
+                octaveBands: {
+                    afterDb: number;
+                    beforeDb: number;
+                    /** @description Nominal mid-band frequency (IEC 61260-1 octave band). */
+                    centreHz: number;
+                }[];
             };
+            fromHz: number;
+            levelReference: {
+                fromHz: number;
+                /** @enum {string} */
+                source: "referenceBand" | "fitBandMedian";
+                toHz: number;
+            };
+            positions: {
+                label: string;
+                predicted: components["schemas"]["ResponseCurve"];
+                residualRmsDb: {
+                    after: number;
+                    before: number;
+                };
+            }[];
+            /** @description The measurement (with positions, their spatial average on the fit grid) with the sections applied. */
+            predicted: components["schemas"]["ResponseCurve"];
+            /** @description RMS of (response − target − level) before and after, dB, weighted by agreement between positions: over fromHz..toHz, or up to the top of the broad corrections when aboveTransition was given. */
             residualRmsDb: {
                 after: number;
                 before: number;
@@ -1539,8 +1698,27 @@ export type components = {
             sections: components["schemas"]["BiquadSection"][];
             /** @description Level at which the corrected response matches the target, dB. */
             targetOffsetDb: number;
+            /** @description Upper end of the correction below the transition. */
             toHz: number;
+            transition: {
+                frequencyHz: number;
+                reverberationTimeS: number | null;
+                /** @enum {string} */
+                source: "room" | "toHz" | "assumed";
+            };
             warnings: components["schemas"]["Warning"][];
+        };
+        /** @description The room, for the transition frequency 2000·√(T/V) (Kuttruff, Room Acoustics). */
+        EqFitRoom: {
+            /** @description Measured T20/T30; 0.3 s assumed when absent. */
+            reverberationTimeS?: number;
+            volumeM3: number;
+        };
+        EqNotUsed: {
+            /** @enum {string} */
+            code: "null" | "positionsDisagree" | "narrowDip" | "boostsNotAllowed" | "belowMinimumGain" | "merged" | "opposesCut" | "madeResidualWorse" | "littleBenefit" | "bandBudget" | "aboveTransition" | "peakingNotSupported";
+            frequencyHz: number | null;
+            message: string;
         };
         FilterPath: {
             family: components["schemas"]["CrossoverFamily"];
@@ -1944,6 +2122,11 @@ export type components = {
             distanceM: number | null;
             eq: {
                 bands: components["schemas"]["PeakingBand"][];
+                combined?: components["schemas"]["EqCombined"] | null;
+                explanation?: {
+                    bands: components["schemas"]["EqBandExplanation"][];
+                    notUsed: components["schemas"]["EqNotUsed"][];
+                } | null;
                 fromHz: number | null;
                 predicted: {
                     frequenciesHz: number[];
@@ -2010,9 +2193,13 @@ export type components = {
              * @default 0
              */
             eqMaxBoostDb?: number;
+            /** @description Upper end of the EQ correction (default: the room transition frequency; 200 Hz without a room). */
+            eqToHz?: number;
             /** @default 10 */
             lfeGainDb?: number;
             referenceDb?: number;
+            /** @description Reverberation time for the EQ transition frequency 2000·√(T/V) (0.3 s assumed when absent). */
+            reverberationTimeS?: number;
         };
         /** @description RFC 9457 problem details. */
         Problem: {
@@ -2123,6 +2310,10 @@ export type components = {
             max: number;
             min: number;
             step: number;
+        };
+        ResponseCurve: {
+            frequenciesHz: number[];
+            magnitudeDb: number[];
         };
         /** @description Frequencies at which to evaluate a response, either listed or as a log-spaced sweep. */
         ResponseGrid: {
@@ -2360,6 +2551,17 @@ export type components = {
             /** @description The stored tuning (only with `store: true`). */
             tuning?: components["schemas"]["Tuning"];
         };
+        StoredTargetCurve: {
+            /** Format: date-time */
+            createdAt: string;
+            id: components["schemas"]["TargetCurveId"];
+            name: string;
+            notes: string | null;
+            ownerId: string;
+            points: components["schemas"]["TargetPoint"][];
+            /** Format: date-time */
+            updatedAt: string;
+        };
         SubwooferIntegration: {
             band: {
                 fromHz: number;
@@ -2396,7 +2598,9 @@ export type components = {
          * @description The response a channel should reach, in dB relative to its own level. `flat`: 0 dB. `tilt`: a
          *     straight line of `dbPerOctave` through 0 dB at `pivotHz` (default 1000 Hz). `lowFrequencyLift`:
          *     `gainDb` at low frequencies falling to 0 dB, shaped like a second-order low shelf (Audio EQ Cookbook
-         *     analogue prototype, S = 1) with half the gain at `cornerHz`. Default: flat.
+         *     analogue prototype, S = 1) with half the gain at `cornerHz`. `points`: levels at frequencies,
+         *     interpolated linearly in log frequency and held beyond the first and last point. `stored`: a target
+         *     curve stored under `/v1/target-curves`, by its name. Default: flat.
          */
         TargetCurve: {
             /** @constant */
@@ -2412,7 +2616,34 @@ export type components = {
             gainDb: number;
             /** @constant */
             kind: "lowFrequencyLift";
+        } | {
+            /** @constant */
+            kind: "points";
+            points: components["schemas"]["TargetPoints"];
+        } | {
+            /** @constant */
+            kind: "stored";
+            /** @description Name of one of your stored target curves. */
+            name: string;
         };
+        TargetCurveCreate: {
+            name: string;
+            notes?: string;
+            points: components["schemas"]["TargetPoints"];
+        };
+        /** @description A target curve id, as `POST /v1/target-curves` answers it. */
+        TargetCurveId: string;
+        TargetCurveUpdate: {
+            name?: string;
+            notes?: string | null;
+            points?: components["schemas"]["TargetPoints"];
+        };
+        TargetPoint: {
+            frequencyHz: number;
+            gainDb: number;
+        };
+        /** @description Levels at frequencies; frequencies strictly ascending. */
+        TargetPoints: components["schemas"]["TargetPoint"][];
         Tuning: components["schemas"]["TuningSettingsFields"] & {
             cautions: components["schemas"]["Caution"][];
             /** Format: date-time */
@@ -2843,6 +3074,11 @@ export type components = {
         RoomIdPath: components["schemas"]["RoomId"];
         /** @description Cursor; the id of the last item of the previous page. */
         StartingAfter: string;
+        /**
+         * @description A target curve id from `POST /v1/target-curves` or `GET /v1/target-curves`.
+         * @example tgc_0mf3x1c2a9f8a7b6c5d4e
+         */
+        TargetCurveIdPath: components["schemas"]["TargetCurveId"];
         TuningIdPath: components["schemas"]["TuningId"];
         TuningVersionPath: number;
         UserId: components["schemas"]["UserId"];
@@ -4329,6 +4565,183 @@ export interface operations {
             429: components["responses"]["TooManyRequests"];
         };
     };
+    listTargetCurves: {
+        parameters: {
+            query?: {
+                /** @description Page size. */
+                limit?: components["parameters"]["Limit"];
+                /** @description Cursor; the id of the last item of the previous page. */
+                startingAfter?: components["parameters"]["StartingAfter"];
+            };
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description One page of target curves. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": {
+                        data: components["schemas"]["StoredTargetCurve"][];
+                        hasMore: boolean;
+                    };
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    createTargetCurve: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["TargetCurveCreate"];
+            };
+        };
+        responses: {
+            /** @description The stored target curve. */
+            201: {
+                headers: {
+                    /** @description URL of the new target curve. */
+                    Location?: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["StoredTargetCurve"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            /** @description You already have a target curve of that name. */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            422: components["responses"]["Unprocessable"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    getTargetCurve: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /**
+                 * @description A target curve id from `POST /v1/target-curves` or `GET /v1/target-curves`.
+                 * @example tgc_0mf3x1c2a9f8a7b6c5d4e
+                 */
+                targetCurveId: components["parameters"]["TargetCurveIdPath"];
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The target curve. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["StoredTargetCurve"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    deleteTargetCurve: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /**
+                 * @description A target curve id from `POST /v1/target-curves` or `GET /v1/target-curves`.
+                 * @example tgc_0mf3x1c2a9f8a7b6c5d4e
+                 */
+                targetCurveId: components["parameters"]["TargetCurveIdPath"];
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description Deleted. */
+            204: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    updateTargetCurve: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /**
+                 * @description A target curve id from `POST /v1/target-curves` or `GET /v1/target-curves`.
+                 * @example tgc_0mf3x1c2a9f8a7b6c5d4e
+                 */
+                targetCurveId: components["parameters"]["TargetCurveIdPath"];
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["TargetCurveUpdate"];
+            };
+        };
+        responses: {
+            /** @description The changed target curve. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["StoredTargetCurve"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
+            /** @description You already have a target curve of that name. */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            422: components["responses"]["Unprocessable"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
     getTuning: {
         parameters: {
             query?: {
@@ -4956,15 +5369,17 @@ export type ValidatedDefaults = {
   createProcessorProfile: { query: never; body: never };
   createRoom: { query: never; body: never };
   createRoomTuning: { query: never; body: never };
+  createTargetCurve: { query: never; body: never };
   deleteMeasurement: { query: never; body: never };
   deleteProcessorProfile: { query: never; body: never };
   deleteRoom: { query: never; body: never };
+  deleteTargetCurve: { query: never; body: never };
   deleteTuning: { query: never; body: never };
   designBiquads: { query: never; body: never };
   designCrossover: { query: never; body: never };
   duplicateTuning: { query: never; body: never };
   exportTuning: { query: "format"; body: never };
-  fitEq: { query: never; body: "maxBoostDb" | "maxCutDb" };
+  fitEq: { query: never; body: "maxBoostDb" | "maxCutDb" | "minGainDb" };
   getCurrentUser: { query: never; body: never };
   getHealth: { query: never; body: never };
   getKey: { query: never; body: never };
@@ -4976,6 +5391,7 @@ export type ValidatedDefaults = {
   getRoom: { query: never; body: never };
   getRoomReport: { query: never; body: never };
   getSession: { query: never; body: never };
+  getTargetCurve: { query: never; body: never };
   getTuning: { query: never; body: never };
   getTuningVerification: { query: never; body: never };
   getTuningVersion: { query: never; body: never };
@@ -4989,6 +5405,7 @@ export type ValidatedDefaults = {
   listProcessorProfiles: { query: "limit"; body: never };
   listRoomTunings: { query: "limit"; body: never };
   listRooms: { query: "limit"; body: never };
+  listTargetCurves: { query: "limit"; body: never };
   listTuningVersions: { query: "limit"; body: never };
   listUsers: { query: "limit"; body: never };
   planBassManagement: { query: never; body: "lfeGainDb" | "subwooferCount" | "headroomWarningDb" };
@@ -5002,6 +5419,7 @@ export type ValidatedDefaults = {
   signOut: { query: never; body: never };
   updateKey: { query: never; body: never };
   updateRoom: { query: never; body: never };
+  updateTargetCurve: { query: never; body: never };
   updateTuning: { query: never; body: never };
   updateUser: { query: never; body: never };
 };

@@ -38,7 +38,47 @@ describe('target curves', () => {
     }
   });
 
+  it('points are interpolated linearly in log frequency and held beyond the ends', () => {
+    const curve = {
+      kind: 'points',
+      points: [
+        { frequencyHz: 20, gainDb: 6 },
+        { frequencyHz: 80, gainDb: 2 },
+        { frequencyHz: 2000, gainDb: 0 },
+        { frequencyHz: 16000, gainDb: -3 },
+      ],
+    } as const;
+    expectWithin(targetDb(curve, 10), 6, 1e-12, 'below the first point');
+    expectWithin(targetDb(curve, 20), 6, 1e-12, 'first point');
+    // 40 Hz is one of the two octaves from 20 to 80 Hz: half way from 6 to 2 dB.
+    expectWithin(targetDb(curve, 40), 4, 1e-12, '40 Hz');
+    // 4 kHz is one of the three octaves from 2 to 16 kHz: a third of the way from 0 to −3 dB.
+    expectWithin(targetDb(curve, 4000), -1, 1e-12, '4 kHz');
+    expectWithin(targetDb(curve, 20000), -3, 1e-12, 'above the last point');
+  });
+
   it.each([
+    [{ kind: 'points', points: [{ frequencyHz: 100, gainDb: 0 }] }, '/target/points'],
+    [
+      {
+        kind: 'points',
+        points: [
+          { frequencyHz: 100, gainDb: 0 },
+          { frequencyHz: 100, gainDb: 1 },
+        ],
+      },
+      '/target/points/1/frequencyHz',
+    ],
+    [
+      {
+        kind: 'points',
+        points: [
+          { frequencyHz: 100, gainDb: 0 },
+          { frequencyHz: 200, gainDb: 41 },
+        ],
+      },
+      '/target/points/1/gainDb',
+    ],
     [{ kind: 'tilt', dbPerOctave: 7 }, '/target/dbPerOctave'],
     [{ kind: 'tilt', dbPerOctave: 1, pivotHz: 5 }, '/target/pivotHz'],
     [{ kind: 'lowFrequencyLift', gainDb: 30, cornerHz: 100 }, '/target/gainDb'],

@@ -10,7 +10,14 @@ import { CalculationInputError, requireInRange } from '../errors';
 export type TargetCurve =
   | { kind: 'flat' }
   | { kind: 'tilt'; dbPerOctave: number; pivotHz?: number }
-  | { kind: 'lowFrequencyLift'; gainDb: number; cornerHz: number };
+  | { kind: 'lowFrequencyLift'; gainDb: number; cornerHz: number }
+  | { kind: 'points'; points: readonly TargetPoint[] };
+
+/** One point of a target curve given as points: level in dB at a frequency. */
+export interface TargetPoint {
+  frequencyHz: number;
+  gainDb: number;
+}
 
 export const TARGET_LIMITS = {
   tiltMaxDbPerOctave: 6,
@@ -19,6 +26,11 @@ export const TARGET_LIMITS = {
   liftMaxDb: 20,
   cornerMinHz: 10,
   cornerMaxHz: 2000,
+  pointsMin: 2,
+  pointsMax: 256,
+  pointMinHz: 1,
+  pointMaxHz: 192000,
+  pointMaxDb: 40,
 } as const;
 
 /**
@@ -59,9 +71,12 @@ export function requireTargetCurve(curve: TargetCurve, field = '/target'): Targe
         `${field}/cornerHz`,
       );
       return curve;
+    case 'points':
+      requirePoints(curve.points, `${field}/points`);
+      return curve;
     default:
       throw new CalculationInputError(
-        `kind must be flat, tilt or lowFrequencyLift; received ${String((curve as { kind: unknown }).kind)}`,
+        `kind must be flat, tilt, lowFrequencyLift or points; received ${String((curve as { kind: unknown }).kind)}`,
         `${field}/kind`,
       );
   }
@@ -73,6 +88,8 @@ export function requireTargetCurve(curve: TargetCurve, field = '/target'): Targe
  * - lowFrequencyLift: `20·log10|H(jΩ)|`, Ω = f/cornerHz, of the cookbook low-shelf prototype
  *   `H(s) = A·(s² + (√A/Q)s + A)/(A·s² + (√A/Q)s + 1)` with A = 10^(gainDb/40) and Q = 1/√2 (S = 1):
  *   `gainDb` at DC, `gainDb/2` at the corner, 0 dB far above.
+ * - points: dB interpolated linearly in log frequency between neighbouring points, held at the first
+ *   point's level below it and the last point's above it.
  * @param curve a checked target curve.
  * @param frequencyHz frequency in hertz (> 0).
  */
@@ -92,5 +109,59 @@ export function targetDb(curve: TargetCurve, frequencyHz: number): number {
       const denominator = (1 - A * w2) ** 2 + damping * w2;
       return 10 * Math.log10((A * A * numerator) / denominator);
     }
+    case 'points':
+      return interpolatePoints(curve.points, frequencyHz);
   }
+}
+
+function interpolatePoints(points: readonly TargetPoint[], frequencyHz: number): number {
+  if (frequencyHz <= points[0].frequencyHz) return points[0].gainDb;
+  const last = points[points.length - 1];
+  if (frequencyHz >= last.frequencyHz) return last.gainDb;
+  let lo = 0;
+  let hi = points.length - 1;
+  while (hi - lo > 1) {
+    const mid = (lo + hi) >> 1;
+    if (points[mid].frequencyHz <= frequencyHz) lo = mid;
+    else hi = mid;
+  }
+  const a = points[lo];
+  const b = points[hi];
+  const t = Math.log(frequencyHz / a.frequencyHz) / Math.log(b.frequencyHz / a.frequencyHz);
+  return a.gainDb + t * (b.gainDb - a.gainDb);
+}
+
+/** Checks a list of target points: 2..256 of them, frequencies strictly ascending, levels within ±40 dB. */
+export function requirePoints(points: readonly TargetPoint[], field: string): readonly TargetPoint[] {
+  if (
+    !Array.isArray(points) ||
+    points.length < TARGET_LIMITS.pointsMin ||
+    points.length > TARGET_LIMITS.pointsMax
+  ) {
+    throw new CalculationInputError(
+      `a target curve needs ${TARGET_LIMITS.pointsMin}..${TARGET_LIMITS.pointsMax} points`,
+      field,
+    );
+  }
+  points.forEach((point, i) => {
+    requireInRange(
+      point.frequencyHz,
+      { min: TARGET_LIMITS.pointMinHz, max: TARGET_LIMITS.pointMaxHz, unit: 'Hz' },
+      'frequencyHz',
+      `${field}/${i}/frequencyHz`,
+    );
+    requireInRange(
+      point.gainDb,
+      { min: -TARGET_LIMITS.pointMaxDb, max: TARGET_LIMITS.pointMaxDb, unit: 'dB' },
+      'gainDb',
+      `${field}/${i}/gainDb`,
+    );
+    if (i > 0 && !(point.frequencyHz > points[i - 1].frequencyHz)) {
+      throw new CalculationInputError(
+        `target points must ascend in frequency; ${point.frequencyHz} Hz follows ${points[i - 1].frequencyHz} Hz`,
+        `${field}/${i}/frequencyHz`,
+      );
+    }
+  });
+  return points;
 }

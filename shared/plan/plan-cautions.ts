@@ -13,11 +13,12 @@ export function planCautions(
   bassCautions: readonly Caution[],
 ): Caution[] {
   const cautions: Caution[] = [...levelCautions, ...bassCautions];
-  const boosted = channels.filter((c) => c.eq.bands.some((b) => b.gainDb > 0)).map((c) => c.id);
+  const boosted = channels.filter((c) => c.eq.bands.some((b) => b.gainDb > 0));
   if (boosted.length > 0) {
+    const figures = boosted.map((c) => `${c.id} by up to ${(c.eq.combined?.maxBoostDb ?? 0).toFixed(1)} dB`);
     cautions.push({
       code: 'eqBoost',
-      message: `The EQ of ${boosted.join(', ')} boosts some frequencies; boosts, especially at low frequencies, can overdrive amplifiers and drivers. Prefer cuts and check headroom.`,
+      message: `The EQ boosts ${figures.join(', ')} (all bands together). Boosts, especially at low frequencies, can overdrive amplifiers and drivers. Prefer cuts and check headroom.`,
     });
   }
   if (layout.channels.some((c) => c.layer === 'upper' || c.layer === 'upperHigh' || c.layer === 'top')) {

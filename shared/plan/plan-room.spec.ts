@@ -144,8 +144,12 @@ describe('planRoom — EQ from measured responses', () => {
     for (const channel of fitted) {
       expect(channel.eq.bands.length).toBeLessThanOrEqual(8);
       expect(channel.eq.bands.every((b) => b.gainDb < 0 && b.gainDb >= -12)).toBe(true);
-      expect(channel.eq.residualRmsDb!.after).toBeLessThan(channel.eq.residualRmsDb!.before);
+      expect(channel.eq.bands.every((b) => b.frequencyHz <= channel.eq.toHz!)).toBe(true);
+      expect(channel.eq.residualRmsDb!.after).toBeLessThanOrEqual(channel.eq.residualRmsDb!.before);
     }
+    expect(plan.channels.find((c) => c.id === 'LFE1')!.eq.residualRmsDb!.after).toBeLessThan(
+      plan.channels.find((c) => c.id === 'LFE1')!.eq.residualRmsDb!.before,
+    );
     expect(plan.cautions.some((c) => c.code === 'eqBoost')).toBe(false);
   });
 
@@ -157,8 +161,23 @@ describe('planRoom — EQ from measured responses', () => {
     expect(mode?.gainDb).toBeLessThan(-4);
   });
 
-  it('a bass-managed main is fitted from the crossover up', () => {
-    expect(plan.channels.find((c) => c.id === 'M+030')!.eq.fromHz).toBe(80);
+  it('a bass-managed main is fitted from the crossover up to the transition frequency, nothing above', () => {
+    const main = plan.channels.find((c) => c.id === 'M+030')!;
+    expect(main.eq.fromHz).toBe(80);
+    // Stage 3 (6.10 × 7.40 × 3.05 m = 137.7 m³) with the assumed 0.3 s: 2000·√(0.3/137.677) = 93.4 Hz
+    // (Kuttruff, "Room Acoustics"); the 112 Hz dip and the 190 Hz bump of the invented response lie above it.
+    expect(main.eq.toHz).toBe(93.4);
+    expect(main.eq.bands).toEqual([]);
+    expect(plan.warnings).toContainEqual(
+      expect.objectContaining({ code: 'reverberationTimeAssumed', channel: 'M+030' }),
+    );
+    const measuredT = planRoom({ ...input, targets: { ...input.targets, reverberationTimeS: 0.5 } });
+    // 2000·√(0.5/137.677) = 120.5 Hz.
+    expect(measuredT.channels.find((c) => c.id === 'M+030')!.eq.toHz).toBe(120.5);
+    const upTo = planRoom({ ...input, targets: { ...input.targets, eqToHz: 300 } });
+    const wider = upTo.channels.find((c) => c.id === 'M+030')!;
+    expect(wider.eq.toHz).toBe(300);
+    expect(wider.eq.bands.some((b) => b.frequencyHz > 150 && b.frequencyHz < 250 && b.gainDb < 0)).toBe(true);
   });
 
   it('refuses measured responses without a band count', () => {

@@ -4,7 +4,7 @@ import {
   DEFAULT_LFE_GAIN_DB,
 } from '../bass-management/bass-management';
 import { alignDelays } from '../delay/align-delays';
-import { fitParametricEq, type PeakingBand } from '../eq-fit/fit-parametric-eq';
+import { fitParametricEq, type EqFitResult, type PeakingBand } from '../eq-fit/fit-parametric-eq';
 import type { TargetCurve } from '../eq-fit/target-curve';
 import { CalculationInputError, withFieldPrefix } from '../errors';
 import type { Sos } from '../dsp/sos';
@@ -63,6 +63,10 @@ export interface PlanInput {
      * `limits.eqMaxBoostDb`.
      */
     eqMaxBoostDb?: number;
+    /** Reverberation time of the room, s, for the EQ's transition frequency 2000·√(T/V) (default 0.3 s). */
+    reverberationTimeS?: number;
+    /** Upper end of the EQ correction, hertz (default: the room's transition frequency). */
+    eqToHz?: number;
   };
   limits?: {
     delayMaxMs?: number;
@@ -102,6 +106,10 @@ export interface PlanChannel {
     predicted: { frequenciesHz: number[]; magnitudeDb: number[] } | null;
     fromHz: number | null;
     toHz: number | null;
+    /** Largest boost and cut of the bands together, dB; null without a fit. */
+    combined?: EqFitResult['combined'] | null;
+    /** What each band corrects and what was left out; null without a fit. */
+    explanation?: Pick<EqFitResult['explanation'], 'bands' | 'notUsed'> | null;
   };
   highPass: (PlanFilterPath & { polarity: Polarity }) | null;
 }
@@ -137,6 +145,8 @@ const LFE_LABEL = /^LFE\d*$/;
 const LFE_TARGET_OFFSET_DB = 10;
 /** The subwoofer's EQ is fitted up to one octave above the crossover [product choice]. */
 const SUB_FIT_OCTAVES_ABOVE = 1;
+/** A subwoofer's level is matched over its own band from here up, hertz [product choice]. */
+const SUB_LEVEL_FROM_HZ = 30;
 /** Without bass management the LFE band ends near 120 Hz (common practice). */
 const LFE_BAND_TOP_HZ = 120;
 /** Rounding noise below this is not worth a warning about a negative subwoofer delay, ms. */
@@ -329,7 +339,16 @@ function fitChannelEq(
   crossoverHz: number | null,
   warnings: CalculationWarning[],
 ): PlanChannel['eq'] {
-  const none = { bands: [], sections: [], residualRmsDb: null, predicted: null, fromHz: null, toHz: null };
+  const none = {
+    bands: [],
+    sections: [],
+    residualRmsDb: null,
+    predicted: null,
+    fromHz: null,
+    toHz: null,
+    combined: null,
+    explanation: null,
+  };
   if (!channel.measuredResponse) return none;
   const maxBands = input.limits?.eqBandsPerChannel;
   if (maxBands === undefined) {
@@ -338,12 +357,20 @@ function fitChannelEq(
       '/limits/eqBandsPerChannel',
     );
   }
+  const subTopHz = crossoverHz !== null ? crossoverHz * 2 ** SUB_FIT_OCTAVES_ABOVE : LFE_BAND_TOP_HZ;
+  // A subwoofer has no 500 Hz–2 kHz to match its level over: its own band is its reference.
   const band =
     role === 'lfe'
-      ? { toHz: crossoverHz !== null ? crossoverHz * 2 ** SUB_FIT_OCTAVES_ABOVE : LFE_BAND_TOP_HZ }
+      ? { toHz: subTopHz, levelReferenceHz: { fromHz: SUB_LEVEL_FROM_HZ, toHz: subTopHz } }
       : role === 'managed' && crossoverHz !== null
-        ? { fromHz: crossoverHz }
-        : {};
+        ? { fromHz: crossoverHz, toHz: input.targets?.eqToHz }
+        : { toHz: input.targets?.eqToHz };
+  const room = input.room
+    ? {
+        volumeM3: input.room.widthM * input.room.lengthM * input.room.heightM,
+        reverberationTimeS: input.targets?.reverberationTimeS,
+      }
+    : undefined;
   const fit = remapFields(
     [
       ['/measured', `/channels/${index}/measuredResponse`],
@@ -351,6 +378,9 @@ function fitChannelEq(
       ['/maxBands', '/limits/eqBandsPerChannel'],
       ['/maxBoostDb', '/targets/eqMaxBoostDb'],
       ['/maxCutDb', '/limits/eqMaxCutDb'],
+      ['/room/reverberationTimeS', '/targets/reverberationTimeS'],
+      ['/room', '/room'],
+      ['/toHz', '/targets/eqToHz'],
       ['', `/channels/${index}/measuredResponse`],
     ],
     () =>
@@ -361,6 +391,7 @@ function fitChannelEq(
         maxBands,
         maxBoostDb: Math.min(input.targets?.eqMaxBoostDb ?? 0, input.limits?.eqMaxBoostDb ?? Infinity),
         maxCutDb: input.limits?.eqMaxCutDb,
+        room,
         ...band,
       }),
   );
@@ -372,6 +403,8 @@ function fitChannelEq(
     predicted: fit.predicted,
     fromHz: fit.fromHz,
     toHz: fit.toHz,
+    combined: fit.combined,
+    explanation: { bands: fit.explanation.bands, notUsed: fit.explanation.notUsed },
   };
 }
 

@@ -75,6 +75,60 @@ describe('POST /v1/eq/fit', () => {
     expect(res.body.cautions.map((c: { code: string }) => c.code)).toEqual(['eqBoost']);
   });
 
+  it('holds the boost limit for all bands together and states the combined figure in the caution', async () => {
+    const res = await post({
+      measured: { frequenciesHz: freqs, magnitudeDb: measured([[140, -6, 1.2]], 48000) },
+      maxBands: 8,
+      maxBoostDb: 2,
+      toHz: 400,
+    });
+    expect(res.status).toBe(200);
+    expectToMatchContract('fitEq', 200, res.body);
+    // The summed bands, evaluated independently (cookbook peaking sections), never exceed +2 dB.
+    const total = (f: number) =>
+      res.body.bands.reduce(
+        (db: number, b: { frequencyHz: number; gainDb: number; q: number }) =>
+          db + cookbookPeakingDb(b.frequencyHz, b.gainDb, b.q, f, 48000),
+        0,
+      );
+    const worst = Math.max(...Array.from({ length: 400 }, (_, k) => total(20 * Math.pow(25, k / 399))));
+    expect(worst).toBeLessThanOrEqual(2 + 1e-6);
+    expect(res.body.combined.maxBoostDb).toBeCloseTo(worst, 1);
+    expect(res.body.cautions[0].message).toContain(
+      `up to ${res.body.combined.maxBoostDb.toFixed(1)} dB (all bands together)`,
+    );
+  });
+
+  it('fits several microphone positions and reports each one', async () => {
+    const res = await post({
+      positions: [70, 85, 100].map((dip, k) => ({
+        label: `mic ${k + 1}`,
+        measured: {
+          frequenciesHz: freqs,
+          magnitudeDb: measured(
+            [
+              [45, 8, 5],
+              [dip, -15, 6],
+            ],
+            48000,
+          ),
+        },
+      })),
+      maxBands: 6,
+      maxBoostDb: 6,
+      toHz: 300,
+    });
+    expect(res.status).toBe(200);
+    expectToMatchContract('fitEq', 200, res.body);
+    expect(res.body.positions.map((p: { label: string }) => p.label)).toEqual(['mic 1', 'mic 2', 'mic 3']);
+    expect(res.body.bands.every((b: { gainDb: number }) => b.gainDb < 0)).toBe(true);
+    expect(res.body.average.frequenciesHz.length).toBeGreaterThan(100);
+  });
+
+  it('refuses a request with neither measured nor positions, naming /body/measured', async () => {
+    expectProblem(await post({ maxBands: 2 }), 422, '/body/measured');
+  });
+
   it('warns instead of boosting into a deep narrow null', async () => {
     const res = await post({
       measured: {

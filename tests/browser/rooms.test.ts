@@ -80,11 +80,12 @@ it('exports coefficients and links to the printable report', async () => {
   expect(exported.convention).toMatch(/a0 = 1/);
   expect(exported.channels.map((channel) => channel.id)).toContain('M+030');
 
-  const href = await page.getByTestId('room-report').getAttribute('href');
-  const [report] = await Promise.all([
-    page.context().waitForEvent('page'),
-    page.getByTestId('room-report').click(),
-  ]);
+  // The Report button asks which tuning the report is of.
+  await page.getByTestId('room-report').click();
+  const choice = page.getByRole('menuitem', { name: /Full range/ });
+  const href = await choice.getAttribute('href');
+  expect(href).toMatch(/\/report\?tuningId=tun_\w+&version=1$/);
+  const [report] = await Promise.all([page.context().waitForEvent('page'), choice.click()]);
   await report.waitForLoadState();
   expect(report.url()).toBe(`${service.origin}${href}`);
   expect(await report.title()).toMatch(/Stage 3/);

@@ -7,6 +7,7 @@ import { initProcessorProfile } from './processor-profile';
 import { initRoom } from './room';
 import { initRoomState } from './room-state';
 import { initSession } from './session';
+import { initTargetCurve } from './target-curve';
 import { initTuning } from './tuning';
 import { initTuningVersion } from './tuning-version';
 import { initUsageBucket } from './usage-bucket';
@@ -27,6 +28,7 @@ export function defineModels(sequelize: Sequelize) {
     Measurement: initMeasurement(sequelize),
     ProcessorProfile: initProcessorProfile(sequelize),
     RoomState: initRoomState(sequelize),
+    TargetCurve: initTargetCurve(sequelize),
   };
   return models;
 }

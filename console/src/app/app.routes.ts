@@ -43,10 +43,28 @@ export const routes: Routes = [
         loadComponent: () => import('./rooms/rooms-page/rooms-page').then((m) => m.RoomsPage),
       },
       {
+        path: 'rooms/new',
+        title: 'New room · Isochron',
+        canActivate: [requireCapability('rooms:view')],
+        loadComponent: () => import('./rooms/room-editor/room-editor-page').then((m) => m.RoomEditorPage),
+      },
+      {
+        path: 'rooms/:roomId/edit',
+        title: 'Edit room · Isochron',
+        canActivate: [requireCapability('rooms:view')],
+        loadComponent: () => import('./rooms/room-editor/room-editor-page').then((m) => m.RoomEditorPage),
+      },
+      {
         path: 'rooms/:roomId',
         title: 'Room · Isochron',
         canActivate: [requireCapability('rooms:view')],
         loadComponent: () => import('./rooms/room-page/room-page').then((m) => m.RoomPage),
+      },
+      {
+        path: 'rooms/:roomId/tunings/:tuningId',
+        title: 'Tuning · Isochron',
+        canActivate: [requireCapability('rooms:view')],
+        loadComponent: () => import('./tunings/tuning-page/tuning-page').then((m) => m.TuningPage),
       },
       {
         path: 'users',

@@ -1,10 +1,10 @@
-import { HttpClient, HttpHeaders, HttpParams } from '@angular/common/http';
+import { HttpClient, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
-import { EMPTY, Observable, expand, reduce } from 'rxjs';
+import { EMPTY, Observable, expand, map, reduce } from 'rxjs';
 import { ListPage } from '../keys/key.model';
-import { Room, Tuning, TuningComparison } from './room.model';
+import { Layout, Room, RoomCreate, RoomUpdate, Tuning } from './room.model';
 
-function allPages<T extends { id: string }>(
+export function allPages<T extends { id: string }>(
   fetchPage: (startingAfter?: string) => Observable<ListPage<T>>,
 ): Observable<T[]> {
   return fetchPage().pipe(
@@ -41,22 +41,17 @@ export class RoomsService {
     );
   }
 
-  /** A new tuning with the same settings, to try a variant without touching the original. */
-  duplicate(tuningId: string, name: string): Observable<Tuning> {
-    return this.http.post<Tuning>(`/v1/tunings/${encodeURIComponent(tuningId)}/duplicate`, { name });
+  create(body: RoomCreate): Observable<Room> {
+    return this.http.post<Room>('/v1/rooms', body);
   }
 
-  compare(leftId: string, rightId: string): Observable<TuningComparison> {
-    const params = new HttpParams().set('left', leftId).set('right', rightId);
-    return this.http.get<TuningComparison>('/v1/tunings/compare', { params });
+  /** Fields given replace the stored ones; stored tunings are not changed. */
+  update(id: string, body: RoomUpdate): Observable<Room> {
+    return this.http.patch<Room>(`/v1/rooms/${encodeURIComponent(id)}`, body);
   }
 
-  /** Coefficient tables for a processor, designed at the tuning's sample rate. */
-  export(tuningId: string, format: 'json' | 'csv'): Observable<Blob> {
-    return this.http.get(`/v1/tunings/${encodeURIComponent(tuningId)}/export`, {
-      params: new HttpParams().set('format', format),
-      headers: new HttpHeaders({ Accept: format === 'csv' ? 'text/csv' : 'application/json' }),
-      responseType: 'blob',
-    });
+  /** The ITU-R BS.2051 layouts (and 9.1.6) the API knows. */
+  layouts(): Observable<Layout[]> {
+    return this.http.get<ListPage<Layout>>('/v1/layouts').pipe(map((page) => page.data));
   }
 }

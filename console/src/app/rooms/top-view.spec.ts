@@ -1,4 +1,5 @@
-import { speakerLayer, topViewChart } from './top-view';
+import { speakerMarkKind as speakerLayer } from '../../../../shared/geometry/speaker-marks';
+import { topViewChart } from './top-view';
 
 // Layer letters follow ITU-R BS.2051-3 loudspeaker labels: M = middle (ear level), U = upper,
 // T = top, B = bottom, LFE = low-frequency effects.
@@ -61,5 +62,28 @@ describe('topViewChart', () => {
     [-0.4, 6.5, -0.4, 7.8].forEach((expected, i) => expect(bounds[i]).toBeCloseTo(expected, 12));
     expect(spec.aspectRatio).toBeCloseTo((6.9 / 8.2) * 1.1, 10);
     expect(spec.summary).toContain('6.10 m wide and 7.40 m long, 4 loudspeakers');
+  });
+});
+
+describe('topViewChart marks', () => {
+  it('rings the loudspeakers outside the permitted range and names them for screen readers', () => {
+    const room = {
+      name: 'Test',
+      dimensions: { widthM: 6, lengthM: 7, heightM: 3 },
+      listener: { x: 3, y: 3.5, z: 1.2 },
+      loudspeakers: [
+        { id: 'M+030', x: 1.8, y: 1.4, z: 1.2 },
+        { id: 'M-030', x: 5.5, y: 3.4, z: 1.2 },
+      ],
+    };
+    const spec = topViewChart(room, [
+      { id: 'M+030', withinTolerance: true },
+      { id: 'M-030', withinTolerance: false },
+    ]);
+    const ring = spec.series.find((series) => series.label === 'Outside the permitted range');
+    expect(ring?.points).toEqual([{ x: 5.5, y: 3.4 }]);
+    expect(ring?.hollow).toBe(true);
+    expect(spec.summary).toContain("Outside the layout's permitted range: M-030.");
+    expect(topViewChart(room, []).series.some((series) => series.hollow)).toBe(false);
   });
 });

@@ -1,29 +1,6 @@
 import type { ChartSeries, ChartSpec } from '../ui/chart/chart-spec';
-import type { Room, RoomLoudspeaker } from './room.model';
-
-/** Where a loudspeaker sits in height, read from its ITU-R BS.2051 label (M, U, T, B, LFE). */
-export type SpeakerLayer = 'middle' | 'upper' | 'bottom' | 'lfe' | 'other';
-
-export function speakerLayer(id: string): SpeakerLayer {
-  if (/^LFE/i.test(id)) return 'lfe';
-  if (/^M[+-]/.test(id)) return 'middle';
-  if (/^[UT][+-]/.test(id)) return 'upper';
-  if (/^B[+-]/.test(id)) return 'bottom';
-  return 'other';
-}
-
-const LAYERS: Array<{
-  layer: SpeakerLayer;
-  label: string;
-  colour: number;
-  style: ChartSeries['pointStyle'];
-}> = [
-  { layer: 'middle', label: 'Ear level', colour: 1, style: 'circle' },
-  { layer: 'upper', label: 'Overhead', colour: 3, style: 'triangle' },
-  { layer: 'bottom', label: 'Below ear level', colour: 4, style: 'rectRot' },
-  { layer: 'lfe', label: 'Subwoofer', colour: 2, style: 'rect' },
-  { layer: 'other', label: 'Other', colour: 6, style: 'circle' },
-];
+import { OUT_OF_RANGE_MARK, SPEAKER_MARKS, speakerMarkKind } from '../../../../shared/geometry/speaker-marks';
+import type { Room, RoomLoudspeaker, SpeakerGeometry } from './room.model';
 
 const MARGIN_M = 0.4;
 
@@ -38,6 +15,7 @@ function metres(value: number): string {
  */
 export function topViewChart(
   room: Pick<Room, 'dimensions' | 'listener' | 'loudspeakers' | 'name'>,
+  geometry: ReadonlyArray<Pick<SpeakerGeometry, 'id' | 'withinTolerance'>> = [],
 ): ChartSpec {
   const { widthM, lengthM } = room.dimensions;
   const outline: ChartSeries = {
@@ -53,21 +31,36 @@ export function topViewChart(
       { x: 0, y: 0 },
     ],
   };
-  const byLayer = (layer: SpeakerLayer): RoomLoudspeaker[] =>
-    room.loudspeakers.filter((speaker) => speakerLayer(speaker.id) === layer);
-  const speakers = LAYERS.flatMap(({ layer, label, colour, style }) => {
-    const members = byLayer(layer);
+  const speakers = SPEAKER_MARKS.flatMap(({ kind, label, seriesColour, shape }) => {
+    const members: RoomLoudspeaker[] = room.loudspeakers.filter(
+      (speaker) => speakerMarkKind(speaker.id) === kind,
+    );
     if (!members.length) return [];
     return [
       {
         label,
-        colour,
-        pointStyle: style,
+        colour: seriesColour,
+        pointStyle: shape,
         points: members.map((speaker) => ({ x: speaker.x, y: speaker.y })),
         pointLabels: members.map((speaker) => speaker.id),
       } satisfies ChartSeries,
     ];
   });
+  const outside = new Set(geometry.filter((g) => g.withinTolerance === false).map((g) => g.id));
+  const outOfRange: ChartSeries[] = outside.size
+    ? [
+        {
+          label: OUT_OF_RANGE_MARK.label,
+          colour: OUT_OF_RANGE_MARK.seriesColour,
+          pointStyle: 'circle',
+          pointRadius: 12,
+          hollow: true,
+          points: room.loudspeakers
+            .filter((speaker) => outside.has(speaker.id))
+            .map((speaker) => ({ x: speaker.x, y: speaker.y })),
+        },
+      ]
+    : [];
   const listener: ChartSeries = {
     label: 'Listening position',
     colour: 5,
@@ -90,10 +83,11 @@ export function topViewChart(
     aspectRatio: Math.min(1.8, Math.max(0.6, (spanX / spanY) * 1.1)),
     xTitle: 'x (m), left wall to right wall',
     yTitle: 'y (m), front wall to back wall',
-    series: [outline, ...speakers, listener],
+    series: [outline, ...speakers, ...outOfRange, listener],
     summary:
       `Floor plan of ${room.name} seen from above, front wall at the top: ${metres(widthM)} wide and ` +
       `${metres(lengthM)} long, ${room.loudspeakers.length} loudspeakers, listening position at x ` +
-      `${metres(room.listener.x)}, y ${metres(room.listener.y)}.`,
+      `${metres(room.listener.x)}, y ${metres(room.listener.y)}.` +
+      (outside.size ? ` Outside the layout's permitted range: ${[...outside].join(', ')}.` : ''),
   };
 }

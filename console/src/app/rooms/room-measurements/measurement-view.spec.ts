@@ -121,6 +121,21 @@ describe('eqFitRequest', () => {
     });
   });
 
+  it('passes the room volume and a measured reverberation time for the transition frequency', () => {
+    expect(
+      eqFitRequest(measured, limits, 48000, false, { volumeM3: 137.7, reverberationTimeS: 0.31 }).room,
+    ).toEqual({
+      volumeM3: 137.7,
+      reverberationTimeS: 0.31,
+    });
+    expect(
+      eqFitRequest(measured, limits, 48000, false, { volumeM3: 137.7, reverberationTimeS: null }).room,
+    ).toEqual({
+      volumeM3: 137.7,
+    });
+    expect(eqFitRequest(measured, limits, 48000, false).room).toBeUndefined();
+  });
+
   it('allows boosts only up to the room limit, and none when the room has no boost limit', () => {
     expect(eqFitRequest(measured, limits, 48000, true).maxBoostDb).toBe(3);
     expect(eqFitRequest(measured, null, 96000, true)).toMatchObject({

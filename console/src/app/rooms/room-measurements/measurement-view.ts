@@ -125,7 +125,8 @@ export interface RoomLimits {
 
 /**
  * The `POST /v1/eq/fit` body for a measured response in a room: the room's band count and cut limit,
- * cuts only unless boosts are allowed (then up to the room's boost limit), toward a flat target.
+ * cuts only unless boosts are allowed (then up to the room's boost limit), toward a flat target, and the
+ * room's volume and measured reverberation time so the fit corrects only up to its transition frequency.
  * Points the API would refuse (non-finite, out of range) are dropped and a longer response is thinned
  * evenly to the API's point cap, keeping both ends.
  */
@@ -134,6 +135,7 @@ export function eqFitRequest(
   limits: RoomLimits | null,
   sampleRateHz: number,
   allowBoost: boolean,
+  room: { volumeM3: number; reverberationTimeS?: number | null } | null = null,
 ): EqFitRequest {
   const points = measured.frequenciesHz.flatMap((f, i) => {
     const db = measured.magnitudeDb[i];
@@ -153,6 +155,12 @@ export function eqFitRequest(
     maxBands: limits?.eqBandsPerChannel ?? 8,
     maxBoostDb: allowBoost ? (limits?.eqMaxBoostDb ?? 0) : 0,
     maxCutDb: limits?.eqMaxCutDb ?? 12,
+    ...(room && {
+      room: {
+        volumeM3: room.volumeM3,
+        ...(room.reverberationTimeS != null && { reverberationTimeS: room.reverberationTimeS }),
+      },
+    }),
   };
 }
 

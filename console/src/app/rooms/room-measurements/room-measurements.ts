@@ -131,7 +131,13 @@ export class RoomMeasurements {
     params: () => {
       const average = this.average();
       if (!average) return undefined;
-      return eqFitRequest(average, this.room().limits, this.room().sampleRateHz, this.allowBoost());
+      const { widthM, lengthM, heightM } = this.room().dimensions;
+      // The selected impulse response's T30 (else T20) sets the transition frequency; 0.3 s is assumed without one.
+      const decay = this.selected()?.channel === average.channel ? this.analysis()?.decay : undefined;
+      return eqFitRequest(average, this.room().limits, this.room().sampleRateHz, this.allowBoost(), {
+        volumeM3: widthM * lengthM * heightM,
+        reverberationTimeS: decay?.t30S ?? decay?.t20S ?? null,
+      });
     },
     stream: ({ params }) => this.service.fitEq(params),
   });

@@ -4,27 +4,43 @@ import { MatButtonModule } from '@angular/material/button';
 import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
+import { notBlank } from '../../tunings/tuning-details-dialog';
+
+export interface NameDialogData {
+  title: string;
+  /** The name offered. */
+  name: string;
+  lead?: string;
+  /** The button's label (default "Duplicate"). */
+  action?: string;
+}
 
 /** Asks for the name of the copy; closes with the name, or nothing on cancel. */
 @Component({
   selector: 'iso-duplicate-dialog',
   imports: [MatButtonModule, MatDialogModule, MatFormFieldModule, MatInputModule, ReactiveFormsModule],
   template: `
-    <h2 mat-dialog-title>Duplicate “{{ source }}”</h2>
+    <h2 mat-dialog-title>{{ data.title }}</h2>
     <form [formGroup]="form" (ngSubmit)="confirm()" novalidate>
       <mat-dialog-content>
-        <p class="lead">The copy starts at version 1 with the same settings; the original stays as it is.</p>
+        <p class="lead">
+          {{
+            data.lead ?? 'The copy starts at version 1 with the same settings; the original stays as it is.'
+          }}
+        </p>
         <mat-form-field class="full">
-          <mat-label>Name of the copy</mat-label>
+          <mat-label>{{ data.action ? 'Name' : 'Name of the copy' }}</mat-label>
           <input matInput formControlName="name" maxlength="120" required data-testid="duplicate-name" />
           @if (form.controls.name.invalid) {
-            <mat-error>Give the copy a name.</mat-error>
+            <mat-error>Give it a name.</mat-error>
           }
         </mat-form-field>
       </mat-dialog-content>
       <mat-dialog-actions align="end">
         <button mat-button type="button" mat-dialog-close>Cancel</button>
-        <button mat-flat-button type="submit" data-testid="confirm-duplicate">Duplicate</button>
+        <button mat-flat-button type="submit" data-testid="confirm-duplicate">
+          {{ data.action ?? 'Duplicate' }}
+        </button>
       </mat-dialog-actions>
     </form>
   `,
@@ -40,13 +56,15 @@ import { MatInputModule } from '@angular/material/input';
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class DuplicateDialog {
-  protected readonly source = inject<string>(MAT_DIALOG_DATA);
+  protected readonly data = inject<NameDialogData>(MAT_DIALOG_DATA);
   private readonly dialogRef = inject<MatDialogRef<DuplicateDialog, string>>(MatDialogRef);
   protected readonly form = inject(NonNullableFormBuilder).group({
-    name: [`${this.source} (variant)`.slice(0, 120), [Validators.required, Validators.maxLength(120)]],
+    name: [this.data.name.slice(0, 120), [Validators.required, notBlank, Validators.maxLength(120)]],
   });
 
   protected confirm(): void {
+    // A name of spaces only stays in the dialog with its message instead of closing on nothing.
+    this.form.markAllAsTouched();
     if (this.form.valid) this.dialogRef.close(this.form.getRawValue().name.trim());
   }
 }

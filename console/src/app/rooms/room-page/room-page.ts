@@ -9,7 +9,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatTableModule } from '@angular/material/table';
-import { RouterLink } from '@angular/router';
+import { Router, RouterLink } from '@angular/router';
 import { filter, switchMap } from 'rxjs';
 import { formatDateTime, formatQuantity, formatSigned } from '../../format/format';
 import { errorMessage } from '../../problem/http-problem';
@@ -19,11 +19,14 @@ import { RoomsService } from '../rooms.service';
 import { RoomMeasurements } from '../room-measurements/room-measurements';
 import { topViewChart } from '../top-view';
 import { DuplicateDialog } from './duplicate-dialog';
+import { ComparisonView } from '../../tunings/comparison/comparison-view';
+import { TuningsService } from '../../tunings/tunings.service';
 
 @Component({
   selector: 'iso-room-page',
   imports: [
     ChartView,
+    ComparisonView,
     MatButtonModule,
     MatFormFieldModule,
     MatIconModule,
@@ -40,8 +43,10 @@ import { DuplicateDialog } from './duplicate-dialog';
 })
 export class RoomPage {
   private readonly rooms = inject(RoomsService);
+  private readonly tuningsApi = inject(TuningsService);
   private readonly dialog = inject(MatDialog);
   private readonly snackBar = inject(MatSnackBar);
+  private readonly router = inject(Router);
 
   readonly roomId = input.required<string>();
 
@@ -67,7 +72,7 @@ export class RoomPage {
   );
   protected readonly topView = computed(() => {
     const room = this.room();
-    return room ? topViewChart(room) : null;
+    return room ? topViewChart(room, room.geometry.speakers) : null;
   });
   protected readonly channels = computed(() => {
     const room = this.room();
@@ -75,7 +80,12 @@ export class RoomPage {
     const names = new Map(room.loudspeakers.map((speaker) => [speaker.id, speaker.name ?? '']));
     return room.geometry.speakers.map((speaker) => ({ ...speaker, name: names.get(speaker.id) ?? '' }));
   });
-  protected readonly reportUrl = computed(() => `/v1/rooms/${encodeURIComponent(this.roomId())}/report`);
+  /** The printable report of one tuning at the version listed (the room's latest-changed one without). */
+  protected reportUrl(tuning?: Tuning): string {
+    const base = `/v1/rooms/${encodeURIComponent(this.roomId())}/report`;
+    if (!tuning) return base;
+    return `${base}?${new URLSearchParams({ tuningId: tuning.id, version: String(tuning.version) })}`;
+  }
 
   protected readonly channelColumns = [
     'id',
@@ -87,7 +97,6 @@ export class RoomPage {
     'tolerance',
   ];
   protected readonly tuningColumns = ['name', 'version', 'origin', 'channels', 'updated', 'actions'];
-  protected readonly compareColumns = ['id', 'delay', 'trim', 'polarity', 'highPass', 'eq', 'response'];
 
   protected readonly left = signal<string>('');
   protected readonly right = signal<string>('');
@@ -103,13 +112,49 @@ export class RoomPage {
     this.tuningsResource.reload();
   }
 
-  protected duplicate(tuning: Tuning): void {
+  /** A first tuning with every loudspeaker of the room at neutral settings, opened for editing. */
+  protected newTuning(): void {
+    const room = this.room();
+    if (!room) return;
     this.dialog
-      .open(DuplicateDialog, { data: tuning.name, width: '460px', maxWidth: '94vw' })
+      .open(DuplicateDialog, {
+        data: {
+          title: 'New tuning',
+          lead: 'Every loudspeaker starts with no delay, no trim and no EQ.',
+          name: 'Tuning 1',
+          action: 'Create',
+        },
+        width: '460px',
+        maxWidth: '94vw',
+      })
       .afterClosed()
       .pipe(
         filter((name): name is string => Boolean(name)),
-        switchMap((name) => this.rooms.duplicate(tuning.id, name)),
+        switchMap((name) =>
+          this.tuningsApi.create(room.id, {
+            name,
+            sampleRateHz: room.sampleRateHz,
+            channels: room.loudspeakers.map((speaker) => ({ id: speaker.id, delayMs: 0, trimDb: 0 })),
+          }),
+        ),
+      )
+      .subscribe({
+        next: (tuning) => void this.router.navigate(['/rooms', room.id, 'tunings', tuning.id]),
+        error: (error: unknown) => this.snackBar.open(errorMessage(error), 'Dismiss', { duration: 10000 }),
+      });
+  }
+
+  protected duplicate(tuning: Tuning): void {
+    this.dialog
+      .open(DuplicateDialog, {
+        data: { name: `${tuning.name} (variant)`, title: `Duplicate “${tuning.name}”` },
+        width: '460px',
+        maxWidth: '94vw',
+      })
+      .afterClosed()
+      .pipe(
+        filter((name): name is string => Boolean(name)),
+        switchMap((name) => this.tuningsApi.duplicate(tuning.id, name)),
       )
       .subscribe({
         next: (copy) => {
@@ -121,7 +166,7 @@ export class RoomPage {
   }
 
   protected export(tuning: Tuning, format: 'json' | 'csv'): void {
-    this.rooms.export(tuning.id, format).subscribe({
+    this.tuningsApi.export(tuning.id, format).subscribe({
       next: (blob) => {
         const url = URL.createObjectURL(blob);
         const link = document.createElement('a');
@@ -137,7 +182,7 @@ export class RoomPage {
   protected compare(): void {
     if (!this.left() || !this.right()) return;
     this.comparing.set(true);
-    this.rooms.compare(this.left(), this.right()).subscribe({
+    this.tuningsApi.compare({ tuningId: this.left() }, { tuningId: this.right() }).subscribe({
       next: (result) => {
         this.comparing.set(false);
         this.comparison.set(result);

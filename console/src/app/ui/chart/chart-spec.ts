@@ -45,4 +45,6 @@ export interface ChartSeries {
   pointLabels?: string[];
   pointRadius?: number;
   pointStyle?: 'circle' | 'rect' | 'triangle' | 'crossRot' | 'rectRot';
+  /** Scatter points drawn as outlines (a ring around other marks). */
+  hollow?: boolean;
 }

@@ -70,10 +70,12 @@ function toConfig(spec: ChartSpec, palette: Palette): ChartConfiguration {
       backgroundColor:
         kind === 'bar'
           ? withAlpha(colour, 0.75)
-          : kind === 'scatter' && !series.showLine
-            ? colour
-            : withAlpha(colour, 0.15),
-      borderWidth: kind === 'bar' ? 0 : 2,
+          : kind === 'scatter' && series.hollow
+            ? 'transparent'
+            : kind === 'scatter' && !series.showLine
+              ? colour
+              : withAlpha(colour, 0.15),
+      borderWidth: kind === 'bar' ? 0 : series.hollow ? 3 : 2,
       borderDash: series.dashed ? [6, 4] : undefined,
       fill: series.fill ?? false,
       pointRadius: series.pointRadius ?? (kind === 'scatter' ? 5 : 0),

@@ -1,0 +1,126 @@
+import type { Page } from 'playwright-core';
+import {
+  type ConsoleBrowser,
+  PHONE,
+  contrastProblems,
+  horizontalOverflow,
+  launchBrowser,
+  screenshot,
+} from './support/browser';
+import { openPage, signIn } from './support/console-pages';
+import { type RunningService, startService } from './support/service';
+
+// Creating a room from a layout in the console: dimensions, listener, loudspeakers placed at the nominal
+// angles in one step and adjusted in the table, limits, the API's field errors in place, then a tuning.
+let service: RunningService;
+
+beforeAll(async () => {
+  service = await startService();
+});
+
+afterAll(async () => {
+  await service?.stop();
+});
+
+async function withBrowser(
+  colorScheme: 'light' | 'dark',
+  run: (page: Page, browser: ConsoleBrowser) => Promise<void>,
+): Promise<void> {
+  const browser = await launchBrowser(service.origin, colorScheme);
+  browser.allowFailure('/auth/session', 401);
+  try {
+    const page = await browser.newPage();
+    await signIn(page, service.origin, 'dev@kestrel.example');
+    await run(page, browser);
+    expect(browser.faults()).toEqual([]);
+  } finally {
+    await browser.close();
+  }
+}
+
+const editor = (page: Page) => page.getByTestId('room-editor');
+
+it('creates a 5.1 room from its layout, adjusts one loudspeaker and starts a tuning', async () => {
+  await withBrowser('light', async (page, browser) => {
+    await openPage(page, service.origin, '/rooms', 'Rooms');
+    await page.getByTestId('new-room').click();
+    await page.getByRole('heading', { level: 1, name: 'New room' }).waitFor();
+    await editor(page).getByTestId('room-name').fill('Edit suite B');
+    await editor(page).getByTestId('room-layout').click();
+    await page.getByRole('option', { name: /0\+5\+0 · 5\.1/ }).click();
+    await editor(page).getByTestId('room-widthM').fill('4.2');
+    await editor(page).getByTestId('room-lengthM').fill('5');
+    await editor(page).getByTestId('room-heightM').fill('2.7');
+    await editor(page).getByTestId('listener-x').fill('2.1');
+    await editor(page).getByTestId('listener-y').fill('2.6');
+    await editor(page).getByTestId('place-distance').fill('1.8');
+    await editor(page).getByTestId('place-speakers').click();
+    await page.getByText(/6 loudspeakers placed at the layout's nominal angles/).waitFor();
+    const left = editor(page).getByTestId('speaker-M+030');
+    // Placed at the nominal +30° at 1.8 m: x = 2.1 − 1.8·sin 30° = 1.2 m (hand-computed).
+    expect(await left.getByTestId('coord-x').inputValue()).toBe('1.2');
+    await left.getByText('Within range').waitFor();
+    // Moved to 15° off the front: outside BS.2051's permitted 30° for system B, ringed on the plan.
+    await left.getByTestId('coord-x').fill('1.65');
+    await left.getByText('Out of range').waitFor();
+    expect(
+      await editor(page).getByTestId('editor-top-view').locator('canvas').getAttribute('aria-label'),
+    ).toMatch(/Outside the layout's permitted range: M\+030/);
+    await left.getByTestId('coord-x').fill('1.2');
+    await editor(page).getByTestId('limit-delayMaxMs').fill('50');
+    await screenshot(page, 'room-editor-new');
+
+    // A loudspeaker outside the room: the API's 422 lands on that loudspeaker's field.
+    browser.allowFailure('/v1/rooms', 422);
+    await left.getByTestId('coord-y').fill('-0.5');
+    await editor(page).getByTestId('save-room').click();
+    await editor(page).getByTestId('room-save-problem').waitFor();
+    await left.locator('mat-error').first().waitFor();
+    await screenshot(page, 'room-editor-refused');
+    await left.getByTestId('coord-y').fill('1.04');
+    await editor(page).getByTestId('save-room').click();
+    await page.getByRole('heading', { level: 1, name: 'Edit suite B' }).waitFor();
+    await page.getByText('0+5+0').first().waitFor();
+
+    await page.getByTestId('new-tuning').click();
+    await page.getByRole('dialog').getByTestId('duplicate-name').fill('First pass');
+    await page.getByRole('dialog').getByTestId('confirm-duplicate').click();
+    await page.getByRole('heading', { level: 1, name: 'First pass' }).waitFor();
+    await page
+      .getByTestId('tuning-channels')
+      .getByRole('cell', { name: /M\+110/ })
+      .waitFor();
+    await page
+      .getByTestId('channel-editor')
+      .getByText(/Room limits: delay up to 50.0/)
+      .waitFor();
+  });
+});
+
+it('edits the demo room, keyboard only, and fits a phone in the dark scheme', async () => {
+  await withBrowser('dark', async (page) => {
+    await openPage(page, service.origin, '/rooms', 'Rooms');
+    await page.getByRole('link', { name: /Stage 3/ }).click();
+    await page.getByTestId('edit-room').focus();
+    await page.keyboard.press('Enter');
+    await page.getByRole('heading', { level: 1, name: 'Edit Stage 3' }).waitFor();
+    const row = editor(page).getByTestId('speaker-U-135');
+    await row.getByText('Within range').waitFor();
+    await row.getByTestId('coord-x').focus();
+    await page.keyboard.press('Control+A');
+    await page.keyboard.type('4.2');
+    await page.keyboard.press('Tab');
+    expect(await page.evaluate('document.activeElement?.dataset?.testid')).toBe('coord-y');
+    expect(await contrastProblems(page)).toEqual([]);
+    await editor(page).getByTestId('save-room').focus();
+    await page.keyboard.press('Enter');
+    await page.getByRole('heading', { level: 1, name: 'Stage 3' }).waitFor();
+
+    await page.setViewportSize(PHONE);
+    await page.getByTestId('edit-room').click();
+    await page.getByRole('heading', { level: 1, name: 'Edit Stage 3' }).waitFor();
+    await editor(page).getByTestId('editor-top-view').locator('canvas').waitFor();
+    expect(await horizontalOverflow(page)).toEqual([]);
+    await screenshot(page, 'phone-dark-room-editor');
+  });
+});
