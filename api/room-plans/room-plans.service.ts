@@ -5,6 +5,7 @@ import type { Database } from '../db/database';
 import type { Room } from '../db/models/room';
 import { calculateAt } from '../http/problem';
 import { findRoomFor, type Caller } from '../rooms/room-access';
+import { TargetCurvesService } from '../target-curves/target-curves.service';
 import { profileOfRoom, stalenessOf } from '../rooms/room-state-store';
 import { createTuning, tuningDto } from '../tunings/tuning-store';
 
@@ -25,6 +26,12 @@ export class RoomPlansService {
   ): Promise<StoredRoomPlan & { tuning?: TuningView }> {
     const room = await findRoomFor(caller, this.db.models, roomId);
     const profile = await profileOfRoom(this.db.models, room);
+    const targets = body.targets && {
+      ...body.targets,
+      curve: await calculateAtAsync(() =>
+        new TargetCurvesService(this.db).resolve(caller, body.targets?.curve, '/targets/curve'),
+      ),
+    };
     const rows = await this.db.models.Measurement.findAll({
       where: { roomId: room.id },
       order: [['id', 'ASC']],
@@ -41,7 +48,7 @@ export class RoomPlansService {
           result: m.result,
         })),
         {
-          targets: body.targets,
+          targets,
           temperatureC: body.temperatureC,
           sampleRateHz: body.sampleRateHz,
           bassManaged: body.bassManaged,
@@ -60,7 +67,7 @@ export class RoomPlansService {
         notes: body.notes ?? null,
         settings: planToTuningSettings(plan),
         origin: 'plan',
-        promise: promiseOfPlan(plan, body.targets?.curve ?? null),
+        promise: promiseOfPlan(plan, targets?.curve ?? null),
       },
       () => '/body/store',
     );
@@ -78,4 +85,15 @@ function storedRoomOf(room: Room) {
     limits: room.limits,
     sampleRateHz: room.sampleRateHz,
   };
+}
+
+/** Like calculateAt('/body', …) for an asynchronous step: a core field error becomes a /body pointer. */
+async function calculateAtAsync<T>(step: () => Promise<T>): Promise<T> {
+  try {
+    return await step();
+  } catch (error) {
+    return calculateAt('/body', () => {
+      throw error;
+    });
+  }
 }
