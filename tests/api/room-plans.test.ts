@@ -99,7 +99,8 @@ describe('POST /v1/rooms/{roomId}/plans', () => {
       micPositions: ['MLP', '2'],
       kind: 'frequencyResponse',
     });
-    expect(left.eq.bands.length).toBeGreaterThan(0);
+    // The averaged response was fitted (how many bands it needs is the fitter's business).
+    expect(left.eq.residualRmsDb).not.toBeNull();
     expect(channel(res.body, 'M-030').sources.response.source).toBe('none');
     expect(res.body.subwoofer.integration).toMatchObject({ source: 'geometry', measurementIds: [] });
     expect(res.body.subwoofer.integration.reason).toMatch(/phase/);
@@ -334,5 +335,5 @@ describe('subwoofer integration from measured complex responses', () => {
     const lfe = stored.body.tuning.channels.find((ch: { id: string }) => ch.id === 'LFE1');
     expect(lfe.polarity).toBe('inverted');
     expect(lfe.delayMs).toBeCloseTo((integration.chosen.delaySamples / fs) * 1000, 12);
-  });
+  }, 180_000);
 });
