@@ -44,7 +44,7 @@ type Channel = {
   trimDb: number;
   delayMs: number;
   sources: { delay: Source; level: Source; response: Source };
-  eq: { bands: unknown[] };
+  eq: { bands: unknown[]; residualRmsDb: unknown };
 };
 const channel = (body: { channels: Channel[] }, id: string) =>
   body.channels.find((ch) => ch.id === id) as Channel;
