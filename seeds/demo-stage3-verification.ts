@@ -227,7 +227,7 @@ export async function seedDemoStage3Verification(services: Services): Promise<vo
       microphone: 'Demo measurement microphone, serial 0001 (invented)',
       positions: ['MLP'],
       notes:
-        'Demo data: an invented sign-off of the invented "after" measurements. The left channel keeps a cancellation near 110 Hz that cut-only EQ cannot fill; accepted, the loudspeaker position is fixed by the console.',
+        'Demo data: an invented sign-off of the invented "after" measurements. Signed with the cancellations that cut-only EQ cannot fill noted (the left channel near 115 Hz, the subwoofer near 71 Hz): the loudspeaker positions are fixed by the console and the machine-room wall.',
       verdict,
       signedAt: '2026-03-03T17:30:00.000Z',
     };
