@@ -38,12 +38,12 @@ const RESPONSE_LEVEL_DB = 82;
 
 /** A two-channel capture: the loudspeaker's impulse (with a short invented tail) and the loopback's. */
 function capture(arrivalMs: number): Buffer {
-  const n = Math.round(0.25 * IR_RATE_HZ);
+  const n = Math.round(0.08 * IR_RATE_HZ);
   const speaker = new Float64Array(n);
   const loop = new Float64Array(n);
   const at = Math.round((arrivalMs * IR_RATE_HZ) / 1000);
   speaker[at] = 0.5;
-  for (let i = at + 1; i < n; i++) speaker[i] = 2e-4 * Math.sin(0.37 * i) * Math.exp(-(i - at) / 2400);
+  for (let i = at + 1; i < n; i++) speaker[i] = 2e-4 * Math.sin(0.37 * i) * Math.exp(-(i - at) / 600);
   loop[Math.round((LOOPBACK_MS * IR_RATE_HZ) / 1000)] = 0.8;
   const wav = new WaveFile();
   wav.fromScratch(2, IR_RATE_HZ, '32f', [Array.from(speaker), Array.from(loop)]);
