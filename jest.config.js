@@ -3,7 +3,7 @@ module.exports = {
   testEnvironment: 'node',
   roots: ['<rootDir>/shared', '<rootDir>/api', '<rootDir>/console/src', '<rootDir>/tests'],
   testMatch: ['**/*.spec.ts', '**/*.test.ts'],
-  testPathIgnorePatterns: ['/node_modules/', '/dist/', '<rootDir>/tests/browser/'],
+  testPathIgnorePatterns: ['/node_modules/', '/dist/', '<rootDir>/tests/browser/', '<rootDir>/tests/scaled/'],
   transform: {
     '^.+\\.ts$': [
       '@swc/jest',

@@ -11,7 +11,8 @@ import { createUserRateLimiter } from './rate-limit/user-ceiling';
 import { getContract } from './http/validate';
 import { storageProblem } from './db/storage-errors';
 import { docsRouter } from './service/docs.router';
-import { healthRouter } from './service/health.router';
+import { healthRouter, sharedStateProblem } from './service/health.router';
+import { isRedisFailure } from './shared-state/shared-state';
 import { sessionRouter } from './session/session.router';
 import { v1Router } from './v1-router';
 import type { Services } from './services';
@@ -46,15 +47,16 @@ export function createApp(services: Services): Express {
   );
   app.use(express.json({ limit: JSON_BODY_LIMIT, strict: true }));
 
-  app.use(healthRouter(services.db));
+  app.use(healthRouter(services));
   app.use(docsRouter(getContract().document));
   app.use('/auth', sessionRouter(services));
 
   app.use(
     '/v1',
     authenticate(services.keys, services.sessionPrincipal),
-    createRateLimiter(services),
-    createUserRateLimiter(services),
+    // Counted in this process, or in Redis shared by every instance (services.shared).
+    createRateLimiter(services, { store: services.shared.rateLimitStore('key') }),
+    createUserRateLimiter(services, { store: services.shared.rateLimitStore('user') }),
     services.usage.middleware,
     v1Router(services),
   );
@@ -62,7 +64,12 @@ export function createApp(services: Services): Express {
 
   serveConsole(app, config.consoleDir);
   app.use(notFoundHandler);
-  app.use(problemHandler(services.logger, storageProblem));
+  app.use(
+    problemHandler(
+      services.logger,
+      (err) => storageProblem(err) ?? (isRedisFailure(err) ? sharedStateProblem() : null),
+    ),
+  );
   return app;
 }
 

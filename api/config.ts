@@ -35,6 +35,15 @@ export interface Config {
   databaseBusyTimeoutMs: number;
   /** On SIGTERM, how long requests in flight may take before their connections are cut. */
   shutdownDeadlineMs: number;
+  /**
+   * Redis (`redis://…`) shared by every instance: rate limits, sign-in throttles, console sessions,
+   * key-cache invalidation and the usage buffer. Null keeps all of them in this process's memory.
+   */
+  redisUrl: string | null;
+  /** Prefix of every Redis key, so several deployments can share one Redis server. */
+  redisKeyPrefix: string;
+  /** Most PostgreSQL connections one instance holds open (ignored on SQLite). */
+  databasePoolMax: number;
   logLevel: string;
 }
 
@@ -96,13 +105,42 @@ function smtpUrl(env: NodeJS.ProcessEnv): string | null {
   return raw;
 }
 
-/** Path of the SQLite file named by a `sqlite:` URL, or null for an in-memory database. */
+/** `postgres://` and `postgresql://` name a PostgreSQL database; everything else must be `sqlite:`. */
+export const isPostgresUrl = (databaseUrl: string): boolean => /^postgres(ql)?:\/\//.test(databaseUrl);
+
+/** The URL without its password, for logs and messages. */
+export function redactUrl(url: string): string {
+  try {
+    const parsed = new URL(url);
+    if (parsed.password) parsed.password = '***';
+    return parsed.toString();
+  } catch {
+    return url.replace(/\/\/[^@/]*@/, '//***@');
+  }
+}
+
+/**
+ * Path of the SQLite file named by a `sqlite:` URL, or null for an in-memory database or a PostgreSQL
+ * URL (which has no file).
+ */
 export function sqliteStorage(databaseUrl: string): string | null {
+  if (isPostgresUrl(databaseUrl)) return null;
   const match = /^sqlite:(.*)$/.exec(databaseUrl);
-  if (!match) throw new ConfigError(`DATABASE_URL must be a sqlite: URL; got "${databaseUrl}"`);
+  if (!match) {
+    // The URL may carry a password: never echo it.
+    throw new ConfigError('DATABASE_URL must be a sqlite: or postgres:// URL');
+  }
   const rest = match[1].replace(/^\/\/(?=\/)/, '');
   if (rest === ':memory:' || rest === '') return null;
   return path.resolve(projectRoot, rest);
+}
+
+function redisUrl(env: NodeJS.ProcessEnv): string | null {
+  const raw = env.REDIS_URL;
+  if (!raw) return null;
+  if (!/^rediss?:\/\/[^\s]+$/.test(raw))
+    throw new ConfigError('REDIS_URL must be a redis:// or rediss:// URL');
+  return raw;
 }
 
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
@@ -113,7 +151,12 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
   const environment = nodeEnv as Environment;
   const databaseUrl = env.DATABASE_URL || 'sqlite:data/isochron.sqlite';
   const storage = sqliteStorage(databaseUrl);
-  const secretStore = storage ? path.join(path.dirname(storage), 'secrets.json') : null;
+  // A PostgreSQL database has no folder of its own: generated secrets go to the project's data folder.
+  const secretStore = storage
+    ? path.join(path.dirname(storage), 'secrets.json')
+    : isPostgresUrl(databaseUrl)
+      ? path.join(projectRoot, 'data', 'secrets.json')
+      : null;
   const port = integer(env, 'PORT', 8080, 0, 65535);
   return {
     env: environment,
@@ -133,6 +176,9 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     usageFlushIntervalMs: integer(env, 'USAGE_FLUSH_INTERVAL_MS', 5000, 100, 3_600_000),
     databaseBusyTimeoutMs: integer(env, 'DATABASE_BUSY_TIMEOUT_MS', 2000, 0, 60_000),
     shutdownDeadlineMs: integer(env, 'SHUTDOWN_DEADLINE_MS', 10_000, 0, 600_000),
+    redisUrl: redisUrl(env),
+    redisKeyPrefix: env.REDIS_KEY_PREFIX || 'isochron:',
+    databasePoolMax: integer(env, 'DATABASE_POOL_MAX', 10, 1, 1000),
     logLevel: env.LOG_LEVEL || (environment === 'test' ? 'silent' : 'info'),
   };
 }

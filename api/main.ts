@@ -9,7 +9,8 @@ import { closeServices, createServices } from './services';
 async function main(): Promise<void> {
   const config = loadConfig();
   const services = await createServices(config);
-  if (config.seedDemoData) await loadDemoData(services);
+  // Instances starting together on one PostgreSQL database: one seeds, the others find it filled.
+  if (config.seedDemoData) await services.db.exclusively(() => loadDemoData(services));
   const app = createApp(services);
   const server = app.listen(config.port, (error?: Error) => {
     if (error) {

@@ -6,6 +6,7 @@ import { createLogger, type Logger } from './logger';
 import { createMailer, type Mailer } from './mail';
 import { createConsoleSessions, type ConsoleSessions } from './session';
 import { createUsageMeter, type UsageMeter } from './usage/usage-meter';
+import { createSharedState, type SharedState } from './shared-state/shared-state';
 
 /** What the routers need, built once per process (or per test). */
 export interface Services {
@@ -21,6 +22,8 @@ export interface Services {
   sessions: ConsoleSessions;
   /** Counts `/v1` calls in memory and writes them in batches; flushed on close. */
   usage: UsageMeter;
+  /** What instances share: in this process's memory, or in Redis when `REDIS_URL` is set. */
+  shared: SharedState;
   /** Work to run on shutdown, in order, before the database closes (flushing metered usage...). */
   onClose: Array<() => Promise<void>>;
 }
@@ -34,16 +37,29 @@ export async function createServices(config: Config): Promise<Services> {
         { attempt, err: (err as Error).message },
         'database busy (another process writing); retrying',
       ),
+    poolMax: config.databasePoolMax,
   });
+  let shared: SharedState;
+  try {
+    shared = await createSharedState({ redisUrl: config.redisUrl, prefix: config.redisKeyPrefix, logger });
+  } catch (err) {
+    await db.close();
+    throw err;
+  }
   const mail = await createMailer(config, logger);
   logger.info(`mail goes to ${mail.description}`);
-  const sessions = createConsoleSessions({ config, db });
-  const usage = createUsageMeter(db, config, logger);
+  const sessions = createConsoleSessions({ config, db, shared });
+  const usage = createUsageMeter(db, config, logger, shared);
+  const keys = new KeyStore(db.models, config.keyHashSecret);
+  // A revocation or role change anywhere (any instance, the command line) empties every instance's cache.
+  keys.broadcast = () => shared.publishKeyChange();
+  shared.onKeyChange(() => keys.dropCache());
   return {
     config,
     db,
     logger,
-    keys: new KeyStore(db.models, config.keyHashSecret),
+    shared,
+    keys,
     sessionPrincipal: sessions.principal,
     mail,
     sessions,
@@ -54,5 +70,6 @@ export async function createServices(config: Config): Promise<Services> {
 
 export async function closeServices(services: Services): Promise<void> {
   for (const task of services.onClose) await task();
+  await services.shared.close();
   await services.db.close();
 }

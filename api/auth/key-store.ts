@@ -20,9 +20,10 @@ const CACHE_TTL_MS = 1000;
 
 /**
  * Finds the key behind a bearer token; a disabled user's keys are refused like revoked ones. Lookups
- * are cached for a second so that a burst of calls does not hit SQLite once per request; changes made
- * in this process (revoke, edit) invalidate the cache at once, and changes made by another process (the
- * operator command line) or to the owner (disabling) are seen within a second.
+ * are cached for a second so that a burst of calls does not hit the database once per request; changes
+ * made in this process (revoke, edit, a user's role or status) invalidate the cache at once. With Redis
+ * the change is published and every instance drops its cache when it hears it; without, another
+ * process sees it within the second.
  */
 export class KeyStore {
   private readonly cache = new Map<string, { key: ActiveKey | null; at: number }>();
@@ -99,8 +100,22 @@ export class KeyStore {
     };
   }
 
-  /** Call after revoking or editing a key, or changing its owner, so the next request sees the change. */
-  invalidate(): void {
+  /** Tells every instance to drop its cache (set by the services: in memory or through Redis). */
+  broadcast: (() => Promise<void>) | null = null;
+
+  /**
+   * Call after revoking or editing a key, or changing its owner, so the next request sees the change
+   * here and, once the promise resolves, in every other instance too.
+   */
+  async invalidate(): Promise<void> {
+    this.dropCache();
+    // The change is committed already; if it cannot be announced, the others still see it within the
+    // cache's second, so the caller's answer stands.
+    if (this.broadcast) await this.broadcast().catch(() => undefined);
+  }
+
+  /** Empties this instance's cache (a change announced by any instance). */
+  dropCache(): void {
     this.generation += 1;
     this.cache.clear();
     this.inFlight.clear();

@@ -14,6 +14,27 @@ const FAILURES: Record<string, StorageFailure> = {
   SQLITE_IOERR: 'unavailable',
   SQLITE_CORRUPT: 'unavailable',
   SQLITE_NOTADB: 'unavailable',
+  // PostgreSQL SQLSTATE codes (PostgreSQL 15 documentation, Appendix A): a lost lock race is retried
+  // like SQLite's busy; the server or the network gone is unavailable.
+  '40001': 'busy', // serialization_failure
+  '40P01': 'busy', // deadlock_detected
+  '55P03': 'busy', // lock_not_available
+  '53100': 'full', // disk_full
+  '25006': 'readOnly', // read_only_sql_transaction
+  '57P01': 'unavailable', // admin_shutdown
+  '57P02': 'unavailable', // crash_shutdown
+  '57P03': 'unavailable', // cannot_connect_now
+  '08000': 'unavailable', // connection_exception
+  '08001': 'unavailable',
+  '08003': 'unavailable',
+  '08006': 'unavailable',
+  '3D000': 'unavailable', // invalid_catalog_name: the database does not exist
+  '28P01': 'unavailable', // invalid_password
+  '28000': 'unavailable', // invalid_authorization_specification
+  ECONNREFUSED: 'unavailable',
+  ECONNRESET: 'unavailable',
+  ETIMEDOUT: 'unavailable',
+  ENOTFOUND: 'unavailable',
   // The same failures seen by Node's own file calls (creating the folder, the secrets file).
   ENOSPC: 'full',
   EROFS: 'readOnly',
@@ -21,11 +42,20 @@ const FAILURES: Record<string, StorageFailure> = {
   EPERM: 'readOnly',
 };
 
-/** The SQLite or file-system code behind an error, however Sequelize wrapped it. */
+/** Sequelize's own errors for a pool that cannot reach or hand out a PostgreSQL connection. */
+const SEQUELIZE_FAILURES: Record<string, string> = {
+  SequelizeConnectionRefusedError: 'ECONNREFUSED',
+  SequelizeHostNotFoundError: 'ENOTFOUND',
+  SequelizeConnectionTimedOutError: 'ETIMEDOUT',
+  SequelizeConnectionAcquireTimeoutError: '55P03',
+};
+
+/** The SQLite, PostgreSQL or file-system code behind an error, however Sequelize wrapped it. */
 export function storageCode(err: unknown): string | null {
   for (let e = err as Record<string, unknown> | null, depth = 0; e && depth < 4; depth += 1) {
     const code = e.code;
     if (typeof code === 'string' && code in FAILURES) return code;
+    if (typeof e.name === 'string' && e.name in SEQUELIZE_FAILURES) return SEQUELIZE_FAILURES[e.name];
     if (typeof e.message === 'string') {
       const named = /\b(SQLITE_[A-Z]+)\b/.exec(e.message)?.[1];
       if (named && named in FAILURES) return named;
@@ -94,6 +124,14 @@ export function storageFailureProblem(failure: StorageFailure): ProblemError {
 export function storageProblem(err: unknown): ProblemError | null {
   const failure = storageFailureOf(err);
   if (failure) return storageFailureProblem(failure);
+  // PostgreSQL runs writes side by side: a racing request may store the same unique value first.
+  if ((err as { name?: string } | null)?.name === 'SequelizeUniqueConstraintError') {
+    return new ProblemError({
+      status: 409,
+      title: 'Conflict',
+      detail: 'Another request stored the same thing at the same moment; nothing was stored. Read it again.',
+    });
+  }
   if ((err as { name?: string } | null)?.name === 'SequelizeForeignKeyConstraintError') {
     return new ProblemError({
       status: 409,
@@ -109,6 +147,12 @@ export function describeStorageFailure(err: unknown, file: string | null): strin
   const code = storageCode(err);
   if (!code) return null;
   const where = file ?? 'the database';
+  if (!code.startsWith('SQLITE_') && file === null && !/^E[A-Z]+$/.test(code)) {
+    return `Cannot use the PostgreSQL database (${code}): check DATABASE_URL, that the server runs and that the database and user exist.`;
+  }
+  if (file === null && /^E(CONNREFUSED|CONNRESET|TIMEDOUT|NOTFOUND)$/.test(code)) {
+    return `Cannot reach the PostgreSQL server (${code}): check the host and port in DATABASE_URL and that the server runs.`;
+  }
   switch (FAILURES[code]) {
     case 'readOnly':
       return `Cannot write ${where} (${code}): the file or its folder is read-only for this user. Make both writable (SQLite also writes -wal and -shm files beside it) or point DATABASE_URL at a writable file.`;

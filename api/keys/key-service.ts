@@ -129,7 +129,8 @@ export class KeyService {
 
     const createdById = actor.kind === 'caller' ? actor.principal.userId : null;
     const { key, ownerEmail } = await db.write(async (transaction) => {
-      const owner = await db.models.User.findByPk(ownerId, { transaction });
+      // Locked on PostgreSQL so that two instances creating keys for one owner count one after the other.
+      const owner = await db.models.User.findByPk(ownerId, { transaction, lock: transaction.LOCK.UPDATE });
       if (!owner) throw unprocessable('/body/ownerId', `No user ${ownerId}`);
       if (owner.status === 'disabled') throw unprocessable('/body/ownerId', `User ${ownerId} is disabled`);
       const cap = this.deps.maxActiveKeysPerUser;
@@ -234,7 +235,7 @@ export class KeyService {
       return found;
     });
     // After the commit, so no lookup can cache the old limit or expiry again.
-    this.deps.keys.invalidate();
+    await this.deps.keys.invalidate();
     return toKeyView(key, now);
   }
 
@@ -253,7 +254,7 @@ export class KeyService {
       });
       return found;
     });
-    this.deps.keys.invalidate();
+    await this.deps.keys.invalidate();
     this.deps.logger.info({ keyId: id }, 'API key revoked');
     return toKeyView(key, now);
   }

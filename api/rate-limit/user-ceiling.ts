@@ -1,5 +1,5 @@
 import type { Request, RequestHandler } from 'express';
-import { MemoryStore, rateLimit } from 'express-rate-limit';
+import { MemoryStore, rateLimit, type Store } from 'express-rate-limit';
 import { ProblemError, sendProblem } from '../http/problem';
 import type { Services } from '../services';
 
@@ -10,11 +10,11 @@ const WINDOW_MS = 60_000;
  * limit: one user cannot multiply their allowance by creating keys. Its policy is named `user` in the
  * draft-8 `RateLimit` and `RateLimit-Policy` headers, beside the key's own policy.
  */
-export function createUserRateLimiter(services: Services): RequestHandler {
-  const store = new MemoryStore();
+export function createUserRateLimiter(services: Services, options: { store?: Store } = {}): RequestHandler {
+  const store = options.store ?? new MemoryStore();
   const limit = services.config.userRateLimitPerMinute;
   services.onClose.push(async () => {
-    await store.shutdown();
+    await store.shutdown?.();
   });
   return rateLimit({
     windowMs: WINDOW_MS,

@@ -41,7 +41,9 @@ export async function roomStillThere(
   roomId: string,
   transaction: Transaction,
 ): Promise<Room> {
-  const room = await models.Room.findByPk(roomId, { transaction });
+  // PostgreSQL: locked, so writes for one room (its edits, its tunings' versions and room-state
+  // revisions) from any instance run one after another, as SQLite's single writer runs them.
+  const room = await models.Room.findByPk(roomId, { transaction, lock: transaction.LOCK.UPDATE });
   if (!room) throw notFound(`No room ${roomId}.`);
   return room;
 }

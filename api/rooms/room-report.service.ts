@@ -10,6 +10,7 @@ import { findRoomFor, findTuningFor, type Caller } from './room-access';
 import { powerAverageResampled } from '../../shared/analysis/spatial-average';
 import { magnitudeOf } from '../../shared/plan/stored-room-plan';
 import { storedMeasurement, VerificationService } from '../tunings/verification.service';
+import { stalenessOf } from './room-state-store';
 import { renderRoomReport, type RoomReportInput } from './room-report';
 
 /**
@@ -65,7 +66,8 @@ export async function roomReportHtml(
           : 'unknown',
       settings,
       designed: designAtRate(settings, settings.sampleRateHz),
-      cautions: tuningCautions(settings, layout),
+      cautions: tuningCautions(settings, { layout, limits: room.limits }),
+      stale: await stalenessOf(db.models, room, version.roomRevision),
     };
   }
   return renderRoomReport({

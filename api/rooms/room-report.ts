@@ -28,6 +28,8 @@ export interface RoomReportInput {
     settings: TuningSettings;
     designed: DesignedTuning;
     cautions: Caution[];
+    /** Set when the room changed since the settings were made: the report says so first. */
+    stale: { since: string; reasons: string[] } | null;
   } | null;
   /** The tuning version's verification, with the "before" averages for the plots, and its sign-off. */
   verification?: {
@@ -103,6 +105,7 @@ const STYLE = `
 * { box-sizing: border-box; }
 body { font: 10.5pt/1.4 "Helvetica Neue", Arial, sans-serif; color: #1a1a1a; margin: 0 auto; max-width: 190mm; padding: 8mm 0; }
 h1 { font-size: 19pt; margin: 0 0 2mm; } h2 { font-size: 13pt; margin: 7mm 0 2mm; border-bottom: 1.5px solid #1d5a85; padding-bottom: 1mm; }
+.stale { border: 2px solid #a11; color: #a11; padding: 2mm 3mm; margin: 0 0 4mm; }
 .meta { color: #444; margin: 0 0 4mm; } .demo { color: #8a5300; }
 table { border-collapse: collapse; width: 100%; font-size: 9pt; } th, td { padding: 1.2mm 1.6mm; border-bottom: 0.5px solid #ccc; text-align: left; vertical-align: top; }
 th { background: #eef3f7; font-weight: 600; } td.n { text-align: right; font-variant-numeric: tabular-nums; white-space: nowrap; }
@@ -201,6 +204,7 @@ ${tuning.settings.subwoofer ? `<p>Subwoofer on ${esc(tuning.settings.subwoofer.c
   return `<!doctype html>
 <html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1"><title>${esc(title)}</title><style>${STYLE}</style></head>
 <body>
+${tuning?.stale ? `<p class="stale" role="alert"><strong>These settings are stale.</strong> The room changed on ${esc(tuning.stale.since.slice(0, 16).replace('T', ' '))} UTC after they were made: ${esc(tuning.stale.reasons.join('; '))}. Re-plan or re-check before loading them.</p>` : ''}
 <header><h1>${esc(room.name)}</h1>
 <p class="meta">Calibration report · ${esc(layout ? `${layout.title}${layout.aliases.length ? ' (' + layout.aliases.join(', ') + ')' : ''}` : 'unknown layout')} · room ${num(room.dimensions.widthM, 2)} × ${num(room.dimensions.lengthM, 2)} × ${num(room.dimensions.heightM, 2)} m · listening position x ${num(room.listener.x, 2)}, y ${num(room.listener.y, 2)}, ear height ${num(room.listener.z, 2)} m · generated ${esc(input.generatedAt.toISOString().slice(0, 16).replace('T', ' '))} UTC</p>
 ${room.notes ? `<p class="meta demo">${esc(room.notes)}</p>` : ''}</header>
@@ -210,6 +214,6 @@ ${tuningPart}
 ${tuning && input.verification ? verificationPart(input.verification, tuning.version) : ''}
 ${notices('Warnings', input.geometry.warnings)}
 ${notices('Cautions', cautions, 'caution')}
-<footer>Isochron computes settings from the data given; it does not certify a room. Calibration uses loud test signals: start quietly and protect hearing. Mounting loudspeakers overhead and running power or signal cabling are for qualified installers under local codes. Biquad sections are normalised a0 = 1, H(z) = (b0 + b1 z⁻¹ + b2 z⁻²) / (1 + a1 z⁻¹ + a2 z⁻²).</footer>
+<footer>Isochron computes settings from the data given; it does not certify a room. Calibration uses loud test signals: start quietly and protect hearing within the occupational noise limits that apply where you work. Mounting loudspeakers overhead and running power or signal cabling are for qualified installers under local codes. Biquad sections are normalised a0 = 1, H(z) = (b0 + b1 z⁻¹ + b2 z⁻²) / (1 + a1 z⁻¹ + a2 z⁻²).</footer>
 </body></html>`;
 }

@@ -107,6 +107,8 @@ export class RoomsService {
     const { Tuning, TuningVersion, Measurement } = this.db.models;
     const room = await findRoomFor(caller, this.db.models, roomId);
     await this.db.write(async (transaction) => {
+      // PostgreSQL: writes for this room from other instances wait, then find it gone (404).
+      await this.db.models.Room.findByPk(room.id, { transaction, lock: transaction.LOCK.UPDATE });
       const tunings = await Tuning.findAll({ where: { roomId: room.id }, attributes: ['id'], transaction });
       const tuningIds = tunings.map((t) => t.id);
       if (tuningIds.length > 0) await TuningVersion.destroy({ where: { tuningId: tuningIds }, transaction });

@@ -6,6 +6,7 @@ import type { SessionPrincipalResolver } from '../auth/authenticate';
 import type { Principal } from '../auth/permissions';
 import type { Config } from '../config';
 import type { Database } from '../db/database';
+import type { SharedState } from '../shared-state/shared-state';
 import type { User, UserRole } from '../db/models/user';
 import { checkCredentials, type CredentialCheck } from './credentials';
 import { crossSiteProblem, isStateChanging } from './console-request-guard';
@@ -64,13 +65,18 @@ function run(middleware: RequestHandler, req: Request, res: Response): Promise<v
 const hasSessionCookie = (req: Request): boolean =>
   (req.headers.cookie ?? '').split(';').some((part) => part.trim().startsWith(`${SESSION_COOKIE}=`));
 
-/** Console sessions: passport-local on its own Passport instance, express-session on SQLite. */
+/**
+ * Console sessions: passport-local on its own Passport instance, express-session on the database's
+ * `sessions` table, or in Redis (connect-redis) when instances share one.
+ */
 export function createConsoleSessions(
-  services: { config: Config; db: Database },
+  services: { config: Config; db: Database; shared?: SharedState },
   now: () => number = Date.now,
 ): ConsoleSessions {
   const { config, db } = services;
-  const store = new SqliteSessionStore(db, now);
+  const sharedStore = services.shared?.sessionStore() ?? null;
+  const tableStore = sharedStore ? null : new SqliteSessionStore(db, now);
+  const store: session.Store = sharedStore ?? (tableStore as SqliteSessionStore);
   const secure = config.env === 'production';
   const cookie: session.CookieOptions = {
     httpOnly: true,
@@ -180,6 +186,6 @@ export function createConsoleSessions(
         });
       });
     },
-    close: () => store.close(),
+    close: () => tableStore?.close(),
   };
 }

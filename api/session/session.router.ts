@@ -14,6 +14,13 @@ import {
   type ConsoleUser,
 } from '.';
 import { acceptInvitation } from '../users';
+import { permissionsOf } from '../auth/permissions';
+
+/** The session answer: who is signed in and what the server lets them do (one permission table). */
+const sessionBody = (user: ConsoleUser) => ({
+  user,
+  permissions: [...permissionsOf({ kind: 'user', role: user.role, userId: user.id })],
+});
 
 // One answer for an unknown address, a wrong password, an account not yet activated and a disabled one.
 const signInRefused = (): ProblemError =>
@@ -35,7 +42,9 @@ const notSignedIn = (): ProblemError =>
 /** Console sign-in under `/auth` (outside `/v1`): sign in, who am I, sign out, take up an invitation. */
 export function sessionRouter(services: Services): Router {
   const { db, sessions } = services;
-  const throttles = createSignInThrottles();
+  const throttles = createSignInThrottles(undefined, undefined, (name, limits, now) =>
+    services.shared.throttleCounter(name, limits, now),
+  );
   const router = Router();
   router.use(consoleRequestGuard(services.config.publicUrl));
   router.use(sessions.middleware);
@@ -44,7 +53,7 @@ export function sessionRouter(services: Services): Router {
     '/session',
     validate('getSession', (_input, req, res) => {
       if (!req.user) throw notSignedIn();
-      res.json({ user: req.user });
+      res.json(sessionBody(req.user as ConsoleUser));
     }),
   );
 
@@ -58,7 +67,7 @@ export function sessionRouter(services: Services): Router {
       }
       await sessions.signIn(req, check.user);
       await recordSignedIn(db, req, check.user.id);
-      res.json({ user: check.user });
+      res.json(sessionBody(check.user));
     }),
   );
 
@@ -81,7 +90,7 @@ export function sessionRouter(services: Services): Router {
       const user = toConsoleUser(await acceptInvitation(services, actorOf(req), token, password));
       await sessions.signIn(req, user);
       await recordSignedIn(db, req, user.id);
-      res.json({ user });
+      res.json(sessionBody(user));
     }),
   );
 

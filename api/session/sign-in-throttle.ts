@@ -1,4 +1,4 @@
-import type { Request, RequestHandler } from 'express';
+import type { Request, RequestHandler, Response } from 'express';
 import { ipKeyGenerator } from 'express-rate-limit';
 import { ProblemError } from '../http/problem';
 import { validInput } from '../http/validate';
@@ -88,6 +88,14 @@ export class GrowingDelayThrottle {
     if (this.entries.size > MAX_KEYS) this.entries.delete(this.entries.keys().next().value as string);
   }
 
+  /** Counts a failure in advance and answers 0, or, while the key must wait, answers the wait and counts nothing. */
+  attempt(key: string): number {
+    const wait = this.waitMs(key);
+    if (wait > 0) return wait;
+    this.fail(key);
+    return 0;
+  }
+
   succeed(key: string): void {
     this.entries.delete(key);
   }
@@ -119,8 +127,25 @@ const triedEmail = (req: Request): string => {
   return normalizeEmail(validInput(req, 'signIn').body.email);
 };
 
+/**
+ * The counting side of a throttle, in memory or shared through Redis (`api/shared-state/`). `attempt`
+ * checks and counts in one step (a Lua script in Redis), so parallel guesses, on one instance or
+ * several, cannot all pass the check before any of them is counted.
+ */
+export interface ThrottleCounting {
+  attempt(key: string): number | Promise<number>;
+  succeed(key: string): void | Promise<void>;
+  forgive(key: string): void | Promise<void>;
+}
+
+export type ThrottleCounterFactory = (
+  name: string,
+  limits: GrowingDelay,
+  now: () => number,
+) => ThrottleCounting;
+
 interface Rule {
-  throttle: GrowingDelayThrottle;
+  throttle: ThrottleCounting;
   key: (req: Request) => string;
   /** A success forgets the key's failures (the account-and-address pair), or not (an address). */
   resetOnSuccess: boolean;
@@ -133,10 +158,13 @@ interface Rule {
  * back, and a success resets the rules that reset; a refusal (4xx) keeps it. Mount after validation, before the handler.
  */
 function throttled(rules: Rule[], detail: string): RequestHandler {
-  return (req, res, next) => {
-    const keys = rules.map((rule) => rule.key(req));
-    const waitMs = Math.max(...rules.map((rule, i) => rule.throttle.waitMs(keys[i])));
+  const settle = (req: Request, res: Response, keys: string[], waits: number[]): void => {
+    const waitMs = Math.max(...waits);
     if (waitMs > 0) {
+      // Rules that counted this attempt take it back: it is refused, not tried.
+      rules.forEach((rule, i) => {
+        if (waits[i] === 0) void Promise.resolve(rule.throttle.forgive(keys[i])).catch(() => undefined);
+      });
       const retryAfter = Math.ceil(waitMs / 1000);
       throw new ProblemError({
         status: 429,
@@ -146,17 +174,36 @@ function throttled(rules: Rule[], detail: string): RequestHandler {
         headers: { 'Retry-After': String(retryAfter) },
       });
     }
-    rules.forEach((rule, i) => rule.throttle.fail(keys[i]));
     res.once('close', () => {
       // An attempt abandoned before its answer stays counted: aborting must not buy free guesses.
       if (!res.writableFinished) return;
       const status = res.statusCode;
       rules.forEach((rule, i) => {
-        if (status < 400 && rule.resetOnSuccess) rule.throttle.succeed(keys[i]);
-        else if (status < 400 || status >= 500) rule.throttle.forgive(keys[i]);
+        // After the answer: a shared store that fails now only leaves the failure counted.
+        const undo =
+          status < 400 && rule.resetOnSuccess
+            ? rule.throttle.succeed(keys[i])
+            : status < 400 || status >= 500
+              ? rule.throttle.forgive(keys[i])
+              : undefined;
+        void Promise.resolve(undo).catch(() => undefined);
       });
     });
-    next();
+  };
+  return (req, res, next) => {
+    const keys = rules.map((rule) => rule.key(req));
+    const attempts = rules.map((rule, i) => rule.throttle.attempt(keys[i]));
+    if (attempts.every((a): a is number => typeof a === 'number')) {
+      // In memory: checked and counted synchronously, before any other request runs.
+      settle(req, res, keys, attempts);
+      return next();
+    }
+    Promise.all(attempts)
+      .then((waits) => {
+        settle(req, res, keys, waits);
+        next();
+      }, next)
+      .catch(next);
   };
 }
 
@@ -164,10 +211,11 @@ function throttled(rules: Rule[], detail: string): RequestHandler {
 export function createSignInThrottles(
   limits: ThrottleLimits = DEFAULT_THROTTLE_LIMITS,
   now: () => number = Date.now,
+  counter: ThrottleCounterFactory = (_name, growing, clock) => new GrowingDelayThrottle(growing, clock),
 ) {
-  const pair = new GrowingDelayThrottle(limits.perAccountAndAddress, now);
-  const address = new GrowingDelayThrottle(limits.perAddress, now);
-  const invitations = new GrowingDelayThrottle(limits.invitationPerAddress, now);
+  const pair = counter('account-address', limits.perAccountAndAddress, now);
+  const address = counter('address', limits.perAddress, now);
+  const invitations = counter('invitation-address', limits.invitationPerAddress, now);
   return {
     signIn: throttled(
       [

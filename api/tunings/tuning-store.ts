@@ -100,7 +100,10 @@ export function tuningDto(
     updatedAt: tuning.updatedAt.toISOString(),
     versionCreatedAt: version.createdAt.toISOString(),
     stale,
-    cautions: tuningCautions(settings, room ? findLayout(room.layoutId) : undefined),
+    cautions: tuningCautions(settings, {
+      layout: room ? findLayout(room.layoutId) : undefined,
+      limits: room?.limits,
+    }),
   };
 }
 
@@ -187,7 +190,9 @@ export async function createTuning(
 
 /**
  * Adds the next version of a tuning. `build` receives the current version as read inside the write
- * transaction, so two edits at once get versions n+1 and n+2, never the same number.
+ * transaction with the tuning row locked, so two edits at once get versions n+1 and n+2, never the
+ * same number, on either engine and from any number of instances (the unique index on tuningId and
+ * version is the backstop).
  */
 export async function addVersion(
   db: Database,
@@ -197,7 +202,9 @@ export async function addVersion(
   pointer: (content: VersionContent) => SettingPointer,
 ): Promise<{ tuning: Tuning; version: TuningVersion }> {
   return db.write(async (transaction) => {
-    const tuning = await db.models.Tuning.findByPk(tuningId, { transaction });
+    // PostgreSQL: the row lock makes a concurrent edit (from any instance) wait and then read the
+    // number this one wrote. SQLite ignores it: its write transactions already run one at a time.
+    const tuning = await db.models.Tuning.findByPk(tuningId, { transaction, lock: transaction.LOCK.UPDATE });
     if (!tuning) throw notFound(`No tuning ${tuningId}.`);
     const current = await findVersion(db.models, tuning, tuning.currentVersion, transaction);
     const built = build(current);

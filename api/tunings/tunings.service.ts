@@ -1,12 +1,12 @@
 import type { components } from '../../shared/contract/api-types';
-import { compareTunings, tuningToCsv } from '../../shared/plan';
+import { compareTunings } from '../../shared/plan';
 import { promiseOfPlan } from '../../shared/verification';
 import type { Database } from '../db/database';
 import { pageOf, type Page, type PageRequest } from '../db/pagination';
 import { badRequest, calculateAt } from '../http/problem';
 import { findRoomFor, findTuningFor, type Caller } from '../rooms/room-access';
 import { TargetCurvesService } from '../target-curves/target-curves.service';
-import { designAtRate } from './design-at-rate';
+import { exportTuning, type ExportQuery } from './tuning-export';
 import { checkPatchedChannel, planForRoom, settingsFromInput, toTuningChannel } from './tuning-input';
 import type { Room } from '../db/models/room';
 import type { Tuning } from '../db/models/tuning';
@@ -47,8 +47,6 @@ function editPointer(body: TuningUpdate, content: VersionContent): SettingPointe
   };
 }
 type VersionView = ReturnType<typeof versionDto>;
-
-const BIQUAD_CONVENTION = 'a0 = 1; H(z) = (b0 + b1 z^-1 + b2 z^-2) / (1 + a1 z^-1 + a2 z^-2)';
 
 /** Tunings of stored rooms: versioned on every edit, duplicable, comparable, exportable. */
 export class TuningsService {
@@ -201,29 +199,9 @@ export class TuningsService {
     return this.view(copy.tuning, copy.version, room);
   }
 
-  /** The designed sections at the stored or a requested sample rate, as JSON or as CSV. */
-  async export(
-    caller: Caller,
-    tuningId: string,
-    q: { format: 'json' | 'csv'; sampleRateHz?: number; version?: number },
-  ): Promise<{ csv: string; fileName: string } | { json: object }> {
-    const found = await findTuningFor(caller, this.db.models, tuningId);
-    const version = await findVersion(this.db.models, found, q.version);
-    const designed = designAtRate(settingsOf(version), q.sampleRateHz ?? version.sampleRateHz);
-    if (q.format === 'csv') {
-      return {
-        csv: tuningToCsv(designed),
-        fileName: `${found.id}-v${version.version}-${designed.sampleRateHz}.csv`,
-      };
-    }
-    const json = {
-      tuningId: found.id,
-      name: version.name,
-      version: version.version,
-      convention: BIQUAD_CONVENTION,
-      ...designed,
-    };
-    return { json };
+  /** The tuning for a processor profile (tuning-export.ts), as JSON or as CSV. */
+  export(caller: Caller, tuningId: string, q: ExportQuery) {
+    return exportTuning(this.db, caller, tuningId, q);
   }
 
   async versions(caller: Caller, tuningId: string, page: PageRequest): Promise<Page<VersionView>> {

@@ -51,6 +51,16 @@ export class UsageCounter {
     if (keyId !== '' && (this.lastUsedAt.get(keyId) ?? 0) < atMs) this.lastUsedAt.set(keyId, atMs);
   }
 
+  /** Only moves a key's last-used time forward (the call itself is counted elsewhere). */
+  touch(keyId: string, atMs: number): void {
+    if (keyId !== '' && (this.lastUsedAt.get(keyId) ?? 0) < atMs) this.lastUsedAt.set(keyId, atMs);
+  }
+
+  /** Adds an already counted cell (from a shared buffer). */
+  add(cell: UsageCount): void {
+    this.giveBack({ counts: [cell], lastUsedAt: new Map() });
+  }
+
   /** Calls recorded and not yet taken. */
   get pending(): number {
     let total = 0;

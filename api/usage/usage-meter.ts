@@ -2,8 +2,10 @@ import type { Request, RequestHandler } from 'express';
 import type { Logger } from '../logger';
 import type { Config } from '../config';
 import type { Database } from '../db/database';
+import { MemoryUsageBuffer, RedisUsageBuffer, type UsageBuffer } from './usage-buffer';
 import { UsageCounter } from './usage-counter';
-import { SqliteUsageSink, type UsageSink } from './usage-sink';
+import type { SharedState } from '../shared-state/shared-state';
+import { DatabaseUsageSink, type UsageSink } from './usage-sink';
 
 /**
  * The route a request matched, as its template in the OpenAPI spelling (`GET /v1/keys/{keyId}`), so
@@ -27,18 +29,21 @@ const templates = new Map<string, string>();
 
 export interface UsageMeterOptions {
   sink: UsageSink;
+  /** Where counts wait for the flush: this process's memory by default, or Redis. */
+  buffer?: UsageBuffer;
   flushIntervalMs: number;
   logger: Logger;
   now?: () => number;
 }
 
 /**
- * Counts every authenticated call when its response has been sent (`finish`), in memory, and writes the
- * counts in one transaction every `flushIntervalMs` and on close. A failed flush keeps its counts for
- * the next one.
+ * Counts every authenticated call when its response has been sent (`finish`), in memory or in Redis
+ * (shared by the instances), and writes the counts in one transaction every `flushIntervalMs` and on
+ * close. A failed flush keeps its counts for the next one.
  */
 export class UsageMeter {
   readonly counter = new UsageCounter();
+  private readonly buffer: UsageBuffer;
   private readonly timer: NodeJS.Timeout;
   private flushing: Promise<void> = Promise.resolve();
   private closed = false;
@@ -46,6 +51,7 @@ export class UsageMeter {
 
   constructor(private readonly options: UsageMeterOptions) {
     this.now = options.now ?? Date.now;
+    this.buffer = options.buffer ?? new MemoryUsageBuffer(this.counter);
     this.timer = setInterval(() => {
       this.flush().catch(() => undefined);
     }, options.flushIntervalMs);
@@ -58,7 +64,7 @@ export class UsageMeter {
     if (principal) {
       const mountPath = req.baseUrl;
       res.once('finish', () => {
-        this.counter.record(
+        this.buffer.record(
           principal.keyId ?? '',
           principal.userId,
           routeTemplate(req, mountPath),
@@ -86,13 +92,13 @@ export class UsageMeter {
   }
 
   private async writeBatch(): Promise<void> {
-    const batch = this.counter.take();
+    const batch = await this.buffer.take();
     if (batch.counts.length === 0 && batch.lastUsedAt.size === 0) return;
     try {
       await this.options.sink.write(batch);
       this.options.logger.debug({ buckets: batch.counts.length }, 'usage flushed');
     } catch (err) {
-      this.counter.giveBack(batch);
+      await this.buffer.giveBack(batch);
       this.options.logger.error(
         { err, buckets: batch.counts.length },
         'usage flush failed; kept for the next flush',
@@ -107,9 +113,11 @@ export function createUsageMeter(
   db: Database,
   config: Pick<Config, 'usageFlushIntervalMs'>,
   logger: Logger,
+  shared?: SharedState,
 ): UsageMeter {
   return new UsageMeter({
-    sink: new SqliteUsageSink(db),
+    sink: new DatabaseUsageSink(db),
+    buffer: shared?.redis ? new RedisUsageBuffer(shared.redis, `${shared.prefix}usage:buffer`) : undefined,
     flushIntervalMs: config.usageFlushIntervalMs,
     logger,
   });

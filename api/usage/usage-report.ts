@@ -1,5 +1,5 @@
 import { QueryTypes } from 'sequelize';
-import type { Database } from '../db/database';
+import type { Database, Dialect } from '../db/database';
 import { ProblemError } from '../http/problem';
 
 export type UsageGrouping = 'hour' | 'day' | 'route' | 'key';
@@ -35,26 +35,51 @@ interface Grouping {
   groupBy: string;
 }
 
-// Stored dates are 'YYYY-MM-DD HH:MM:SS.SSS +00:00' text (UTC); the first 10 characters are the day.
-const GROUPINGS: Record<UsageGrouping, Grouping> = {
-  hour: {
-    select:
-      'u."keyId" AS keyId, k.name AS keyName, u."userId" AS userId, u.route AS route, u."bucketStart" AS bucket',
-    groupBy: 'u."keyId", u."userId", u.route, u."bucketStart"',
-  },
-  day: {
-    select:
-      'u."keyId" AS keyId, k.name AS keyName, u."userId" AS userId, u.route AS route, substr(u."bucketStart", 1, 10) AS bucket',
-    groupBy: 'u."keyId", u."userId", u.route, substr(u."bucketStart", 1, 10)',
-  },
-  route: {
-    select: 'NULL AS keyId, NULL AS keyName, NULL AS userId, u.route AS route, NULL AS bucket',
-    groupBy: 'u.route',
-  },
-  key: {
-    select: 'u."keyId" AS keyId, k.name AS keyName, u."userId" AS userId, NULL AS route, NULL AS bucket',
-    groupBy: 'u."keyId", u."userId"',
-  },
+/**
+ * The day a bucket falls in, as 'YYYY-MM-DD' (UTC) on both engines. SQLite stores dates as
+ * 'YYYY-MM-DD HH:MM:SS.SSS +00:00' text in UTC, so the day is its first 10 characters; PostgreSQL
+ * stores `timestamptz`, formatted here in UTC whatever the session's time zone.
+ */
+const DAY_OF: Record<Dialect, string> = {
+  sqlite: 'substr(u."bucketStart", 1, 10)',
+  postgres: `to_char(u."bucketStart" AT TIME ZONE 'UTC', 'YYYY-MM-DD')`,
+};
+
+/**
+ * Text is ordered byte by byte on both engines: SQLite's default collation is binary, PostgreSQL's
+ * follows the database's locale unless told `COLLATE "C"`.
+ */
+const BYTE_ORDER: Record<Dialect, string> = { sqlite: '', postgres: ' COLLATE "C"' };
+
+// Aliases are quoted: PostgreSQL folds unquoted names to lower case. The key's name is an aggregate
+// (there is one per key) so that PostgreSQL accepts it beside GROUP BY u."keyId".
+function groupings(dialect: Dialect): Record<UsageGrouping, Grouping> {
+  const day = DAY_OF[dialect];
+  return {
+    hour: {
+      select:
+        'u."keyId" AS "keyId", MAX(k.name) AS "keyName", u."userId" AS "userId", u.route AS route, u."bucketStart" AS bucket',
+      groupBy: 'u."keyId", u."userId", u.route, u."bucketStart"',
+    },
+    day: {
+      select: `u."keyId" AS "keyId", MAX(k.name) AS "keyName", u."userId" AS "userId", u.route AS route, ${day} AS bucket`,
+      groupBy: `u."keyId", u."userId", u.route, ${day}`,
+    },
+    route: {
+      select: 'NULL AS "keyId", NULL AS "keyName", NULL AS "userId", u.route AS route, NULL AS bucket',
+      groupBy: 'u.route',
+    },
+    key: {
+      select:
+        'u."keyId" AS "keyId", MAX(k.name) AS "keyName", u."userId" AS "userId", NULL AS route, NULL AS bucket',
+      groupBy: 'u."keyId", u."userId"',
+    },
+  };
+}
+
+const GROUPINGS: Record<Dialect, Record<UsageGrouping, Grouping>> = {
+  sqlite: groupings('sqlite'),
+  postgres: groupings('postgres'),
 };
 
 interface RawRow {
@@ -62,14 +87,16 @@ interface RawRow {
   keyName: string | null;
   userId: string | null;
   route: string | null;
-  bucket: string | null;
-  count: number;
-  errorCount: number;
+  bucket: string | Date | null;
+  count: number | string;
+  errorCount: number | string;
 }
 
-function bucketIso(raw: string | null): string | null {
+function bucketIso(raw: string | Date | null): string | null {
   if (raw === null) return null;
-  // '2026-03-14' (a day) or '2026-03-14 09:00:00.000 +00:00' (an hour).
+  // PostgreSQL answers a timestamptz as a Date.
+  if (raw instanceof Date) return raw.toISOString();
+  // '2026-03-14' (a day) or '2026-03-14 09:00:00.000 +00:00' (an hour, SQLite).
   return raw.length === 10
     ? `${raw}T00:00:00.000Z`
     : new Date(raw.replace(' ', 'T').replace(' ', '')).toISOString();
@@ -77,7 +104,8 @@ function bucketIso(raw: string | null): string | null {
 
 /** Usage summed from the stored buckets. Every filter value is a bound parameter, never SQL text. */
 export async function usageReport(db: Database, query: UsageQuery): Promise<UsageRow[]> {
-  const grouping = GROUPINGS[query.groupBy];
+  const grouping = GROUPINGS[db.dialect][query.groupBy];
+  const text = BYTE_ORDER[db.dialect];
   const where = ['u."bucketStart" >= :from', 'u."bucketStart" < :to'];
   const replacements: Record<string, unknown> = { from: query.from, to: query.to, max: MAX_USAGE_ROWS + 1 };
   if (query.ownerId !== undefined) {
@@ -92,15 +120,19 @@ export async function usageReport(db: Database, query: UsageQuery): Promise<Usag
     where.push('u.route = :route');
     replacements.route = query.route;
   }
+  // Ordered outside the grouping: PostgreSQL reads `"keyId" COLLATE "C"` in ORDER BY as an input
+  // column, not the output one, so the grouped rows are sorted as a derived table.
   const rows = await db.sequelize.query<RawRow>(
-    `SELECT ${grouping.select},
-            SUM(u.count) AS count,
-            SUM(CASE WHEN u."statusClass" IN ('4xx', '5xx') THEN u.count ELSE 0 END) AS errorCount
-       FROM usage_buckets u LEFT JOIN api_keys k ON k.id = u."keyId"
-      WHERE ${where.join(' AND ')}
-      GROUP BY ${grouping.groupBy}
-      ORDER BY bucket, keyId, userId, route
-      LIMIT :max`,
+    `SELECT r.* FROM (
+       SELECT ${grouping.select},
+              SUM(u.count) AS count,
+              SUM(CASE WHEN u."statusClass" IN ('4xx', '5xx') THEN u.count ELSE 0 END) AS "errorCount"
+         FROM usage_buckets u LEFT JOIN api_keys k ON k.id = u."keyId"
+        WHERE ${where.join(' AND ')}
+        GROUP BY ${grouping.groupBy}
+     ) r
+     ORDER BY r.bucket, r."keyId"${text}, r."userId"${text}, r.route${text}
+     LIMIT :max`,
     { replacements, type: QueryTypes.SELECT },
   );
   if (rows.length > MAX_USAGE_ROWS) {

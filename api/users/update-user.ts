@@ -96,6 +96,6 @@ export async function updateUser(
     return keys === undefined ? toUserView(user) : { ...toUserView(user), keys };
   });
   // Keys are looked up through a short cache; a disabled or demoted owner's keys must change on the very next request.
-  if (input.status !== undefined || input.role !== undefined) services.keys.invalidate();
+  if (input.status !== undefined || input.role !== undefined) await services.keys.invalidate();
   return view;
 }

@@ -108,11 +108,13 @@ export type paths = {
             cookie?: never;
         };
         /**
-         * Readiness: the database answers and takes writes.
-         * @description Reads from the database and writes a scratch row into it and removes it again (at most once every
-         *     two seconds; calls in between get the last outcome). A full disk, a read-only database file or a
-         *     database that cannot be opened answers 503 with the same problem type the failed requests get:
-         *     `storage-full`, `storage-read-only` or `storage-unavailable`, with `Retry-After`.
+         * Readiness: every dependency (database, and Redis when configured) answers.
+         * @description Checks each dependency and names it in `dependencies`. The database (SQLite or PostgreSQL) must
+         *     answer a read and take a write: a scratch row is written and removed again (at most once every
+         *     two seconds; calls in between get the last outcome). Redis, when `REDIS_URL` is set, must answer a
+         *     PING. Any dependency down answers 503 with the problem the failed requests get
+         *     (`storage-full`, `storage-read-only`, `storage-unavailable` or `shared-state-unavailable`), with
+         *     `Retry-After` and the same `dependencies` list.
          */
         get: operations["getReadiness"];
         put?: never;
@@ -1026,12 +1028,26 @@ export type paths = {
             cookie?: never;
         };
         /**
-         * Export coefficients for a processor (JSON or CSV)
-         * @description Designs every section from the stored parameters at `sampleRateHz` (default the tuning's own rate):
-         *     EQ by the Audio EQ Cookbook, crossovers as Linkwitz-Riley or Butterworth cascades. Coefficients are
-         *     never resampled from another rate, so they equal what `POST /v1/biquads` and `POST /v1/crossovers`
-         *     return for the same parameters at that rate. Sections are normalised a0 = 1:
-         *     `H(z) = (b0 + b1·z⁻¹ + b2·z⁻²) / (1 + a1·z⁻¹ + a2·z⁻²)`. CSV is RFC 4180 with one row per section.
+         * Export a tuning for a processor (JSON or CSV)
+         * @description The tuning as one processor takes it, for the processor profile `profile` (default: the room's
+         *     profile; without one, whole-sample delays and the API's own coefficient convention at full
+         *     precision). Every value is rounded to the profile's steps; delay in ms and in samples come from the
+         *     same quantised value (quantised in the profile's delay unit). EQ is given as parameters (type,
+         *     frequency, gain, Q — a band stored with a bandwidth or shelf slope gets its equivalent Q) and as
+         *     coefficients designed from those rounded parameters (Audio EQ Cookbook) in the profile's layout
+         *     (`coefficientLayout`: order, a0 written or not, sign of the feedback terms, decimal places or
+         *     float32). Also the high-passes and the subwoofer low-pass (Linkwitz-Riley or Butterworth
+         *     sections), the routing of every bass-managed channel and the LFE into the subwoofer with gains, the
+         *     subwoofer's delay and polarity, and a header (tuning id and version, room, sample rate, profile,
+         *     creation time, Isochron version, cautions). Per channel, `eqRounding` says what the rounding cost:
+         *     the largest deviation in dB between the exported EQ and the EQ designed from the stored
+         *     parameters, on a 1/48-octave grid from 20 Hz to 20 kHz (or 0.45·fs) and at every band's frequency.
+         *     A tuning whose room changed since says so first (`stale`, and the first row of the CSV).
+         *     Settings outside the profile (a sample rate it does not run at, a delay beyond its range) are
+         *     refused with 422 naming `/query/profile` or `/query/sampleRateHz`, the setting and the limit;
+         *     nothing is clamped. CSV: a `field,value` header block, a blank line, the parameters table, a blank
+         *     line, the coefficients table; text cells that a spreadsheet would run as a formula are made inert
+         *     (OWASP CSV injection).
          */
         get: operations["exportTuning"];
         put?: never;
@@ -1585,6 +1601,15 @@ export type components = {
             speedOfSoundMps: number;
             warnings: components["schemas"]["Warning"][];
         };
+        /** @description One dependency of the service as readiness found it. */
+        DependencyState: {
+            /** @enum {string} */
+            engine: "sqlite" | "postgresql" | "redis";
+            /** @enum {string} */
+            name: "database" | "redis";
+            /** @enum {string} */
+            status: "up" | "down";
+        };
         /** @description Metres as a number, or a string with a length unit (`"3.2 m"`, `"10.5 ft"`, `"126 in"`, `"320 cm"`). */
         Distance: number | string;
         EqBandExplanation: {
@@ -1719,6 +1744,13 @@ export type components = {
             code: "null" | "positionsDisagree" | "narrowDip" | "boostsNotAllowed" | "belowMinimumGain" | "merged" | "opposesCut" | "madeResidualWorse" | "littleBenefit" | "bandBudget" | "aboveTransition" | "peakingNotSupported";
             frequencyHz: number | null;
             message: string;
+        };
+        ExportedCrossover: {
+            family: components["schemas"]["CrossoverFamily"];
+            frequencyHz: number;
+            order: number;
+            /** @description Each section's coefficients in the order of `coefficientLayout.order`. */
+            sections: number[][];
         };
         FilterPath: {
             family: components["schemas"]["CrossoverFamily"];
@@ -2459,6 +2491,11 @@ export type components = {
             sections: components["schemas"]["BiquadSection"][];
         };
         SessionBody: {
+            /**
+             * @description What the signed-in user may do, from the server's own permission table; the console shows
+             *     its pages and controls by these and the server enforces them on every request.
+             */
+            permissions: ("calculate" | "tuning" | "keys:own" | "keys:all" | "usage:own" | "usage:all" | "users")[];
             user: components["schemas"]["SessionUser"];
         };
         SessionUser: {
@@ -2735,28 +2772,75 @@ export type components = {
             subwoofer?: components["schemas"]["TuningSubwoofer"] | null;
         };
         TuningExport: {
-            channels: {
+            bassManagement: {
                 delayMs: number;
                 delaySamples: number;
-                id: string;
+                lfeGainDb: number;
+                lowPass: components["schemas"]["ExportedCrossover"] | null;
                 /** @enum {string} */
                 polarity: "normal" | "inverted";
-                sections: (components["schemas"]["BiquadSection"] & {
+                routing: {
+                    from: string;
+                    gainDb: number;
+                    to: string;
                     /** @enum {string} */
-                    stage: "eq" | "highPass" | "lowPass";
-                })[];
+                    via: "lowPass" | "direct";
+                }[];
+                subwoofer: string;
+            } | null;
+            channels: {
+                bassManaged: boolean;
+                delayMs: number;
+                /** @description delayMs × fs / 1000: whole when the profile counts samples. */
+                delaySamples: number;
+                eq: {
+                    coefficients: number[];
+                    frequencyHz: number;
+                    gainDb: number | null;
+                    q: number;
+                    type: components["schemas"]["FilterType"];
+                }[];
+                eqRounding: {
+                    atHz: number | null;
+                    maxDeviationDb: number;
+                };
+                highPass: components["schemas"]["ExportedCrossover"] | null;
+                id: string;
+                lowPass: components["schemas"]["ExportedCrossover"] | null;
+                name?: string;
+                /** @enum {string} */
+                polarity: "normal" | "inverted";
                 trimDb: number;
             }[];
-            convention: string;
-            name: string;
-            sampleRateHz: number;
-            subwoofer: {
-                channel: string;
-                headroomDb: number | null;
-                lfeGainDb: number;
-            } | null;
-            tuningId: string;
-            version: number;
+            coefficientLayout: {
+                decimalPlaces?: number;
+                /** @enum {string} */
+                feedbackSign: "plus" | "minus";
+                /** @enum {string} */
+                numberFormat: "decimal" | "float32" | "full";
+                order: ("b0" | "b1" | "b2" | "a0" | "a1" | "a2")[];
+            };
+            header: {
+                cautions: components["schemas"]["Caution"][];
+                convention: string;
+                /**
+                 * Format: date-time
+                 * @description When this version of the tuning was made.
+                 */
+                createdAt: string;
+                isochronVersion: string;
+                name: string;
+                profile: {
+                    id: string;
+                    name: string;
+                } | null;
+                roomId: string;
+                roomName: string;
+                sampleRateHz: number;
+                tuningId: string;
+                version: number;
+            };
+            stale: components["schemas"]["TuningStale"] | null;
         };
         /** @description A tuning id, as `POST /v1/rooms/{roomId}/tunings` answers it. */
         TuningId: string;
@@ -3310,13 +3394,14 @@ export interface operations {
                 };
                 content: {
                     "application/json": {
+                        dependencies: components["schemas"]["DependencyState"][];
                         /** @constant */
                         status: "ready";
                     };
                 };
             };
             404: components["responses"]["NotFound"];
-            /** @description The database does not answer or cannot be written. */
+            /** @description A dependency does not answer, or the database cannot be written. */
             503: {
                 headers: {
                     /** @description Seconds before asking again. */
@@ -3324,7 +3409,9 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content: {
-                    "application/problem+json": components["schemas"]["Problem"];
+                    "application/problem+json": components["schemas"]["Problem"] & {
+                        dependencies?: components["schemas"]["DependencyState"][];
+                    };
                 };
             };
         };
@@ -4876,6 +4963,11 @@ export interface operations {
         parameters: {
             query?: {
                 format?: "json" | "csv";
+                /**
+                 * @description A processor profile id (one of yours), or `none` for the exact export; default the room's profile.
+                 * @example prof_0mf3x1d2a9f8a7b6c5d4e
+                 */
+                profile?: string;
                 /** @example 96000 */
                 sampleRateHz?: number;
                 version?: number;
@@ -4888,7 +4980,7 @@ export interface operations {
         };
         requestBody?: never;
         responses: {
-            /** @description The designed tuning. */
+            /** @description The tuning for the processor. */
             200: {
                 headers: {
                     [name: string]: unknown;

@@ -2,9 +2,6 @@ import { logFrequencyGrid } from '../dsp/grid';
 import { sosMagnitudeDb, unitCircle } from '../dsp/response';
 import { designBiquads, type FilterSpec } from './biquad-design';
 
-/** The filter types that carry a gain: their summed response is what boosts or cuts. */
-const GAIN_TYPES = new Set(['peaking', 'lowShelf', 'highShelf']);
-
 /** Grid density for finding the largest boost and cut: 1/48 octave, plus every filter's own frequency. */
 const POINTS_PER_OCTAVE = 48;
 const LOWEST_HZ = 10;
@@ -19,22 +16,20 @@ export interface EqExtremes {
 }
 
 /**
- * The largest boost and the largest cut of an EQ as designed: the magnitude of the cascade of its
- * gain-carrying filters (peaking and shelves; passes, notches and all-passes are not boosts or cuts),
- * evaluated on a 1/48-octave grid from 10 Hz to Nyquist and at each filter's own frequency. Bands
+ * The largest boost and the largest cut of an EQ as designed: the magnitude of the cascade of all its
+ * filters (a resonant high-pass boosts too; a notch next to a peak lowers it), evaluated on a 1/48-octave grid from 10 Hz to Nyquist and at each filter's own frequency. Bands
  * that overlap add up: a +9 dB low shelf and a +12 dB peak together boost more than either.
  * Accuracy: the grid can miss the top of a peak that is narrower than 1/48 octave between two points
  * only when it is not at a filter's frequency; the summed maximum of overlapping bands lies between them.
  */
 export function eqExtremes(filters: readonly FilterSpec[], sampleRateHz: number): EqExtremes {
-  const gainFilters = filters.filter((f) => GAIN_TYPES.has(f.type));
-  if (gainFilters.length === 0) return { maxBoostDb: 0, maxBoostHz: null, maxCutDb: 0, maxCutHz: null };
+  if (filters.length === 0) return { maxBoostDb: 0, maxBoostHz: null, maxCutDb: 0, maxCutHz: null };
   const nyquist = sampleRateHz / 2;
   const grid = [
     ...logFrequencyGrid(LOWEST_HZ, nyquist * 0.999, POINTS_PER_OCTAVE),
-    ...gainFilters.map((f) => f.frequencyHz).filter((f) => f < nyquist),
+    ...filters.map((f) => f.frequencyHz).filter((f) => f < nyquist),
   ].sort((a, b) => a - b);
-  const sections = designBiquads([...gainFilters], sampleRateHz);
+  const sections = designBiquads([...filters], sampleRateHz);
   const db = sosMagnitudeDb(sections, unitCircle(grid, sampleRateHz));
   let hi = 0;
   let lo = 0;
@@ -47,5 +42,28 @@ export function eqExtremes(filters: readonly FilterSpec[], sampleRateHz: number)
     maxBoostHz: db[hi] > 0 ? grid[hi] : null,
     maxCutDb: Math.max(0, -db[lo]),
     maxCutHz: db[lo] < 0 ? grid[lo] : null,
+  };
+}
+
+const round2 = (value: number): number => Math.round(value * 100) / 100;
+
+/**
+ * The boost caution of an EQ, or null when its designed response never rises above 0 dB: the largest
+ * boost of the bands together (eqExtremes) and where, not the gain of the largest single band (a +9 dB
+ * shelf under a +12 dB peak boosts more than 12 dB). `subject` names what boosts ("This EQ",
+ * "M+030's EQ").
+ */
+export function eqBoostCaution(
+  filters: readonly FilterSpec[],
+  sampleRateHz: number,
+  subject = 'This EQ',
+): { code: 'eqBoost'; message: string } | null {
+  const { maxBoostDb, maxBoostHz } = eqExtremes(filters, sampleRateHz);
+  if (maxBoostDb <= 0 || maxBoostHz === null) return null;
+  return {
+    code: 'eqBoost',
+    message:
+      `${subject} boosts by up to ${round2(maxBoostDb)} dB at ${round2(maxBoostHz)} Hz (its bands together, as designed). ` +
+      'Boosts, especially at low frequencies, can overdrive amplifiers and drivers; prefer cuts and check headroom.',
   };
 }

@@ -6,6 +6,7 @@ import { responseGrid, type ResponseGridSpec } from '../dsp/grid';
 import { cascadeResponse, type FrequencyResponse } from '../dsp/response';
 import type { Sos } from '../dsp/sos';
 import { designBiquads, type FilterSpec } from './biquad-design';
+import { eqBoostCaution } from './eq-extremes';
 
 export interface FilterSetInput {
   filters: FilterSpec[];
@@ -30,7 +31,8 @@ export const MAX_FILTERS = MAX_EQ_BANDS;
  * Designs a cascade of cookbook filters (see designBiquad) at `sampleRateHz` (48000 when absent),
  * optionally with the response of the whole cascade (see cascadeResponse). Filters beyond
  * `limits.eqBandsPerChannel`, or boosts and cuts beyond `limits.eqMaxBoostDb` / `eqMaxCutDb`, are
- * still designed but warned, so the caller sees what the processor will refuse. Boosts carry a caution.
+ * still designed but warned, so the caller sees what the processor will refuse. A boost carries a
+ * caution with the largest boost of the bands together (eqBoostCaution), not of the largest band.
  * @throws CalculationInputError naming the field (`/filters/2/frequencyHz`, `/response/toHz`, ...).
  */
 export function designFilterSet(input: FilterSetInput): FilterSet {
@@ -50,7 +52,7 @@ export function designFilterSet(input: FilterSetInput): FilterSet {
     sections,
     ...(response ? { response } : {}),
     warnings: limitWarnings(filters, input.limits),
-    cautions: boostCautions(filters),
+    cautions: boostCautions(filters, fs),
   };
 }
 
@@ -89,17 +91,7 @@ function limitWarnings(filters: FilterSpec[], limits: FilterSetInput['limits']):
   return warnings;
 }
 
-function boostCautions(filters: FilterSpec[]): Caution[] {
-  const boosts = filters.filter((f) => (f.gainDb ?? 0) > 0);
-  if (boosts.length === 0) return [];
-  const lowest = Math.min(...boosts.map((f) => f.frequencyHz));
-  return [
-    {
-      code: 'eqBoost',
-      message:
-        `This EQ boosts by up to ${Math.max(...boosts.map((f) => f.gainDb ?? 0))} dB` +
-        (lowest < 200 ? `, down to ${lowest} Hz` : '') +
-        '. Boosts, especially at low frequencies, can overdrive amplifiers and drivers; prefer cuts and check headroom.',
-    },
-  ];
+function boostCautions(filters: FilterSpec[], sampleRateHz: number): Caution[] {
+  const caution = eqBoostCaution(filters, sampleRateHz);
+  return caution ? [caution] : [];
 }

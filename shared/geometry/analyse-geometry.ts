@@ -152,10 +152,15 @@ function judgeChannel(
     zenith ||
     channel.azimuthRangesDeg.some((range) => insideAzimuthRange(polar.azimuthDeg, range, toleranceDeg));
   const elevationOk = insideElevationRange(polar.elevationDeg, channel.elevationRangeDeg, toleranceDeg);
-  const fmt = (v: number) => v.toFixed(1);
+  // Angles in words take a true minus sign (U+2212), as the layout notes do, never a hyphen.
+  const deg = (v: number) => `${v < 0 ? '\u2212' : ''}${Math.abs(v)}`;
+  const fmt = (v: number) => {
+    const text = Math.abs(v).toFixed(1);
+    return Number(text) === 0 || v > 0 ? text : `\u2212${text}`;
+  };
   if (!azimuthOk) {
     const ranges = channel.azimuthRangesDeg
-      .map(([a, b]) => (a === b ? `${a}°` : `${a}°..${b}°`))
+      .map(([a, b]) => (a === b ? `${deg(a)}°` : `${deg(a)}°..${deg(b)}°`))
       .join(' or ');
     warnings.push({
       code: 'azimuthOutOfRange',
@@ -168,7 +173,7 @@ function judgeChannel(
     warnings.push({
       code: 'elevationOutOfRange',
       channel: channel.label,
-      message: `${channel.label} is at elevation ${fmt(polar.elevationDeg)}°; the layout permits ${a === b ? `${a}°` : `${a}°..${b}°`} (±${toleranceDeg}° allowance).`,
+      message: `${channel.label} is at elevation ${fmt(polar.elevationDeg)}°; the layout permits ${a === b ? `${deg(a)}°` : `${deg(a)}°..${deg(b)}°`} (±${toleranceDeg}° allowance).`,
     });
   }
   return {

@@ -20,7 +20,7 @@ describe('computeLevelTrims', () => {
     expect(plan.cautions.map((c) => c.code)).toEqual(['testSignalLevel', 'levelBoost']);
     expect(plan.cautions[1].message).toContain('M-030');
     // Three uncorrelated channels at 79 dB: 79 + 10·log10(3) = 83.77 dB (power sum of uncorrelated sources).
-    expect(plan.cautions[0].message).toContain('83.77 dB');
+    expect(plan.cautions[0].message).toContain('reach about 83.77 dB');
   });
 
   it('without a target aligns to the quietest channel, so every trim is a cut', () => {
@@ -123,5 +123,48 @@ describe('computeLevelTrims', () => {
     [{ channels: [{ id: 'a', measuredDb: 80 }], limits: { trimMaxDb: -1 } }, '/limits/trimMaxDb'],
   ])('refuses %j, naming %s', (input, field) => {
     expect(catchInputError(() => computeLevelTrims(input as LevelInput)).field).toBe(field);
+  });
+});
+
+describe('the "all channels together" figure is the power sum of the levels the channels will reach', () => {
+  // Power sum of uncorrelated levels, 10·log10(Σ 10^(L/10)) (IEC 61672-1 energy summation):
+  // 10·log10(10^7.9 + 10^8.9) = 89.41 dB — a main at 79 dB and the LFE at 79 + 10 dB in band.
+  const powerSum = (levels: number[]) => 10 * Math.log10(levels.reduce((s, l) => s + 10 ** (l / 10), 0));
+
+  it('79 dB and the LFE at +10 dB (89 dB) reach 89.41 dB together, not 82.01', () => {
+    const plan = computeLevelTrims({
+      channels: [
+        { id: 'M+030', measuredDb: 80.6 },
+        { id: 'LFE1', measuredDb: 90.2, targetOffsetDb: 10 },
+      ],
+      targetDb: 79,
+    });
+    expect(plan.channels.map((c) => c.expectedDb)).toEqual([79, 89].map((l) => expect.closeTo(l, 12)));
+    expect(powerSum([79, 89])).toBeCloseTo(89.41, 2);
+    expect(plan.cautions[0].message).toContain('reach about 89.41 dB');
+  });
+
+  it('a channel whose trim is clamped counts at the level it will really reach, and gets the wiring caution', () => {
+    const plan = computeLevelTrims({
+      channels: [
+        { id: 'M+030', measuredDb: 79 },
+        { id: 'M-030', measuredDb: 60 },
+      ],
+      targetDb: 79,
+      limits: { trimMaxDb: 12 },
+    });
+    expect(plan.channels[1]).toMatchObject({ trimDb: 12, expectedDb: 72, clamped: true });
+    const expected = Math.round(powerSum([79, 72]) * 100) / 100;
+    expect(plan.cautions[0].message).toContain(`reach about ${expected} dB`);
+    const wiring = plan.cautions.find((c) => c.code === 'trimAtLimit');
+    expect(wiring?.message).toMatch(
+      /M-030 reads so low .* check the loudspeaker and its wiring before adding gain/,
+    );
+  });
+
+  it('hearing cautions defer to local occupational limits and name one published figure', () => {
+    const plan = computeLevelTrims({ channels: [{ id: 'a', measuredDb: 80 }], targetDb: 79 });
+    expect(plan.cautions[0].message).toMatch(/occupational noise limits that apply where you work/);
+    expect(plan.cautions[0].message).toMatch(/NIOSH recommends at most 85 dBA over 8 hours/);
   });
 });

@@ -1,14 +1,13 @@
 import { requireChannelList } from '../channel-list';
 import { CalculationInputError, requireInRange } from '../errors';
 import type { Caution, CalculationWarning } from '../notices';
+import { HEARING_CAUTION } from '../plan/hearing';
 import { parseDistanceM, type DistanceInput } from '../units/distance';
 
 /** Range of levels, targets and reference levels accepted, in dB. */
 export const LEVEL_LIMIT_DB = 150;
 /** Range of per-channel target offsets accepted, in dB. */
 export const TARGET_OFFSET_LIMIT_DB = 40;
-/** NIOSH recommended exposure limit: 85 dBA over 8 hours, 3 dB exchange rate. */
-const NIOSH_REL_DBA = 85;
 
 export interface LevelChannelInput {
   /** ITU-R BS.2051 label of the channel (`M+030`, `LFE1`), as in stored rooms; unique within the request. */
@@ -131,7 +130,7 @@ export function computeLevelTrims(input: LevelInput): LevelPlan {
     alignedTo: targetDb === undefined ? 'quietestChannel' : 'target',
     channels: results,
     warnings,
-    cautions: levelCautions(results, targetDb),
+    cautions: levelCautions(results, trimMaxDb),
   };
 }
 
@@ -177,18 +176,28 @@ function readTrimLimits(limits: LevelInput['limits']): { trimMinDb?: number; tri
   return { trimMinDb, trimMaxDb };
 }
 
-function levelCautions(results: LevelChannelResult[], targetDb: number | undefined): Caution[] {
+/**
+ * Level of every channel playing together at the listening position: the power sum
+ * `10·log10(Σ 10^(L/10))` of the levels the channels will really reach (after clamped trims; the LFE at
+ * its in-band offset), as for uncorrelated signals such as independent pink noise (IEC 61672-1 energy
+ * summation of sound pressure levels). 79 dB and 89 dB together are 89.41 dB.
+ */
+export function combinedLevelDb(levelsDb: readonly number[]): number {
+  return 10 * Math.log10(levelsDb.reduce((sum, db) => sum + Math.pow(10, db / 10), 0));
+}
+
+function levelCautions(results: LevelChannelResult[], trimMaxDb: number | undefined): Caution[] {
+  const together = combinedLevelDb(results.map((r) => r.expectedDb));
   const cautions: Caution[] = [
     {
       code: 'testSignalLevel',
       message:
         'Level calibration plays test noise from each loudspeaker at the reference level. Start with the system ' +
-        `turned down and raise it gradually; protect hearing (NIOSH recommends at most ${NIOSH_REL_DBA} dBA over 8 hours, ` +
-        'halving the time for every 3 dB more). Calibration levels are read C-weighted, exposure limits are A-weighted.' +
-        (targetDb === undefined
-          ? ''
-          : ` All ${results.length} channels playing together reach about ${round2(targetDb + 10 * Math.log10(results.length))} dB ` +
-            '(uncorrelated sum, +10·log10 n).'),
+        `turned down and raise it gradually. ${HEARING_CAUTION}` +
+        (results.length > 1
+          ? ` All ${results.length} channels playing together reach about ${round2(together)} dB at the listening position ` +
+            '(power sum of the levels each channel will reach after its trim, the LFE included at its offset).'
+          : ''),
     },
   ];
   const boosted = results.filter((r) => r.trimDb > 0).map((r) => r.id);
@@ -196,6 +205,13 @@ function levelCautions(results: LevelChannelResult[], targetDb: number | undefin
     cautions.push({
       code: 'levelBoost',
       message: `Positive trims raise the drive level of ${boosted.join(', ')}; check amplifier and loudspeaker headroom, or lower the target so every trim is a cut.`,
+    });
+  }
+  const starved = results.filter((r) => r.clamped && trimMaxDb !== undefined && r.trimDb === trimMaxDb);
+  if (starved.length > 0) {
+    cautions.push({
+      code: 'trimAtLimit',
+      message: `${starved.map((r) => r.id).join(', ')} ${starved.length === 1 ? 'reads' : 'read'} so low that the trim runs into its limit of +${trimMaxDb} dB. A channel this quiet usually has a fault: check the loudspeaker and its wiring before adding gain.`,
     });
   }
   return cautions;

@@ -23,14 +23,18 @@ const STAGE3_LIMITS = {
   eqMaxCutDb: 12,
 };
 
-describe('channelLimitProblems — settings a room’s processor cannot take', () => {
-  it('finds nothing without limits or when everything fits', () => {
-    const c = channel({ eq: [{ type: 'peaking', frequencyHz: 200, gainDb: 3, q: 2 }] });
-    expect(channelLimitProblems(c, null)).toEqual([]);
-    expect(channelLimitProblems(c, STAGE3_LIMITS)).toEqual([]);
+describe('channelLimitProblems — settings a room’s processor cannot take (through findLimitViolations)', () => {
+  it('finds nothing without limits or when everything fits, boundaries included', () => {
+    const c = channel({
+      trimDb: -12,
+      delayMs: 75,
+      eq: [{ type: 'peaking', frequencyHz: 200, gainDb: 3, q: 2 }],
+    });
+    expect(channelLimitProblems(c, 48000, null)).toEqual([]);
+    expect(channelLimitProblems(c, 48000, STAGE3_LIMITS)).toEqual([]);
   });
 
-  it('names each field over a limit, boundaries included as allowed', () => {
+  it('names each field over a limit, relative to the channel, in words', () => {
     const c = channel({
       delayMs: 75.01,
       trimDb: -12.5,
@@ -40,23 +44,32 @@ describe('channelLimitProblems — settings a room’s processor cannot take', (
         { type: 'notch', frequencyHz: 50, q: 10 },
       ],
     });
-    expect(channelLimitProblems(c, STAGE3_LIMITS).map((p) => p.field)).toEqual([
-      '/delayMs',
-      '/trimDb',
-      '/eq',
-      '/eq/0/gainDb',
-    ]);
+    const problems = channelLimitProblems(c, 48000, STAGE3_LIMITS);
+    expect(problems.map((p) => p.field).sort()).toEqual(['/delayMs', '/eq', '/eq/0/gainDb', '/trimDb']);
+    expect(problems.find((p) => p.field === '/eq/0/gainDb')?.message).toBe(
+      'The room allows boosts up to +3 dB.',
+    );
+    expect(problems.find((p) => p.field === '/trimDb')?.message).toBe(
+      'The room allows trims down to \u221212 dB.',
+    );
     const cut = channelLimitProblems(
       channel({ eq: [{ type: 'highShelf', frequencyHz: 8000, gainDb: -12.1 }] }),
+      48000,
       STAGE3_LIMITS,
     );
-    expect(cut).toEqual([{ field: '/eq/0/gainDb', message: 'The room allows cuts down to −12 dB.' }]);
-    expect(channelLimitProblems(channel({ trimDb: 12.2 }), STAGE3_LIMITS)).toEqual([
-      { field: '/trimDb', message: 'The processor trims up to +12 dB at most.' },
+    expect(cut).toEqual([{ field: '/eq/0/gainDb', message: 'The room allows cuts down to \u221212 dB.' }]);
+    expect(channelLimitProblems(channel({ trimDb: 12.2 }), 48000, STAGE3_LIMITS)).toEqual([
+      { field: '/trimDb', message: 'The room allows trims up to +12 dB.' },
     ]);
-    expect(channelLimitProblems(channel({ trimDb: -12.2 }), STAGE3_LIMITS)[0].message).toBe(
-      'The processor trims down to \u221212 dB at most.',
-    );
+  });
+
+  it('holds overlapping bands to the boost limit together, in the check’s own words', () => {
+    // Two +2.5 dB peaks at the same frequency sum to +5 dB (dB add in a cascade).
+    const twin = { type: 'peaking' as const, frequencyHz: 1000, gainDb: 2.5, q: 1 };
+    const problems = channelLimitProblems(channel({ eq: [twin, twin] }), 48000, STAGE3_LIMITS);
+    expect(problems).toHaveLength(1);
+    expect(problems[0].field).toBe('/eq');
+    expect(problems[0].message).toMatch(/together boost 5 dB at 1000 Hz/);
   });
 });
 

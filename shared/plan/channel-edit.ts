@@ -1,18 +1,10 @@
 import { logFrequencyGrid } from '../dsp/grid';
 import { cascadeResponse } from '../dsp/response';
 import { CalculationInputError } from '../errors';
+import type { ProcessorProfileSettings } from '../processor/profile';
 import type { TuningChannel, TuningSubwoofer } from './tuning';
+import { findLimitViolations, type LimitViolation, type RoomLimits } from './tuning-limits';
 import { designTuning } from './tuning-design';
-
-/** What a room's processor can do (the optional `limits` of a stored room). */
-export interface ProcessorLimits {
-  delayMaxMs?: number;
-  trimMinDb?: number;
-  trimMaxDb?: number;
-  eqBandsPerChannel?: number;
-  eqMaxBoostDb?: number;
-  eqMaxCutDb?: number;
-}
 
 /** One setting of a channel the room's processor cannot take; `field` is relative to the channel. */
 export interface ChannelLimitProblem {
@@ -20,62 +12,65 @@ export interface ChannelLimitProblem {
   message: string;
 }
 
-const BOOST_TYPES = new Set(['peaking', 'lowShelf', 'highShelf']);
-
 /** A level with its sign, a true minus sign (U+2212) for negatives as typeset text has it. */
 const signed = (value: number): string => (value < 0 ? `\u2212${-value}` : value > 0 ? `+${value}` : '0');
 
+/** The violation in words for the field it sits under; the check's own sentence where none fits. */
+function inWords(violation: LimitViolation, field: string): string {
+  const value = violation.limit.value;
+  if (typeof value !== 'number') return violation.message;
+  const whose = violation.limit.source === 'room' ? 'The room' : 'The processor profile';
+  switch (violation.limit.name) {
+    case 'delayMaxMs':
+    case 'delay.max':
+      return `${whose} allows delays up to ${value} ms.`;
+    case 'trimMinDb':
+    case 'trimDb.min':
+      return `${whose} allows trims down to ${signed(value)} dB.`;
+    case 'trimMaxDb':
+    case 'trimDb.max':
+      return `${whose} allows trims up to ${signed(value)} dB.`;
+    case 'eqBandsPerChannel':
+    case 'eq.bandsPerChannel':
+      return `${whose} allows ${value} EQ bands per output.`;
+    case 'eqMaxBoostDb':
+      return field === '/eq'
+        ? `${violation.message[0].toUpperCase()}${violation.message.slice(1)}.`
+        : `${whose} allows boosts up to ${signed(value)} dB.`;
+    case 'eqMaxCutDb':
+      return `${whose} allows cuts down to ${signed(-value)} dB.`;
+    default:
+      return `${violation.message[0].toUpperCase()}${violation.message.slice(1)}.`;
+  }
+}
+
 /**
- * The settings of one channel that fall outside the room's processor limits: delay above
- * `delayMaxMs`, trim outside `trimMinDb`…`trimMaxDb`, more EQ bands than `eqBandsPerChannel`, a band
- * boosting more than `eqMaxBoostDb` or cutting more than `eqMaxCutDb`. Empty when the room has no
- * limits or everything fits. Fields are JSON pointers relative to the channel (`/eq/2/gainDb`), in the
- * shape the API names them under `/body/channels/i`.
+ * The settings of one channel outside the room's limits and its processor profile, found by the same
+ * check every tuning write goes through (findLimitViolations), so the editor refuses as the API does.
+ * Fields are JSON pointers relative to the channel (`/eq/2/gainDb`), the shape the API names them in
+ * under `/body/channels/i`. A channel whose filters cannot be designed yet (a band above Nyquist) is left
+ * to channelCorrection, which names that field.
  */
 export function channelLimitProblems(
-  channel: Pick<TuningChannel, 'delayMs' | 'trimDb' | 'eq'>,
-  limits: ProcessorLimits | null | undefined,
+  channel: TuningChannel,
+  sampleRateHz: number,
+  limits: RoomLimits | null | undefined,
+  profile?: ProcessorProfileSettings | null,
 ): ChannelLimitProblem[] {
-  if (!limits) return [];
-  const problems: ChannelLimitProblem[] = [];
-  const { delayMaxMs, trimMinDb, trimMaxDb, eqBandsPerChannel, eqMaxBoostDb, eqMaxCutDb } = limits;
-  if (delayMaxMs !== undefined && channel.delayMs > delayMaxMs) {
-    problems.push({ field: '/delayMs', message: `The processor delays at most ${delayMaxMs} ms.` });
+  if (!limits && !profile) return [];
+  let violations: LimitViolation[];
+  try {
+    violations = findLimitViolations({ sampleRateHz, channels: [channel], subwoofer: null }, limits, profile);
+  } catch (error) {
+    if (error instanceof CalculationInputError) return [];
+    throw error;
   }
-  if (trimMinDb !== undefined && channel.trimDb < trimMinDb) {
-    problems.push({
-      field: '/trimDb',
-      message: `The processor trims down to ${signed(trimMinDb)} dB at most.`,
+  return violations
+    .filter((violation) => violation.setting.startsWith('/channels/0'))
+    .map((violation) => {
+      const field = violation.setting.slice('/channels/0'.length);
+      return { field, message: inWords(violation, field) };
     });
-  }
-  if (trimMaxDb !== undefined && channel.trimDb > trimMaxDb) {
-    problems.push({
-      field: '/trimDb',
-      message: `The processor trims up to ${signed(trimMaxDb)} dB at most.`,
-    });
-  }
-  if (eqBandsPerChannel !== undefined && channel.eq.length > eqBandsPerChannel) {
-    problems.push({
-      field: '/eq',
-      message: `The processor has ${eqBandsPerChannel} EQ bands per output; this channel uses ${channel.eq.length}.`,
-    });
-  }
-  channel.eq.forEach((band, i) => {
-    if (!BOOST_TYPES.has(band.type) || band.gainDb === undefined) return;
-    if (eqMaxBoostDb !== undefined && band.gainDb > eqMaxBoostDb) {
-      problems.push({
-        field: `/eq/${i}/gainDb`,
-        message: `The room allows boosts up to ${signed(eqMaxBoostDb)} dB.`,
-      });
-    }
-    if (eqMaxCutDb !== undefined && band.gainDb < -eqMaxCutDb) {
-      problems.push({
-        field: `/eq/${i}/gainDb`,
-        message: `The room allows cuts down to ${signed(-eqMaxCutDb)} dB.`,
-      });
-    }
-  });
-  return problems;
 }
 
 /** A delay in whole samples at `sampleRateHz`, rounded to the nearest sample as the export rounds it. */

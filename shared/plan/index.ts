@@ -23,7 +23,6 @@ export {
   type DesignedChannel,
   type DesignedSection,
 } from './tuning-design';
-export { tuningToCsv } from './tuning-csv';
 export { compareTunings, type TuningComparison, type ChannelDifference } from './tuning-compare';
 export { tuningCautions } from './tuning-cautions';
 export {

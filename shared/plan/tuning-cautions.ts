@@ -1,29 +1,76 @@
+import { eqExtremes } from '../filters/eq-extremes';
 import type { Layout } from '../layouts';
 import type { Caution } from '../notices';
+import { HEARING_CAUTION } from './hearing';
 import type { TuningSettings } from './tuning';
+import type { RoomLimits } from './tuning-limits';
 
-/** Cautions to show with a stored tuning: loud test signals, boosts, bass summing, overhead mounting. */
-export function tuningCautions(settings: TuningSettings, layout: Layout | undefined): Caution[] {
+const LFE_LABEL = /^LFE\d*$/;
+const round2 = (value: number): number => Math.round(value * 100) / 100;
+
+export interface TuningCautionContext {
+  layout?: Layout;
+  /** The room's limits: a trim at its limit gets a caution of its own. */
+  limits?: RoomLimits | null;
+  /** For an export: the settings are about to reach a processor. */
+  forExport?: boolean;
+}
+
+/**
+ * Cautions to show with a stored tuning, with true figures: loud test signals (deferring to local
+ * occupational limits), boosts (each channel's largest boost of its EQ bands together, as designed,
+ * and positive trims), a full-range channel without a high-pass, a trim run into the room's limit,
+ * bass summing, overhead mounting; at export, that the boosts reach the processor now.
+ */
+export function tuningCautions(settings: TuningSettings, context: TuningCautionContext = {}): Caution[] {
+  const { layout, limits, forExport = false } = context;
   const cautions: Caution[] = [
     {
       code: 'testSignalLevel',
-      message:
-        'Checking a tuning plays test signals at the reference level. Start with the system turned down and raise it gradually; protect hearing (NIOSH recommends at most 85 dBA over 8 hours, halving the time for every 3 dB more).',
+      message: `Checking a tuning plays test signals at the reference level. Start with the system turned down and raise it gradually. ${HEARING_CAUTION}`,
     },
   ];
-  const boosted = settings.channels
-    .filter((c) => c.trimDb > 0 || c.eq.some((f) => (f.gainDb ?? 0) > 0))
-    .map((c) => c.id);
-  if (boosted.length > 0) {
+  const boosts = settings.channels.flatMap((c) => {
+    const eq = eqExtremes(c.eq, settings.sampleRateHz);
+    const parts = [
+      ...(eq.maxBoostDb > 0 ? [`EQ +${round2(eq.maxBoostDb)} dB at ${round2(eq.maxBoostHz ?? 0)} Hz`] : []),
+      ...(c.trimDb > 0 ? [`trim +${round2(c.trimDb)} dB`] : []),
+    ];
+    return parts.length > 0 ? [`${c.id} (${parts.join(', ')})`] : [];
+  });
+  if (boosts.length > 0) {
     cautions.push({
       code: 'boost',
-      message: `${boosted.join(', ')} ${boosted.length === 1 ? 'has' : 'have'} a positive trim or EQ boost; boosts, especially at low frequencies, can overdrive amplifiers and drivers. Check headroom, prefer cuts.`,
+      message:
+        (forExport
+          ? `Loading these settings puts boosts into the processor: ${boosts.join('; ')}. `
+          : `Boosts: ${boosts.join('; ')} (EQ figures are each channel's bands together, as designed). `) +
+        'Boosts, especially at low frequencies, can overdrive amplifiers and drivers. Check headroom, prefer cuts, and load the settings with the system turned down.',
+    });
+  }
+  const subChannel = settings.subwoofer?.channel;
+  const fullRange = settings.channels
+    .filter((c) => c.highPass === null && c.id !== subChannel && !LFE_LABEL.test(c.id))
+    .map((c) => c.id);
+  if (fullRange.length > 0) {
+    cautions.push({
+      code: 'fullRangeNoHighPass',
+      message: `${fullRange.join(', ')} ${fullRange.length === 1 ? 'has' : 'have'} no high-pass and will be fed full range. Make sure each loudspeaker can take the low end at the calibration level (check its specified low-frequency limit), or give it a high-pass and bass-manage it.`,
+    });
+  }
+  const atLimit = settings.channels.filter(
+    (c) => limits?.trimMaxDb !== undefined && limits.trimMaxDb > 0 && c.trimDb >= limits.trimMaxDb,
+  );
+  if (atLimit.length > 0) {
+    cautions.push({
+      code: 'trimAtLimit',
+      message: `${atLimit.map((c) => `${c.id} (+${round2(c.trimDb)} dB)`).join(', ')} ${atLimit.length === 1 ? 'is' : 'are'} trimmed up to the room's limit of +${limits?.trimMaxDb} dB: a channel that reads this low usually has a fault. Check the loudspeaker and its wiring before adding gain.`,
     });
   }
   if (settings.subwoofer?.headroomDb !== undefined && settings.channels.some((c) => c.bassManaged)) {
     cautions.push({
       code: 'bassSumming',
-      message: `Bass management sums the managed channels and the LFE into the subwoofer feed, which needs up to ${settings.subwoofer.headroomDb.toFixed(1)} dB more headroom than one channel.`,
+      message: `Bass management sums the managed channels and the LFE into the subwoofer feed, which needs up to ${settings.subwoofer.headroomDb.toFixed(2)} dB more headroom than one channel.`,
     });
   }
   if (layout?.channels.some((c) => c.layer === 'upper' || c.layer === 'upperHigh' || c.layer === 'top')) {

@@ -5,7 +5,6 @@ import { planRoom } from './plan-room';
 import { planToTuningSettings } from './plan-to-tuning';
 import { checkTuningSettings, type TuningSettings } from './tuning';
 import { compareTunings } from './tuning-compare';
-import { tuningToCsv } from './tuning-csv';
 import { designTuning } from './tuning-design';
 
 const base = (): TuningSettings => ({
@@ -67,32 +66,6 @@ describe('designTuning', () => {
     );
     // Cookbook property: the peaking section gives exactly −4 dB at 120 Hz.
     expect(cascadeResponse([main.sections[0]], [120], rate).magnitudeDb[0]).toBeCloseTo(-4, 9);
-  });
-});
-
-describe('tuningToCsv', () => {
-  it('writes RFC 4180 rows, quoting fields that need it, with exact round-trip numbers', () => {
-    const s = base();
-    s.channels[1] = { ...s.channels[1], id: 'Sub, "left"' };
-    s.subwoofer = null;
-    const csv = tuningToCsv(designTuning(s, 48000));
-    const lines = csv.split('\r\n');
-    expect(csv.endsWith('\r\n')).toBe(true);
-    expect(lines[1].split(',').slice(8).map(Number)).toEqual(
-      Object.values(designBiquad(s.channels[0].eq[0], 48000)).slice(1),
-    );
-    expect(lines[lines.length - 2]).toBe('"Sub, ""left""",0,0,0,normal,,,,,,,,');
-  });
-});
-
-describe('tuningToCsv and formulas', () => {
-  it('guards a channel id that would run as a formula; negative trims and coefficients stay numbers', () => {
-    const s = base();
-    s.channels[0] = { ...s.channels[0], id: '=HYPERLINK("http://x")', trimDb: -1.6 };
-    const first = tuningToCsv(designTuning(s, 48000)).split('\r\n')[1];
-    expect(first.startsWith(`"'=HYPERLINK(""http://x"")",`)).toBe(true);
-    expect(first).toContain(',-1.6,');
-    expect(first).not.toMatch(/,'-/);
   });
 });
 

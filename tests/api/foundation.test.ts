@@ -14,7 +14,14 @@ afterAll(async () => {
 describe('service basics', () => {
   it('answers /healthz and /readyz', async () => {
     expect((await request(ctx.app).get('/healthz')).body).toEqual({ status: 'ok' });
-    expect((await request(ctx.app).get('/readyz')).body).toEqual({ status: 'ready' });
+    const ready = await request(ctx.app).get('/readyz');
+    expect(ready.status).toBe(200);
+    expect(ready.body.status).toBe('ready');
+    // Each dependency by name: the database on whichever engine this run uses, Redis only when configured.
+    const engine = ctx.db.dialect === 'postgres' ? 'postgresql' : 'sqlite';
+    const expected = [{ name: 'database', engine, status: 'up' }];
+    if (ctx.services.shared.kind === 'redis') expected.push({ name: 'redis', engine: 'redis', status: 'up' });
+    expect(ready.body.dependencies).toEqual(expected);
   });
 
   it('puts a Request-Id on every response and keeps a well-formed incoming one', async () => {

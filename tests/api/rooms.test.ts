@@ -214,7 +214,7 @@ describe('GET /v1/rooms/{roomId}/report', () => {
     expect(res.text).toContain('peaking 209.7 Hz −3.5 dB Q 2.30');
     expect(res.text).toContain('low-pass LR4 80 Hz');
     expect((res.text.match(/<svg/g) ?? []).length).toBe(1 + 2);
-    expect(res.text).toContain('positive trim or EQ boost');
+    expect(res.text).toContain('Boosts: LFE1 (trim +1.5 dB)');
     expect(res.text).toContain('Correction responses');
   });
 

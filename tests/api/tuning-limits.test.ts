@@ -346,4 +346,49 @@ describe('a tuning made before the room changed is stale', () => {
     await patchRoom({ listener: STAGE3_ROOM.listener })(roomId);
     expect((await dev().get(`/v1/tunings/${tuningId}`)).body.stale).toBeNull();
   });
+
+  it('a stale tuning’s export and report say so first', async () => {
+    const { roomId, tuningId } = await staleAfter(patchRoom({ listener: { x: 3.05, y: 4.1, z: 1.2 } }));
+    const json = await dev().get(`/v1/tunings/${tuningId}/export`);
+    expect(json.status).toBe(200);
+    expectToMatchContract('exportTuning', 200, json.body);
+    expect(Object.keys(json.body)[0]).toBe('stale');
+    expect(json.body.stale.reasons).toEqual(['listener moved 0.80 m']);
+    const csv = await dev().get(`/v1/tunings/${tuningId}/export?format=csv`);
+    expect(csv.text.split('\r\n')[1]).toMatch(/^stale,since \S+: listener moved 0\.80 m$/);
+    const report = await dev().get(`/v1/rooms/${roomId}/report?tuningId=${tuningId}`);
+    const body = report.text.slice(report.text.indexOf('<body>'));
+    expect(body.indexOf('These settings are stale')).toBeGreaterThan(0);
+    expect(body.indexOf('These settings are stale')).toBeLessThan(body.indexOf('<header>'));
+    expect(body).toContain('listener moved 0.80 m');
+  });
+});
+
+describe('the export is refused when the chosen profile cannot take the tuning', () => {
+  it('a rate the profile does not run at names /query/sampleRateHz; a delay beyond it names /query/profile', async () => {
+    const roomId = await newRoom();
+    const tuning = await newTuning(roomId, [{ id: 'M+030', delayMs: 40 }]);
+    const short = await dev().post('/v1/processor-profiles', {
+      ...STAGE3_PROFILE,
+      name: 'Short delay',
+      delay: { unit: 'samples', min: 0, max: 960, step: 1 },
+    });
+    const atRate = await dev().get(
+      `/v1/tunings/${tuning.id}/export?profile=${short.body.id}&sampleRateHz=44100`,
+    );
+    expect(atRate.status).toBe(422);
+    expectToMatchContract('exportTuning', 422, atRate.body);
+    // 40 ms at 44.1 kHz is 1764 samples, beyond 960; the rate is not the profile's either.
+    expect(atRate.body.errors.map((e: FieldError) => [e.pointer, e.limit.name])).toEqual([
+      ['/query/sampleRateHz', 'sampleRatesHz'],
+      ['/query/profile', 'delay.max'],
+    ]);
+    const ok = await dev().get(`/v1/tunings/${tuning.id}/export?profile=none`);
+    expect(ok.status).toBe(200);
+    expect(ok.body.channels[0]).toMatchObject({ delaySamples: 1920, delayMs: 40 });
+    const foreign = await request(ctx.app)
+      .get(`/v1/tunings/${tuning.id}/export?profile=prof_0doesnotexist`)
+      .set('Authorization', `Bearer ${ctx.keys.tuning}`);
+    expect(foreign.status).toBe(404);
+  });
 });

@@ -222,6 +222,36 @@ describe('versions, duplicate and compare', () => {
   });
 });
 
+describe('concurrent edits', () => {
+  // On SQLite the write queue runs them one by one; on PostgreSQL they run side by side and the row
+  // lock orders them. Either way: versions n+1 … n+40, each once.
+  it('40 edits of one tuning at once get 40 distinct consecutive versions', async () => {
+    const created = await dev().post(`/v1/rooms/${roomId}/tunings`, {
+      name: 'Edited at once',
+      sampleRateHz: 48000,
+      channels: [{ id: 'M+030', delayMs: 1, trimDb: -1 }],
+    });
+    expect(created.status).toBe(201);
+    const id = created.body.id as string;
+    const edits = await Promise.all(
+      Array.from({ length: 40 }, (_, i) => dev().patch(`/v1/tunings/${id}`, { notes: `edit ${i}` })),
+    );
+    expect(edits.map((e) => e.status)).toEqual(Array.from({ length: 40 }, () => 200));
+    const versions = edits.map((e) => e.body.version as number).sort((a, b) => a - b);
+    expect(versions).toEqual(Array.from({ length: 40 }, (_, i) => i + 2));
+    // Each edit's note is in exactly the version that edit answered with.
+    const stored = await ctx.db.models.TuningVersion.findAll({
+      where: { tuningId: id },
+      order: [['version', 'ASC']],
+    });
+    expect(stored.map((v) => v.version)).toEqual(Array.from({ length: 41 }, (_, i) => i + 1));
+    for (const edit of edits) {
+      expect(stored.find((v) => v.version === edit.body.version)?.notes).toBe(edit.body.notes);
+    }
+    expect((await dev().get(`/v1/tunings/${id}`)).body.latestVersion).toBe(41);
+  });
+});
+
 describe('export', () => {
   let eqTuningId: string;
   const filters = [
@@ -251,17 +281,24 @@ describe('export', () => {
     eqTuningId = res.body.id;
   });
 
-  // The export re-designs from the stored parameters at each rate; the coefficients must equal what the
-  // calculation endpoints (POST /v1/biquads, POST /v1/crossovers) and designBiquad give at that rate.
+  // Without a processor profile the export re-designs from the stored parameters at each rate in the
+  // API's own convention; the coefficients must equal what the calculation endpoints (POST /v1/biquads,
+  // POST /v1/crossovers) and designBiquad give at that rate.
   it.each([44100, 48000, 96000])(
-    'JSON at %i Hz equals POST /v1/biquads, POST /v1/crossovers and designBiquad',
+    'JSON at %i Hz (no profile) equals POST /v1/biquads, POST /v1/crossovers and designBiquad',
     async (rate) => {
       const res = await dev().get(`/v1/tunings/${eqTuningId}/export?format=json&sampleRateHz=${rate}`);
       expect(res.status).toBe(200);
       expectToMatchContract('exportTuning', 200, res.body);
-      expect(res.body.sampleRateHz).toBe(rate);
+      expect(res.body.header).toMatchObject({ sampleRateHz: rate, profile: null, version: 1, roomId });
+      expect(res.body.coefficientLayout).toEqual({
+        order: ['b0', 'b1', 'b2', 'a1', 'a2'],
+        feedbackSign: 'plus',
+        numberFormat: 'full',
+      });
       const main = res.body.channels.find((c: { id: string }) => c.id === 'M+030');
       expect(main.delaySamples).toBe(Math.round((1.5636 * rate) / 1000));
+      expect(main.delayMs).toBe((main.delaySamples * 1000) / rate);
       const biquads = await as(ctx.keys.calculate).post('/v1/biquads', { filters, sampleRateHz: rate });
       const crossover = await as(ctx.keys.calculate).post('/v1/crossovers', {
         family: 'linkwitzRiley',
@@ -269,39 +306,46 @@ describe('export', () => {
         frequencyHz: 80,
         sampleRateHz: rate,
       });
-      const strip = (s: Record<string, number>) => ({ b0: s.b0, b1: s.b1, b2: s.b2, a1: s.a1, a2: s.a2 });
-      const eq = main.sections.filter((s: { stage: string }) => s.stage === 'eq').map(strip);
-      expect(eq).toEqual(biquads.body.sections.map(strip));
+      const row = (s: Record<string, number>) => [s.b0, s.b1, s.b2, s.a1, s.a2];
+      const eq = main.eq.map((b: { coefficients: number[] }) => b.coefficients);
+      expect(eq).toEqual(biquads.body.sections.map(row));
       expect(eq).toEqual(
-        filters.map((f) => strip(designBiquad(f as Parameters<typeof designBiquad>[0], rate) as never)),
+        filters.map((f) => row(designBiquad(f as Parameters<typeof designBiquad>[0], rate) as never)),
       );
-      expect(main.sections.filter((s: { stage: string }) => s.stage === 'highPass').map(strip)).toEqual(
-        crossover.body.highPass.sections.map(strip),
-      );
+      expect(main.highPass.sections).toEqual(crossover.body.highPass.sections.map(row));
       const sub = res.body.channels.find((c: { id: string }) => c.id === 'LFE1');
-      expect(sub.sections.map(strip)).toEqual(crossover.body.lowPass.sections.map(strip));
+      expect(sub.lowPass.sections).toEqual(crossover.body.lowPass.sections.map(row));
+      expect(main.eqRounding.maxDeviationDb).toBeLessThan(1e-9);
       // Audio EQ Cookbook property: a peaking section gives exactly its gain at f0, at every rate.
-      const [atF0] = cascadeResponse([eq[0]], [47.5], rate).magnitudeDb;
+      const [b0, b1, b2, a1, a2] = eq[0];
+      const [atF0] = cascadeResponse([{ b0, b1, b2, a1, a2 }], [47.5], rate).magnitudeDb;
       expect(atF0).toBeCloseTo(-6.5, 9);
     },
   );
 
-  it('CSV parses back to exactly the JSON coefficients', async () => {
+  it('CSV: header block, parameters table, coefficients table that parses back to exactly the JSON', async () => {
     const json = await dev().get(`/v1/tunings/${eqTuningId}/export?sampleRateHz=96000`);
     const csv = await dev().get(`/v1/tunings/${eqTuningId}/export?format=csv&sampleRateHz=96000`);
     expect(csv.status).toBe(200);
     expect(csv.headers['content-type']).toMatch(/^text\/csv/);
     expect(csv.headers['content-disposition']).toMatch(/attachment; filename="?tun_\w+-v1-96000\.csv"?/);
-    const lines = csv.text.trim().split('\r\n');
-    expect(lines[0]).toBe(
-      'channel,delayMs,delaySamples,trimDb,polarity,stage,section,filterType,b0,b1,b2,a1,a2',
-    );
+    const [head, , coefficients] = csv.text.split('\r\n\r\n');
+    expect(head.split('\r\n').slice(0, 3)).toEqual(['field,value', `tuningId,${eqTuningId}`, 'version,1']);
+    const lines = coefficients.trim().split('\r\n');
+    expect(lines[0]).toBe('channel,stage,section,b0,b1,b2,a1,a2');
     const rows = lines.slice(1).map((l) => l.split(','));
-    const fromJson = json.body.channels.flatMap(
-      (c: { id: string; sections: Array<Record<string, number>> }) =>
-        c.sections.map((s) => [c.id, s.b0, s.b1, s.b2, s.a1, s.a2]),
-    );
-    expect(rows.map((r) => [r[0], ...r.slice(8).map(Number)])).toEqual(fromJson);
+    type Channel = {
+      id: string;
+      eq: Array<{ coefficients: number[] }>;
+      highPass: { sections: number[][] } | null;
+      lowPass: { sections: number[][] } | null;
+    };
+    const fromJson = json.body.channels.flatMap((c: Channel) => [
+      ...c.eq.map((b) => [c.id, ...b.coefficients]),
+      ...(c.highPass?.sections ?? []).map((s) => [c.id, ...s]),
+      ...(c.lowPass?.sections ?? []).map((s) => [c.id, ...s]),
+    ]);
+    expect(rows.map((r) => [r[0], ...r.slice(3).map(Number)])).toEqual(fromJson);
   });
 
   it('a stored filter above the requested rate’s Nyquist → 422 naming the query parameter', async () => {
@@ -394,5 +438,38 @@ describe('demo seed: Stage 3 with two tunings', () => {
     const report = await as(key).get(`/v1/rooms/${room.id}/report`);
     expect(report.status).toBe(200);
     expect(report.text).toContain('Demo data');
+
+    // The room uses the demo processor profile: the export rounds to its steps and layout.
+    expect(room.profileId).toMatch(/^prof_/);
+    const exported = await as(key).get(`/v1/tunings/${managed.id}/export`);
+    expect(exported.status).toBe(200);
+    expectToMatchContract('exportTuning', 200, exported.body);
+    expect(exported.body.stale).toBeNull();
+    expect(exported.body.header.profile.name).toBe('Generic 8-band, 48/96 kHz (demo)');
+    expect(exported.body.coefficientLayout).toEqual({
+      order: ['b0', 'b1', 'b2', 'a1', 'a2'],
+      feedbackSign: 'minus',
+      numberFormat: 'decimal',
+      decimalPlaces: 9,
+    });
+    type Exported = {
+      delayMs: number;
+      delaySamples: number;
+      trimDb: number;
+      eq: Array<{ gainDb: number; coefficients: number[] }>;
+      eqRounding: { maxDeviationDb: number };
+    };
+    for (const c of exported.body.channels as Exported[]) {
+      // On the profile's 0.01 ms and 0.1 dB steps; samples from the same quantised delay.
+      expect(Math.abs(c.delayMs * 100 - Math.round(c.delayMs * 100))).toBeLessThan(1e-9);
+      expect(c.delaySamples).toBeCloseTo(c.delayMs * 48, 9);
+      expect(Math.abs(c.trimDb * 10 - Math.round(c.trimDb * 10))).toBeLessThan(1e-9);
+      for (const band of c.eq) {
+        expect(band.coefficients.every((x) => Math.abs(x * 1e9 - Math.round(x * 1e9)) < 1e-3)).toBe(true);
+      }
+      expect(c.eqRounding.maxDeviationDb).toBeGreaterThanOrEqual(0);
+    }
+    expect(exported.body.bassManagement.routing).toHaveLength(12);
+    expect(exported.body.header.cautions.map((c: { code: string }) => c.code)).toContain('testSignalLevel');
   });
 });

@@ -119,7 +119,7 @@ it('designs a biquad in the playground with the new key and plots its response',
     /Magnitude response on a logarithmic frequency axis/,
   );
   const snippet = await page.getByTestId('snippet-curl').textContent();
-  expect(snippet).toContain('$ISOCHRON_API_KEY');
+  expect(snippet).toContain('$ISOCHRON_KEY');
   expect(snippet).not.toContain(secret);
   await screenshot(page, 'playground-biquad-plot');
 });

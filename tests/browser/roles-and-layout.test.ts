@@ -50,10 +50,18 @@ describe('the demo viewer', () => {
       expect(await page.getByRole('link', { name: /Create an API key|Invite a colleague/ }).count()).toBe(0);
       await screenshot(page, 'overview-viewer');
 
-      for (const path of ['/keys', '/users']) {
+      // A link to a page the role may not open says so at that address instead of jumping elsewhere.
+      for (const [path, needs] of [
+        ['/keys', /may hold API keys: the Developer or Admin role\. You are signed in as Viewer/],
+        ['/users', /may manage users: the Admin role/],
+        ['/rooms', /may work with rooms, measurements and tunings/],
+      ] as const) {
         await page.goto(`${service.origin}${path}`);
-        await page.waitForURL(`${service.origin}/`);
+        await page.getByRole('heading', { level: 1, name: 'This page needs another role' }).waitFor();
+        expect(await page.getByTestId('needs-permission').textContent()).toMatch(needs);
+        expect(page.url()).toBe(`${service.origin}${path}`);
       }
+      await screenshot(page, 'viewer-needs-role');
       for (const testId of ['create-key', 'revoke-key', 'invite-user']) {
         expect(await page.getByTestId(testId).count()).toBe(0);
       }

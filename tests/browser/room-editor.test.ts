@@ -115,6 +115,14 @@ it('edits the demo room, keyboard only, and fits a phone in the dark scheme', as
     await editor(page).getByTestId('save-room').focus();
     await page.keyboard.press('Enter');
     await page.getByRole('heading', { level: 1, name: 'Stage 3' }).waitFor();
+    // A loudspeaker moved: the tunings made for the room as it was are marked, with the reason.
+    await page.getByTestId('stale-chip').first().waitFor();
+    expect(await page.getByTestId('stale-chip').first().textContent()).toMatch(/stale: .*U-135/);
+    await page.getByRole('link', { name: 'Full range (demo)' }).click();
+    await page.getByTestId('stale-tuning').getByText(/U-135/).waitFor();
+    await screenshot(page, 'dark-tuning-stale');
+    await page.goBack();
+    await page.getByRole('heading', { level: 1, name: 'Stage 3' }).waitFor();
 
     await page.setViewportSize(PHONE);
     await page.getByTestId('edit-room').click();

@@ -52,6 +52,32 @@ async function openTuning(page: Page, name: string): Promise<void> {
 
 const editor = (page: Page) => page.getByTestId('channel-editor');
 
+it('applies a measured channel’s fitted EQ to a chosen tuning as a new version', async () => {
+  await withBrowser('light', async (page) => {
+    await openPage(page, service.origin, '/rooms', 'Rooms');
+    await page.getByRole('link', { name: /Stage 3/ }).click();
+    await page.getByRole('heading', { level: 1, name: 'Stage 3' }).waitFor();
+    await page.getByRole('button', { name: /Show M\+030 at 2/ }).click();
+    await page.getByRole('heading', { name: 'Response of M+030' }).waitFor();
+    await page.getByTestId('fit-summary').waitFor();
+    const fitted = await page.getByRole('list', { name: 'Fitted EQ bands' }).locator('li').count();
+    expect(fitted).toBeGreaterThan(0);
+    await page.getByTestId('apply-fit').click();
+    const dialog = page.getByRole('dialog');
+    await dialog.getByTestId('apply-tuning').click();
+    await page.getByRole('option', { name: /Full range \(demo\)/ }).click();
+    expect(await dialog.getByTestId('apply-channel').textContent()).toMatch(/M\+030 \(measured\)/);
+    await screenshot(page, 'apply-fit-dialog');
+    await dialog.getByTestId('apply-confirm').click();
+    await page.getByText(/Fitted EQ applied to M\+030 of “Full range \(demo\)”, version 2\./).waitFor();
+    await page.getByRole('button', { name: 'Open' }).click();
+    await page.getByRole('heading', { level: 1, name: 'Full range (demo)' }).waitFor();
+    await page.getByText('Version 2 of 2').waitFor();
+    const row = page.getByTestId('tuning-channels').getByRole('row', { name: /M\+030/ });
+    expect((await row.getByRole('cell').last().textContent())?.trim()).toBe(String(fitted));
+  });
+});
+
 it('edits a channel: limits refused as typed, a new version saved, its changes shown and restored', async () => {
   await withBrowser('light', async (page) => {
     await openTuning(page, 'Bass-managed 80 Hz (demo)');
@@ -64,16 +90,15 @@ it('edits a channel: limits refused as typed, a new version saved, its changes s
     await page.getByTestId('pick-M+000').click();
     await page.getByRole('heading', { name: 'M+000' }).waitFor();
     await editor(page).getByText('Room limits: delay up to 75.0 ms').waitFor();
-    // The new band comes after the bands the plan fitted (however many the fitter chose).
-    const fitted = await editor(page).locator('[data-testid^="eq-band-"]').count();
+    const before = await editor(page).locator('[data-testid^="eq-band-"]').count();
     await editor(page).getByTestId('add-band').click();
-    const band = editor(page).getByTestId(`eq-band-${fitted}`);
+    const band = editor(page).getByTestId(`eq-band-${before}`);
     await band.getByTestId('band-frequencyHz').fill('120');
     await band.getByTestId('band-gainDb').fill('6');
     await band.getByText('The room allows boosts up to +3 dB.').waitFor();
     expect(await editor(page).getByTestId('save-channel').isDisabled()).toBe(true);
     await editor(page).getByTestId('field-trimDb').fill('-13');
-    await editor(page).getByText('The processor trims down to −12 dB at most.').waitFor();
+    await editor(page).getByText('The room allows trims down to −12 dB.').waitFor();
     await screenshot(page, 'tuning-limits-refused');
 
     await band.getByTestId('band-gainDb').fill('-4.5');
@@ -88,7 +113,7 @@ it('edits a channel: limits refused as typed, a new version saved, its changes s
 
     await page.getByTestId('changes-v2').click();
     const diff = page.getByTestId('comparison').getByRole('row', { name: /M\+000/ });
-    await diff.getByText(`${fitted} → ${fitted + 1} (changed)`).waitFor();
+    await diff.getByText(`${before} → ${before + 1} (changed)`).waitFor();
     await screenshot(page, 'tuning-version-changes');
 
     await page.getByTestId('restore-v1').click();
@@ -105,7 +130,7 @@ it('edits a channel: limits refused as typed, a new version saved, its changes s
         .getByRole('cell')
         .last()
         .textContent(),
-    ).toMatch(new RegExp(`^\\s*${fitted}\\s*$`));
+    ).toMatch(new RegExp(`^\\s*${before}\\s*$`));
   });
 });
 
@@ -142,7 +167,7 @@ it('shows a past version read-only, compares with another tuning, renames, repor
     await page.getByTestId('delete-tuning').click();
     await page
       .getByRole('dialog')
-      .getByText(/Both versions of this tuning are deleted/)
+      .getByText(/All 3 versions of this tuning are deleted/)
       .waitFor();
     await page.getByRole('dialog').getByTestId('confirm-action').click();
     await page.getByRole('heading', { level: 1, name: 'Stage 3' }).waitFor();

@@ -1,10 +1,9 @@
-import { existsSync, readFileSync } from 'node:fs';
-import path from 'node:path';
 import { Writable } from 'node:stream';
 import pino from 'pino';
 import request from 'supertest';
 import { createApp } from '../../api/app';
 import { hashKeySecret } from '../../api/auth/key-secret';
+import { storedBytes } from '../support/stored-bytes';
 import { createTestContext, type TestContext } from '../support/test-context';
 
 let ctx: TestContext;
@@ -18,16 +17,8 @@ afterAll(async () => {
   await ctx.close();
 });
 
-/** Every byte SQLite has written: the database file, its write-ahead log and shared-memory index. */
-function databaseBytes(): Buffer {
-  const file = path.join(ctx.dir, 'test.sqlite');
-  return Buffer.concat(
-    [file, `${file}-wal`, `${file}-shm`].filter((f) => existsSync(f)).map((f) => readFileSync(f)),
-  );
-}
-
 describe('keys at rest', () => {
-  it('no clear key is anywhere in the SQLite files; only its HMAC is', async () => {
+  it('no clear key is anywhere in what the service stores; only its HMAC is', async () => {
     const created: Array<{ secret: string; id: string }> = [];
     for (const role of ['calculate', 'tuning', 'admin']) {
       const res = await request(ctx.app)
@@ -40,7 +31,7 @@ describe('keys at rest', () => {
     }
     await ctx.services.usage.flush();
     const secrets = [...created.map((c) => c.secret), ...Object.values(ctx.keys)];
-    const bytes = databaseBytes();
+    const bytes = await storedBytes(ctx);
 
     // The files were read with their content: the keys' names and hashes are there.
     expect(bytes.includes('At rest admin')).toBe(true);

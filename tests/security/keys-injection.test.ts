@@ -1,4 +1,5 @@
 import request from 'supertest';
+import { tableNames } from '../support/stored-bytes';
 import { createTestContext, type TestContext } from '../support/test-context';
 
 let ctx: TestContext;
@@ -59,8 +60,7 @@ describe('SQL-injection strings', () => {
       })
     ).map((k) => [k.id, k.role]);
     expect(rolesAfter).toEqual(rolesBefore);
-    const [tables] = await ctx.db.sequelize.query("SELECT name FROM sqlite_master WHERE type = 'table'");
-    expect((tables as Array<{ name: string }>).map((t) => t.name)).toEqual(
+    expect(await tableNames(ctx)).toEqual(
       expect.arrayContaining(['api_keys', 'users', 'usage_buckets', 'audit_events']),
     );
   });

@@ -1,6 +1,4 @@
-import { readdirSync, readFileSync } from 'node:fs';
 import { createServer } from 'node:net';
-import path from 'node:path';
 import request from 'supertest';
 import {
   CONSOLE_HEADERS,
@@ -10,13 +8,8 @@ import {
   TEST_EMAILS,
   TEST_PASSWORD,
 } from '../support/console-session';
+import { storedBytes } from '../support/stored-bytes';
 import { createTestContext, type TestContext } from '../support/test-context';
-
-/** Every byte SQLite holds for the test database: the main file plus its write-ahead log. */
-function databaseBytes(ctx: TestContext): Buffer {
-  const files = readdirSync(ctx.dir).filter((name) => name.startsWith('test.sqlite'));
-  return Buffer.concat(files.map((name) => readFileSync(path.join(ctx.dir, name))));
-}
 
 const containsText = (bytes: Buffer, text: string): boolean =>
   bytes.includes(Buffer.from(text, 'utf8')) || bytes.includes(Buffer.from(text, 'utf16le'));
@@ -60,7 +53,7 @@ describe('secrets at rest', () => {
       .set(CONSOLE_HEADERS)
       .send({ email: TEST_EMAILS.admin, password: 'a-wrong-guess-99' });
 
-    const bytes = databaseBytes(ctx);
+    const bytes = await storedBytes(ctx);
     // Sanity check that the search can find what is there: the invited address is stored in clear.
     expect(containsText(bytes, 'new.hire@test.example')).toBe(true);
     for (const secret of [chosenPassword, TEST_PASSWORD, 'a-wrong-guess-99', token, sid]) {

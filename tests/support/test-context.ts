@@ -10,6 +10,7 @@ import { newId } from '../../api/db/ids';
 import type { KeyRole } from '../../api/db/models/api-key';
 import type { UserRole } from '../../api/db/models/user';
 import { closeServices, createServices, type Services } from '../../api/services';
+import { testEngineEnv } from './engines';
 
 export interface TestContext {
   app: Express;
@@ -26,14 +27,24 @@ export interface TestContext {
 
 export interface TestContextOptions {
   env?: Record<string, string>;
+  /**
+   * `sqlite` keeps a test on the embedded engine in every run, for tests whose subject is the SQLite
+   * file itself (its permissions, its page limit). Default: the run's engines.
+   */
+  engine?: 'sqlite';
 }
 
-/** A real app on a fresh SQLite file in a temporary folder, with users and keys of every role. */
+/**
+ * A real app on a fresh database with users and keys of every role: a SQLite file in a temporary
+ * folder, or a fresh PostgreSQL database (and a Redis prefix of its own) when the suite runs on the
+ * scaled engines (`tests/support/engines.ts`).
+ */
 export async function createTestContext(options: TestContextOptions = {}): Promise<TestContext> {
   const dir = mkdtempSync(path.join(tmpdir(), 'isochron-test-'));
+  const engines = await testEngineEnv(dir, options.engine);
   const config = loadConfig({
     NODE_ENV: 'test',
-    DATABASE_URL: `sqlite:${path.join(dir, 'test.sqlite')}`,
+    ...engines.env,
     ISOCHRON_KEY_HASH_SECRET: 'test-key-hash-secret-0123456789abcdef',
     ISOCHRON_SESSION_SECRET: 'test-session-secret-0123456789abcdef',
     SEED_DEMO_DATA: 'false',
@@ -98,6 +109,7 @@ export async function createTestContext(options: TestContextOptions = {}): Promi
     addKey,
     close: async () => {
       await closeServices(services);
+      await engines.cleanUp();
       rmSync(dir, { recursive: true, force: true });
     },
   };

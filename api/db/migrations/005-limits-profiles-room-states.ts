@@ -44,23 +44,26 @@ export async function up({ context: qi }: { context: QueryInterface }): Promise<
     defaultValue: 1,
   });
 
+  // Quoted names: PostgreSQL folds unquoted ones to lower case. JSON columns come back as text from
+  // SQLite and already parsed from PostgreSQL.
   const rooms = await qi.sequelize.query<{
     id: string;
-    listener: string;
-    loudspeakers: string;
-    limits: string | null;
+    listener: unknown;
+    loudspeakers: unknown;
+    limits: unknown;
     sampleRateHz: number;
-    updatedAt: string;
-  }>('SELECT id, listener, loudspeakers, limits, sampleRateHz, updatedAt FROM rooms', {
+    updatedAt: string | Date;
+  }>('SELECT id, listener, loudspeakers, limits, "sampleRateHz", "updatedAt" FROM rooms', {
     type: QueryTypes.SELECT,
   });
+  const json = (value: unknown): unknown => (typeof value === 'string' ? JSON.parse(value) : value);
   for (const room of rooms) {
     const state = {
-      listener: JSON.parse(room.listener),
-      loudspeakers: (
-        JSON.parse(room.loudspeakers) as Array<{ id: string; x: number; y: number; z: number }>
-      ).map(({ id, x, y, z }) => ({ id, x, y, z })),
-      limits: room.limits === null ? null : JSON.parse(room.limits),
+      listener: json(room.listener),
+      loudspeakers: (json(room.loudspeakers) as Array<{ id: string; x: number; y: number; z: number }>).map(
+        ({ id, x, y, z }) => ({ id, x, y, z }),
+      ),
+      limits: room.limits === null ? null : json(room.limits),
       sampleRateHz: room.sampleRateHz,
       profile: null,
     };

@@ -85,6 +85,12 @@ export const routes: Routes = [
         loadComponent: () => import('./docs/docs-page/docs-page').then((m) => m.DocsPage),
       },
       {
+        path: 'needs-permission',
+        title: 'Needs another role · Isochron',
+        loadComponent: () =>
+          import('./shell/needs-permission-page/needs-permission-page').then((m) => m.NeedsPermissionPage),
+      },
+      {
         path: '**',
         title: 'Not found · Isochron',
         loadComponent: () => import('./shell/not-found-page/not-found-page').then((m) => m.NotFoundPage),

@@ -1,7 +1,7 @@
 import { inject } from '@angular/core';
-import { CanActivateFn, Router } from '@angular/router';
+import { CanActivateFn, RedirectCommand, Router } from '@angular/router';
 import { catchError, map, of } from 'rxjs';
-import { Capability, can } from './roles';
+import { CAPABILITY_NEEDS, Capability } from './roles';
 import { SessionService } from './session.service';
 
 /** Pages behind sign-in: unknown visitors go to the sign-in page and come back afterwards. */
@@ -14,12 +14,26 @@ export const requireSession: CanActivateFn = (_route, state) => {
   );
 };
 
-/** Pages only some roles may open (the server refuses the calls anyway). */
+/**
+ * Pages only some users may open (the server refuses the calls anyway). Anyone else gets a plain page
+ * saying what the page needs, at the address they asked for, instead of a silent jump elsewhere.
+ */
 export function requireCapability(capability: Capability): CanActivateFn {
-  return () => {
+  return (_route, state) => {
     const session = inject(SessionService);
     const router = inject(Router);
-    return session.load().pipe(map((user) => can(user?.role, capability) || router.createUrlTree(['/'])));
+    return session.load().pipe(
+      map(
+        () =>
+          session.can(capability) ||
+          new RedirectCommand(
+            router.createUrlTree(['/needs-permission'], {
+              queryParams: { needs: CAPABILITY_NEEDS[capability], page: state.url },
+            }),
+            { skipLocationChange: true },
+          ),
+      ),
+    );
   };
 }
 

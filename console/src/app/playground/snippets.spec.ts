@@ -64,7 +64,7 @@ async function lastRequest(runSnippet: () => Promise<unknown>): Promise<Received
   return received[received.length - 1];
 }
 
-const env = { ...process.env, ISOCHRON_API_KEY: KEY };
+const env = { ...process.env, ISOCHRON_KEY: KEY };
 
 describe.each([
   ['curl in bash', (code: string) => run('bash', ['-c', code], { env })],
@@ -78,7 +78,7 @@ describe.each([
   }[_name]!;
 
   it('sends the method, path, query, key and JSON body exactly as drafted', async () => {
-    const request = await lastRequest(() => execute(make(post, { origin, keyVariable: 'ISOCHRON_API_KEY' })));
+    const request = await lastRequest(() => execute(make(post, { origin, keyVariable: 'ISOCHRON_KEY' })));
     expect(request.method).toBe('POST');
     expect(request.url).toBe('/v1/biquads?explain=true&label=a%20b');
     expect(request.headers.authorization).toBe(`Bearer ${KEY}`);
@@ -100,8 +100,8 @@ describe.each([
 describe('snippet text', () => {
   it('never contains the key itself, only the variable that holds it', () => {
     for (const make of [curlSnippet, fetchSnippet, pythonSnippet]) {
-      const text = make(post, { origin: 'https://isochron.example', keyVariable: 'ISOCHRON_API_KEY' });
-      expect(text).toContain('ISOCHRON_API_KEY');
+      const text = make(post, { origin: 'https://isochron.example', keyVariable: 'ISOCHRON_KEY' });
+      expect(text).toContain('ISOCHRON_KEY');
       expect(text).not.toContain('iso_live_');
     }
   });

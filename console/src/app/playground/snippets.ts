@@ -8,7 +8,8 @@ export interface SnippetOptions {
   keyVariable: string | null;
 }
 
-export const DEFAULT_KEY_VARIABLE = 'ISOCHRON_API_KEY';
+/** The variable the README's examples export the key in, so snippets and README read alike. */
+export const DEFAULT_KEY_VARIABLE = 'ISOCHRON_KEY';
 
 /** POSIX shell single-quoting: the only character needing care inside '...' is ' itself. */
 export function shellQuote(text: string): string {
@@ -36,7 +37,7 @@ function pythonLiteral(value: unknown, indent: number): string {
   return `{\n${entries.map(([key, item]) => `${pad}${pythonString(key)}: ${pythonLiteral(item, indent + 1)},`).join('\n')}\n${close}}`;
 }
 
-/** A curl command for a POSIX shell; the key comes from `$ISOCHRON_API_KEY`. */
+/** A curl command for a POSIX shell; the key comes from `$ISOCHRON_KEY`. */
 export function curlSnippet(draft: RequestDraft, options: SnippetOptions): string {
   const lines = [`curl -sS -X ${draft.method} ${shellQuote(options.origin + draft.url)}`];
   if (options.keyVariable) lines.push(`-H "Authorization: Bearer $${options.keyVariable}"`);

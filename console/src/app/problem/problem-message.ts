@@ -71,8 +71,10 @@ export function problemSummary(problem: ReadableProblem): string {
   const parts = [problem.title];
   if (problem.detail) parts.push(problem.detail);
   let text = parts.join(' — ');
-  if (problem.fieldErrors.length > 0) {
-    const fields = problem.fieldErrors
+  // A field error that only repeats the detail (one refused value) is not said twice.
+  const extra = problem.fieldErrors.filter((field) => !problem.detail?.includes(field.message));
+  if (extra.length > 0) {
+    const fields = extra
       .map((field) => (field.pointer ? `${field.pointer}: ${field.message}` : field.message))
       .join('; ');
     text += ` (${fields})`;

@@ -14,3 +14,4 @@ export type { Tuning, TuningComparison } from '../tunings/tuning.model';
 export type RoomCreate = Schemas['RoomCreate'];
 export type RoomUpdate = Schemas['RoomUpdate'];
 export type Layout = Schemas['Layout'];
+export type ProcessorProfile = Schemas['ProcessorProfile'];

@@ -2,7 +2,7 @@ import { HttpClient, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { EMPTY, Observable, expand, map, reduce } from 'rxjs';
 import { ListPage } from '../keys/key.model';
-import { Layout, Room, RoomCreate, RoomUpdate, Tuning } from './room.model';
+import { Layout, ProcessorProfile, Room, RoomCreate, RoomUpdate, Tuning } from './room.model';
 
 export function allPages<T extends { id: string }>(
   fetchPage: (startingAfter?: string) => Observable<ListPage<T>>,
@@ -53,5 +53,16 @@ export class RoomsService {
   /** The ITU-R BS.2051 layouts (and 9.1.6) the API knows. */
   layouts(): Observable<Layout[]> {
     return this.http.get<ListPage<Layout>>('/v1/layouts').pipe(map((page) => page.data));
+  }
+
+  /** The caller's processor profiles, for the room's profile choice. */
+  profiles(): Observable<ProcessorProfile[]> {
+    return allPages((after) =>
+      this.http.get<ListPage<ProcessorProfile>>('/v1/processor-profiles', { params: pageParams(after) }),
+    );
+  }
+
+  profile(id: string): Observable<ProcessorProfile> {
+    return this.http.get<ProcessorProfile>(`/v1/processor-profiles/${encodeURIComponent(id)}`);
   }
 }

@@ -12,7 +12,7 @@ import { MatToolbarModule } from '@angular/material/toolbar';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import { Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
 import { map } from 'rxjs';
-import { can, roleLabel } from '../auth/roles';
+import { roleLabel } from '../auth/roles';
 import { SessionService } from '../auth/session.service';
 import { errorMessage } from '../problem/http-problem';
 import { ThemeMode, ThemeService } from '../theme/theme.service';
@@ -52,7 +52,7 @@ export class Shell {
     { initialValue: true },
   );
   protected readonly navItems = computed(() =>
-    NAV_ITEMS.filter((item) => !item.needs || can(this.session.role(), item.needs)),
+    NAV_ITEMS.filter((item) => !item.needs || this.session.can(item.needs)),
   );
   protected readonly roleLabel = computed(() => roleLabel(this.session.role() ?? ''));
   protected readonly initials = computed(() => {

@@ -5,6 +5,7 @@ import {
   channelLimitProblems,
   delayInSamples,
 } from '../../../../shared/plan/channel-edit';
+import type { ProcessorProfileSettings } from '../../../../shared/processor/profile';
 import { formatQuantity, formatSigned } from '../format/format';
 import type { FilterType, ProcessorLimits, StoredCrossover, Tuning, TuningVersion } from './tuning.model';
 
@@ -48,6 +49,7 @@ export function channelRows(
   tuning: Pick<Tuning, 'channels' | 'sampleRateHz'>,
   limits: ProcessorLimits | null | undefined,
   names: ReadonlyMap<string, string> = new Map(),
+  profile?: ProcessorProfileSettings | null,
 ): ChannelRow[] {
   return tuning.channels.map((channel) => ({
     id: channel.id,
@@ -59,13 +61,17 @@ export function channelRows(
     highPass: crossoverLabel(channel.highPass),
     eqBands: channel.eq.length,
     bassManaged: channel.bassManaged,
-    overLimits: channelLimitProblems(channel, limits),
+    overLimits: channelLimitProblems(channel, tuning.sampleRateHz, limits, profile),
   }));
 }
 
 /** The room's limits as one sentence for the editor ("none set" when the room has none). */
-export function limitsSummary(limits: ProcessorLimits | null | undefined): string {
-  if (!limits || Object.keys(limits).length === 0) return 'The room sets no processor limits.';
+export function limitsSummary(
+  limits: ProcessorLimits | null | undefined,
+  profileName?: string | null,
+): string {
+  const profile = profileName ? ` Processor profile “${profileName}” applies as well.` : '';
+  if (!limits || Object.keys(limits).length === 0) return `The room sets no processor limits.${profile}`;
   const parts: string[] = [];
   if (limits.delayMaxMs !== undefined)
     parts.push(`delay up to ${formatQuantity(limits.delayMaxMs, 'ms', 1)}`);
@@ -78,7 +84,7 @@ export function limitsSummary(limits: ProcessorLimits | null | undefined): strin
   if (limits.eqMaxBoostDb !== undefined)
     parts.push(`boost up to ${formatSigned(limits.eqMaxBoostDb, 'dB', 1)}`);
   if (limits.eqMaxCutDb !== undefined) parts.push(`cut down to ${formatSigned(-limits.eqMaxCutDb, 'dB', 1)}`);
-  return `Room limits: ${parts.join(', ')}.`;
+  return `Room limits: ${parts.join(', ')}.${profile}`;
 }
 
 /** The channel-relative field an API pointer names for the channel sent at `index`, or null. */

@@ -10,7 +10,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { Router } from '@angular/router';
-import { can, grantableKeyRoles, roleLabel } from '../../auth/roles';
+import { grantableKeyRoles, roleLabel } from '../../auth/roles';
 import { SessionService } from '../../auth/session.service';
 import { PlaygroundCredentials } from '../../playground/playground-credentials.service';
 import { errorMessage } from '../../problem/http-problem';
@@ -53,7 +53,7 @@ export class KeyCreateDialog {
   protected readonly roles = grantableKeyRoles(this.session.role());
   protected readonly roleHints = ROLE_HINTS;
   protected readonly roleLabel = roleLabel;
-  protected readonly canSetRateLimit = can(this.session.role(), 'keys:setRateLimit');
+  protected readonly canSetRateLimit = this.session.can('keys:setRateLimit');
   protected readonly today = new Date();
 
   protected readonly form = inject(NonNullableFormBuilder).group({

@@ -6,7 +6,6 @@ import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/materia
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
-import { can } from '../../auth/roles';
 import { SessionService } from '../../auth/session.service';
 import { errorMessage } from '../../problem/http-problem';
 import { endOfLocalDay, maskedKey } from '../key-format';
@@ -98,7 +97,7 @@ export class KeyEditDialog {
   protected readonly key = inject<ApiKey>(MAT_DIALOG_DATA);
   private readonly keys = inject(KeysService);
   private readonly dialogRef = inject<MatDialogRef<KeyEditDialog, ApiKey>>(MatDialogRef);
-  protected readonly canSetRateLimit = can(inject(SessionService).role(), 'keys:setRateLimit');
+  protected readonly canSetRateLimit = inject(SessionService).can('keys:setRateLimit');
   protected readonly masked = maskedKey(this.key);
   private readonly expired = this.key.status === 'expired';
   /** Only an admin moves an expiry later or removes it; an owner may only bring it nearer. */

@@ -23,7 +23,7 @@ import { MatTableDataSource, MatTableModule } from '@angular/material/table';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import { catchError, filter, of } from 'rxjs';
 import { UsersService } from '../../users/users.service';
-import { can, roleLabel } from '../../auth/roles';
+import { roleLabel } from '../../auth/roles';
 import { SessionService } from '../../auth/session.service';
 import { formatDate, formatDateTime, formatRelative } from '../../format/format';
 import { errorMessage } from '../../problem/http-problem';
@@ -68,8 +68,8 @@ export class KeysPage {
   protected readonly filterText = signal('');
   protected readonly showRevoked = signal(false);
   protected readonly now = signal(new Date());
-  protected readonly canManage = computed(() => can(this.session.role(), 'keys:manage'));
-  protected readonly showOwner = computed(() => can(this.session.role(), 'keys:all'));
+  protected readonly canManage = computed(() => this.session.can('keys:manage'));
+  protected readonly showOwner = computed(() => this.session.can('keys:all'));
   protected readonly columns = computed(() => [
     'name',
     'role',

@@ -5,7 +5,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
 import { of } from 'rxjs';
-import { can, roleLabel } from '../../auth/roles';
+import { roleLabel } from '../../auth/roles';
 import { SessionService } from '../../auth/session.service';
 import { formatCount, formatPercent } from '../../format/format';
 import { keyStatus } from '../../keys/key-format';
@@ -30,8 +30,8 @@ export class OverviewPage {
 
   protected readonly user = this.session.user;
   protected readonly roleLabel = computed(() => roleLabel(this.session.role() ?? ''));
-  protected readonly canManageKeys = computed(() => can(this.session.role(), 'keys:manage'));
-  protected readonly canManageUsers = computed(() => can(this.session.role(), 'users:manage'));
+  protected readonly canManageKeys = computed(() => this.session.can('keys:manage'));
+  protected readonly canManageUsers = computed(() => this.session.can('users:manage'));
   private readonly week = presetRange('7d', new Date());
 
   private readonly usageResource = rxResource({
@@ -43,7 +43,7 @@ export class OverviewPage {
       }),
   });
   private readonly keysResource = rxResource({
-    params: () => can(this.session.role(), 'keys:view'),
+    params: () => this.session.can('keys:view'),
     stream: ({ params }) => (params ? this.keysService.listAll() : of(null)),
   });
 

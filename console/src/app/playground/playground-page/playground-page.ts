@@ -18,7 +18,6 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatRadioModule } from '@angular/material/radio';
 import { MatSelectModule } from '@angular/material/select';
 import { Router } from '@angular/router';
-import { can } from '../../auth/roles';
 import { SessionService } from '../../auth/session.service';
 import { errorMessage } from '../../problem/http-problem';
 import { parseJsonText } from '../json-text';
@@ -112,11 +111,11 @@ export class PlaygroundPage {
   protected readonly bodyText = signal('');
   protected readonly paramValues = signal<Record<string, string>>({});
   protected readonly authKind = signal<'session' | 'key'>(
-    this.credentials.keySecret() || !can(this.session.role(), 'calculate:session') ? 'key' : 'session',
+    this.credentials.keySecret() || !this.session.can('calculate:session') ? 'key' : 'session',
   );
   protected readonly keySecret = signal(this.credentials.keySecret());
   protected readonly keyLabel = this.credentials.keyLabel;
-  protected readonly sessionLimited = computed(() => !can(this.session.role(), 'calculate:session'));
+  protected readonly sessionLimited = computed(() => !this.session.can('calculate:session'));
 
   protected readonly parsed = computed(() => parseJsonText(this.bodyText()));
   protected readonly schemaProblems = computed(() => {

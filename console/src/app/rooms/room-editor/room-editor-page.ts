@@ -91,6 +91,10 @@ export class RoomEditorPage {
     stream: ({ params }) => (params ? this.rooms.room(params) : of(null)),
   });
   private readonly layoutsResource = rxResource({ stream: () => this.rooms.layouts() });
+  private readonly profilesResource = rxResource({ stream: () => this.rooms.profiles() });
+  protected readonly profiles = computed(() =>
+    this.profilesResource.hasValue() ? this.profilesResource.value() : [],
+  );
 
   protected readonly layouts = computed(() =>
     this.layoutsResource.hasValue() ? this.layoutsResource.value() : [],
@@ -134,6 +138,7 @@ export class RoomEditorPage {
       DEFAULT_SAMPLE_RATE_HZ,
       [Validators.required, Validators.min(SAMPLE_RATE_MIN_HZ), Validators.max(SAMPLE_RATE_MAX_HZ)],
     ],
+    profileId: this.fb.control<string | null>(null),
     notes: ['', Validators.maxLength(4000)],
   });
 
@@ -316,6 +321,7 @@ export class RoomEditorPage {
       })),
       ...(limits ? { limits } : {}),
       sampleRateHz: Number(value.sampleRateHz),
+      profileId: value.profileId,
       ...(value.notes.trim() ? { notes: value.notes } : {}),
     };
   }
@@ -350,6 +356,7 @@ export class RoomEditorPage {
         eqMaxCutDb: limits.eqMaxCutDb ?? null,
       },
       sampleRateHz: room.sampleRateHz,
+      profileId: room.profileId ?? null,
       notes: room.notes ?? '',
     });
     this.form.markAsPristine();

@@ -9,8 +9,8 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSnackBar } from '@angular/material/snack-bar';
-import { filter, map, switchMap } from 'rxjs';
-import { can } from '../../auth/roles';
+import { EMPTY, filter, map, switchMap } from 'rxjs';
+import { Router } from '@angular/router';
 import { SessionService } from '../../auth/session.service';
 import { formatQuantity } from '../../format/format';
 import { errorMessage, toProblem } from '../../problem/http-problem';
@@ -33,6 +33,9 @@ import {
 } from './measurement-view';
 import { ImpulseResponseAnalysis, Measurement } from './measurement.model';
 import { MeasurementsService } from './measurements.service';
+import { ApplyFitChoice, ApplyFitData, ApplyFitDialog } from './apply-fit-dialog';
+import { RoomsService } from '../rooms.service';
+import { TuningsService } from '../../tunings/tunings.service';
 
 /** How many of the lowest room modes the table lists. */
 const MODE_TABLE_ROWS = 10;
@@ -63,10 +66,13 @@ export class RoomMeasurements {
   private readonly session = inject(SessionService);
   private readonly dialog = inject(MatDialog);
   private readonly snackBar = inject(MatSnackBar);
+  private readonly rooms = inject(RoomsService);
+  private readonly tunings = inject(TuningsService);
+  private readonly router = inject(Router);
 
   readonly room = input.required<Room>();
 
-  protected readonly canUpload = computed(() => can(this.session.role(), 'rooms:view'));
+  protected readonly canUpload = computed(() => this.session.can('rooms:view'));
 
   private readonly listResource = rxResource({
     params: () => this.room().id,
@@ -230,6 +236,53 @@ export class RoomMeasurements {
         this.uploadProblem.set(toProblem(error));
       },
     });
+  }
+
+  /** The fitted bands into one channel of one of the room's tunings, as a new version. */
+  protected applyFit(): void {
+    const fit = this.fit();
+    const selected = this.selected();
+    if (!fit || !selected || !fit.bands.length) return;
+    this.rooms
+      .tunings(this.room().id)
+      .pipe(
+        switchMap((tunings) => {
+          if (!tunings.length) {
+            this.snackBar.open('This room has no tuning yet: start one with New tuning above.', 'Dismiss', {
+              duration: 8000,
+            });
+            return EMPTY;
+          }
+          return this.dialog
+            .open<ApplyFitDialog, ApplyFitData, ApplyFitChoice>(ApplyFitDialog, {
+              data: { tunings, channel: selected.channel, bandCount: fit.bands.length },
+              width: '480px',
+              maxWidth: '94vw',
+            })
+            .afterClosed();
+        }),
+        filter((choice): choice is ApplyFitChoice => Boolean(choice)),
+        switchMap((choice) =>
+          this.tunings
+            .update(choice.tuningId, { channels: [{ id: choice.channel, eq: fit.bands }] })
+            .pipe(map((tuning) => ({ tuning, choice }))),
+        ),
+      )
+      .subscribe({
+        next: ({ tuning, choice }) => {
+          this.snackBar
+            .open(
+              `Fitted EQ applied to ${choice.channel} of “${tuning.name}”, version ${tuning.version}.`,
+              'Open',
+              {
+                duration: 8000,
+              },
+            )
+            .onAction()
+            .subscribe(() => void this.router.navigate(['/rooms', this.room().id, 'tunings', tuning.id]));
+        },
+        error: (error: unknown) => this.snackBar.open(errorMessage(error), 'Dismiss', { duration: 12000 }),
+      });
   }
 
   protected remove(measurement: Measurement): void {

@@ -12,7 +12,7 @@ import { MatTableModule } from '@angular/material/table';
 import { Router, RouterLink } from '@angular/router';
 import { filter, switchMap } from 'rxjs';
 import { formatDateTime, formatQuantity, formatSigned } from '../../format/format';
-import { errorMessage } from '../../problem/http-problem';
+import { errorMessage, toProblem } from '../../problem/http-problem';
 import { ChartView } from '../../ui/chart/chart';
 import { Tuning, TuningComparison } from '../room.model';
 import { RoomsService } from '../rooms.service';
@@ -65,7 +65,7 @@ export class RoomPage {
   );
   protected readonly error = computed(() => {
     const error = this.roomResource.error() ?? this.tuningsResource.error();
-    return error ? errorMessage(error) : null;
+    return error ? { message: errorMessage(error), status: toProblem(error).status } : null;
   });
   protected readonly tunings = computed(() =>
     this.tuningsResource.hasValue() ? this.tuningsResource.value() : [],

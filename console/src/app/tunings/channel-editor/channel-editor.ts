@@ -35,6 +35,7 @@ import { CalculationInputError } from '../../../../../shared/errors';
 import { formatQuantity } from '../../format/format';
 import type { FieldProblem } from '../../problem/problem-message';
 import { ChartView } from '../../ui/chart/chart';
+import type { ProcessorProfile } from '../../rooms/room.model';
 import type {
   CrossoverFamily,
   FilterSpec,
@@ -91,6 +92,7 @@ export class ChannelEditor {
   readonly subwoofer = input<Tuning['subwoofer']>(null);
   readonly sampleRateHz = input.required<number>();
   readonly limits = input<ProcessorLimits | null | undefined>(null);
+  readonly profile = input<ProcessorProfile | null>(null);
   readonly readOnly = input(false);
   readonly saving = input(false);
   /** Field problems the API answered for this channel, pointers relative to it (`/eq/1/gainDb`). */
@@ -146,8 +148,10 @@ export class ChannelEditor {
     };
   });
 
-  protected readonly limitProblems = computed(() => channelLimitProblems(this.draft(), this.limits()));
-  protected readonly limitText = computed(() => limitsSummary(this.limits()));
+  protected readonly limitProblems = computed(() =>
+    channelLimitProblems(this.draft(), this.sampleRateHz(), this.limits(), this.profile()),
+  );
+  protected readonly limitText = computed(() => limitsSummary(this.limits(), this.profile()?.name));
 
   /** The response of the draft, or the field that cannot be designed at this rate. */
   private readonly designed = computed(() => {
@@ -442,7 +446,10 @@ export class ChannelEditor {
       control.updateValueAndValidity({ emitEvent: false, onlySelf: true });
       const own = control.errors ?? {};
       const extra = Object.fromEntries(
-        all.filter((entry) => entry.control === control).map((entry) => [entry.key, entry.message]),
+        all
+          .filter((entry) => entry.control === control)
+          .reverse() // the first problem found for a field is the one it shows
+          .map((entry) => [entry.key, entry.message]),
       );
       control.setErrors({ ...own, ...extra }, { emitEvent: false });
       control.markAsDirty({ onlySelf: true });

@@ -78,6 +78,14 @@ export class TuningPage {
     params: () => ({ id: this.tuningId(), version: this.versionNumber() }),
     stream: ({ params }) => this.tuningsApi.tuning(params.id, params.version),
   });
+  /** The room's processor profile: the editor checks against it as the API does. */
+  private readonly profileResource = rxResource({
+    params: () => this.room()?.profileId ?? undefined,
+    stream: ({ params }) => this.rooms.profile(params),
+  });
+  protected readonly profile = computed(() =>
+    this.profileResource.hasValue() ? this.profileResource.value() : null,
+  );
   private readonly versionsResource = rxResource({
     params: () => this.tuningId(),
     stream: ({ params }) => this.tuningsApi.versions(params),
@@ -113,7 +121,7 @@ export class TuningPage {
     const room = this.room();
     if (!tuning) return [];
     const names = new Map((room?.loudspeakers ?? []).map((speaker) => [speaker.id, speaker.name ?? '']));
-    return channelRows(tuning, room?.limits, names);
+    return channelRows(tuning, room?.limits, names, this.profile());
   });
   protected readonly selectedId = signal<string | null>(null);
   protected readonly selected = computed(() => {

@@ -22,7 +22,6 @@ import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatSort, MatSortModule } from '@angular/material/sort';
 import { MatTableDataSource, MatTableModule } from '@angular/material/table';
 import { of } from 'rxjs';
-import { can } from '../../auth/roles';
 import { SessionService } from '../../auth/session.service';
 import { formatCount, formatDateTime, formatPercent } from '../../format/format';
 import { maskedKey } from '../../keys/key-format';
@@ -71,7 +70,7 @@ export class UsagePage {
   protected readonly keyId = signal<string>('');
   protected readonly route = signal<string>('');
   protected readonly downloading = signal(false);
-  protected readonly seesEveryone = computed(() => can(this.session.role(), 'usage:all'));
+  protected readonly seesEveryone = computed(() => this.session.can('usage:all'));
 
   /** Bumped by Reload so a preset range ends at the current hour again. */
   private readonly tick = signal(0);
@@ -107,7 +106,7 @@ export class UsagePage {
   });
   /** Key names for the filter and the table; people who cannot list keys see prefixes from usage alone. */
   private readonly keysResource = rxResource({
-    params: () => can(this.session.role(), 'keys:view'),
+    params: () => this.session.can('keys:view'),
     stream: ({ params }) => (params ? this.keysService.listAll() : of([])),
   });
 

@@ -13,7 +13,7 @@ import { UsersService } from '../users.service';
 
 const ROLE_HINTS: Record<UserRole, string> = {
   admin: 'Everything: keys, usage and users of everyone.',
-  developer: 'Own keys, own usage and the playground.',
+  developer: 'Rooms, measurements and tunings; own keys, own usage and the playground.',
   viewer: 'Reads usage and the docs; changes nothing.',
 };
 
