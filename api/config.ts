@@ -1,4 +1,5 @@
 import { randomBytes } from 'node:crypto';
+import { availableParallelism } from 'node:os';
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 
@@ -35,6 +36,10 @@ export interface Config {
   databaseBusyTimeoutMs: number;
   /** On SIGTERM, how long requests in flight may take before their connections are cut. */
   shutdownDeadlineMs: number;
+  /** Worker threads for heavy calculations (analysis, EQ fitting, plans). */
+  workThreads: number;
+  /** Heavy calculations that may wait for a worker thread; beyond that a 503 with Retry-After. */
+  workQueueLimit: number;
   /**
    * Redis (`redis://…`) shared by every instance: rate limits, sign-in throttles, console sessions,
    * key-cache invalidation and the usage buffer. Null keeps all of them in this process's memory.
@@ -48,6 +53,12 @@ export interface Config {
 }
 
 export class ConfigError extends Error {}
+
+/**
+ * Worker threads for heavy calculations: one less than the cores, at least one. On a 2-core machine
+ * that is one, so the event loop keeps a core for every other request while heavy work runs beside it.
+ */
+const defaultWorkThreads = (): number => Math.max(1, availableParallelism() - 1);
 
 export const projectRoot = findProjectRoot(__dirname);
 
@@ -176,6 +187,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     usageFlushIntervalMs: integer(env, 'USAGE_FLUSH_INTERVAL_MS', 5000, 100, 3_600_000),
     databaseBusyTimeoutMs: integer(env, 'DATABASE_BUSY_TIMEOUT_MS', 2000, 0, 60_000),
     shutdownDeadlineMs: integer(env, 'SHUTDOWN_DEADLINE_MS', 10_000, 0, 600_000),
+    workThreads: integer(env, 'HEAVY_WORK_THREADS', defaultWorkThreads(), 1, 64),
+    workQueueLimit: integer(env, 'HEAVY_WORK_QUEUE_LIMIT', 16, 0, 10_000),
     redisUrl: redisUrl(env),
     redisKeyPrefix: env.REDIS_KEY_PREFIX || 'isochron:',
     databasePoolMax: integer(env, 'DATABASE_POOL_MAX', 10, 1, 1000),

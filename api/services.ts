@@ -6,6 +6,7 @@ import { createLogger, type Logger } from './logger';
 import { createMailer, type Mailer } from './mail';
 import { createConsoleSessions, type ConsoleSessions } from './session';
 import { createUsageMeter, type UsageMeter } from './usage/usage-meter';
+import { HeavyWork } from './work/heavy-work';
 import { createSharedState, type SharedState } from './shared-state/shared-state';
 
 /** What the routers need, built once per process (or per test). */
@@ -22,6 +23,8 @@ export interface Services {
   sessions: ConsoleSessions;
   /** Counts `/v1` calls in memory and writes them in batches; flushed on close. */
   usage: UsageMeter;
+  /** Worker threads for heavy calculations (`work.run(task, input)`); stopped on close. */
+  work: HeavyWork;
   /** What instances share: in this process's memory, or in Redis when `REDIS_URL` is set. */
   shared: SharedState;
   /** Work to run on shutdown, in order, before the database closes (flushing metered usage...). */
@@ -50,6 +53,7 @@ export async function createServices(config: Config): Promise<Services> {
   logger.info(`mail goes to ${mail.description}`);
   const sessions = createConsoleSessions({ config, db, shared });
   const usage = createUsageMeter(db, config, logger, shared);
+  const work = new HeavyWork({ threads: config.workThreads, queueLimit: config.workQueueLimit });
   const keys = new KeyStore(db.models, config.keyHashSecret);
   // A revocation or role change anywhere (any instance, the command line) empties every instance's cache.
   keys.broadcast = () => shared.publishKeyChange();
@@ -64,7 +68,8 @@ export async function createServices(config: Config): Promise<Services> {
     mail,
     sessions,
     usage,
-    onClose: [async () => sessions.close(), () => mail.close(), () => usage.close()],
+    work,
+    onClose: [async () => sessions.close(), () => mail.close(), () => usage.close(), () => work.close()],
   };
 }
 

@@ -22,7 +22,7 @@ export function v1Router(services: Services): Router {
   const router = Router();
   router.use(layoutsRouter());
   router.use(calculationsRouter(services));
-  router.use(analysisRouter());
+  router.use(analysisRouter(services));
   router.use(usersRouter(services));
   router.use(outboxRouter(services));
   router.use(keysRouter(services));

@@ -6,6 +6,7 @@ import {
   type MeasurementContent,
 } from '../api/measurements/measurement-input';
 import type { Services } from '../api/services';
+import { onThisThread } from '../api/work/heavy-work';
 import { noisyDecay } from '../shared/analysis/test-signals';
 import { stage3MeasuredResponses, stage3MeasuredResponsesWithPhase } from './demo-stage3-measurements';
 import { STAGE3_ROOM, STAGE3_SPL_DB } from './demo-stage3-room';
@@ -120,7 +121,9 @@ export async function seedDemoStage3Measurements(services: Services): Promise<vo
     channel: 'M+090',
     micPosition: 'MLP',
     name: 'Demo data — synthetic impulse response M+090',
-    content: contentFromFile(
+    // Start-up work: analysed on this thread rather than by starting a worker thread for one file.
+    content: await contentFromFile(
+      onThisThread,
       { buffer: ir, originalname: 'demo-side-surround-ir.wav', mimetype: 'audio/wav', size: ir.length },
       { channel: 'M+090', micPosition: 'MLP', temperatureC: 21, smoothingOctaves: 1 / 6 },
       room,

@@ -7,6 +7,7 @@ import {
 } from '../api/measurements/measurement-input';
 import type { Room } from '../api/db/models/room';
 import type { Services } from '../api/services';
+import { onThisThread } from '../api/work/heavy-work';
 import { storedMeasurement } from '../api/tunings/verification.service';
 import { sosfreqz } from '../shared/dsp/response';
 import { checkTuningSettings, designTuning, planStoredRoom, planToTuningSettings } from '../shared/plan';
@@ -96,7 +97,7 @@ export async function seedDemoStage3Verification(services: Services): Promise<vo
 
   const entries: Array<{ channel: string; micPosition: string; name: string; content: MeasurementContent }> =
     [];
-  designed.channels.forEach((c, i) => {
+  for (const [i, c] of designed.channels.entries()) {
     entries.push({
       channel: c.id,
       micPosition: 'MLP',
@@ -114,7 +115,9 @@ export async function seedDemoStage3Verification(services: Services): Promise<vo
         channel: c.id,
         micPosition: 'MLP',
         name: `Demo data — after, impulse response ${c.id}`,
-        content: contentFromFile(
+        // Start-up work: analysed on this thread rather than by starting worker threads.
+        content: await contentFromFile(
+          onThisThread,
           { buffer: file, originalname: `demo-after-${c.id}.wav`, mimetype: 'audio/wav', size: file.length },
           { channel: c.id, micPosition: 'MLP', fileChannel: 0, referenceFileChannel: 1, temperatureC: 21 },
           room,
@@ -122,7 +125,7 @@ export async function seedDemoStage3Verification(services: Services): Promise<vo
       });
     }
     const before = responses[c.id];
-    if (!before) return;
+    if (!before) continue;
     const f = before.frequenciesHz;
     // A path as heard at the listening position: the response before (with its phase and time of flight)
     // through the channel's sections, delay and polarity.
@@ -163,7 +166,7 @@ export async function seedDemoStage3Verification(services: Services): Promise<vo
         response: { frequenciesHz: before.frequenciesHz, magnitudeDb },
       }),
     });
-  });
+  }
 
   await services.db.write(async (transaction) => {
     const tuning = await Tuning.create(

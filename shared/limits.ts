@@ -25,16 +25,42 @@ export const SAMPLE_RATE_MAX_HZ = 384000;
 const SAMPLE_RATE_RANGE_HZ = { minimum: SAMPLE_RATE_MIN_HZ, maximum: SAMPLE_RATE_MAX_HZ };
 /** The sample rate used when a request gives none (the common rate of studio processors). */
 export const DEFAULT_SAMPLE_RATE_HZ = 48000;
-/** Most channels (loudspeaker feeds) one request, room or tuning may carry. */
-export const MAX_CHANNELS = 128;
-/** Most EQ sections per channel, and per `/v1/biquads` request. */
-export const MAX_EQ_BANDS = 64;
+/*
+ * Work budgets. Each bound below sizes what a request may ask the service to compute, from what real
+ * rooms and processors need, so that one request inside the contract stays a bounded amount of work
+ * (the heavy ones also run on a worker thread and weigh more against the rate limit: api/work/).
+ */
+/**
+ * Most channels (loudspeaker feeds) one request, room or tuning may carry. The largest ITU-R BS.2051-3
+ * layout, system H (9+10+3, "22.2"), has 24 channels; large immersive and cinema rooms drive up to 64
+ * loudspeaker outputs (common practice, from memory). 64 takes both with room to spare.
+ */
+export const MAX_CHANNELS = 64;
+/**
+ * Most EQ sections per channel: per `/v1/biquads` request, per stored channel, per fit
+ * (`/v1/eq/fit` `maxBands`, a plan's `eqBandsPerChannel`). Loudspeaker processors commonly offer 8 to 16
+ * parametric bands per output (common practice, from memory). The fit's time grows with the band count
+ * (each band is one more search over the grid), so this is also its budget.
+ */
+export const MAX_EQ_BANDS = 16;
 /** Highest frequency a filter or a response point may name, in hertz (Nyquist of 384 kHz). */
 export const MAX_FREQUENCY_HZ = 192000;
 /** Air temperature range, °C. */
 const TEMPERATURE_RANGE_C = { minimum: -40, maximum: 60 };
-/** Most points of a measured response sent to `/v1/eq/fit`. */
-export const MAX_FIT_POINTS = 16384;
+/**
+ * Most points of a measured response to fit (`/v1/eq/fit`, a plan channel's `measuredResponse`). The fit
+ * works on a 1/48-octave grid, which from 20 Hz to 20 kHz has 48 · log2(1000) + 1 = 480 points; finer
+ * input is resampled to it and adds nothing. 1024 takes a 1/96-octave export or a wider range (10 Hz to
+ * 24 kHz at 1/48 octave is 540 points); longer exports (FFT bins) are thinned on a log scale first.
+ */
+export const MAX_FIT_POINTS = 1024;
+/**
+ * Most channels of one plan with a `measuredResponse` to fit EQ to: every channel of the largest
+ * ITU-R BS.2051-3 layout (system H, 24 channels). Each fit costs about as much as one `/v1/eq/fit`
+ * request, so this bounds a plan's work; a larger room is planned in parts. Not a schema bound (the
+ * contract cannot count items with a property), so the plan checks it (`shared/plan/plan-budget.ts`).
+ */
+export const MAX_PLAN_FITS = 24;
 /** Most points of a stored frequency-response measurement. */
 export const MAX_MEASURED_POINTS = 100000;
 /** Most frequencies of a response grid a calculation evaluates. */

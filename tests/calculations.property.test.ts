@@ -5,6 +5,7 @@
  * 500, and never a 400 (the generators only build schema-valid bodies).
  */
 import fc from 'fast-check';
+import { MAX_EQ_BANDS } from '../shared/limits';
 import request from 'supertest';
 import { expectToMatchContract } from './support/contract';
 import { createTestContext, type TestContext } from './support/test-context';
@@ -67,7 +68,7 @@ const limits = fc.record(
     delayMaxMs: num(0, 10000),
     trimMinDb: num(-100, 0),
     trimMaxDb: num(0, 40),
-    eqBandsPerChannel: fc.integer({ min: 0, max: 64 }),
+    eqBandsPerChannel: fc.integer({ min: 0, max: MAX_EQ_BANDS }),
     eqMaxBoostDb: num(0, 24),
     eqMaxCutDb: num(0, 48),
   },

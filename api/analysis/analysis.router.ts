@@ -1,19 +1,22 @@
 import { Router } from 'express';
-import { speedOfSoundMps } from '../../shared/acoustics/speed-of-sound';
-import { analyzeImpulseResponse } from '../../shared/analysis/analyze-impulse-response';
-import { MIN_SMOOTHING_OCTAVES } from '../../shared/analysis/smoothing';
-import { decodeWav } from '../../shared/analysis/wav-decode';
 import { requirePermission } from '../auth/permissions';
 import { badRequest } from '../http/problem';
 import { validate, type UploadedFile } from '../http/validate';
+import type { Services } from '../services';
+import { whenClientGone, type HeavyWork } from '../work/heavy-work';
 
-/** POST /v1/analysis/impulse-response: arrival, level, smoothed response and decay times of one WAV file. */
-export function analysisRouter(): Router {
+/**
+ * POST /v1/analysis/impulse-response: arrival, level, smoothed response and decay times of one WAV
+ * file. Decoding and analysis run on a worker thread.
+ */
+export function analysisRouter({ work }: Services): Router {
   const router = Router();
   router.post(
     '/analysis/impulse-response',
     requirePermission('calculate'),
-    validate('analyzeImpulseResponse', ({ body, file }, _req, res) => res.json(analyseUpload(body, file))),
+    validate('analyzeImpulseResponse', async ({ body, file }, _req, res) => {
+      res.json(await analyseUpload(work, body, file, whenClientGone(res)));
+    }),
   );
   return router;
 }
@@ -25,22 +28,24 @@ interface RoomFields {
 }
 
 /** A WAV upload's analysis, with what was read from the file. */
-function analyseUpload(
+async function analyseUpload(
+  work: HeavyWork,
   form: RoomFields & { channel?: number; smoothingOctaves: number; temperatureC: number },
   file: UploadedFile,
+  signal: AbortSignal,
 ) {
-  const wav = decodeWav(file.buffer, { channel: form.channel });
-  const analysis = analyzeImpulseResponse(wav.samples, wav.sampleRateHz, {
-    smoothingOctaves: Math.max(MIN_SMOOTHING_OCTAVES, form.smoothingOctaves),
-    room: roomOf(form),
-    speedOfSoundMps: speedOfSoundMps(form.temperatureC),
-  });
-  const { sampleRateHz, channelCount, channelIndex, encoding, durationS } = wav;
-  return {
-    ...analysis,
-    warnings: [...wav.warnings, ...analysis.warnings],
-    file: { sizeBytes: file.size, sampleRateHz, channelCount, channelIndex, encoding, durationS },
-  };
+  const { analysis, file: read } = await work.run(
+    'analyseWav',
+    {
+      bytes: file.buffer,
+      channel: form.channel,
+      smoothingOctaves: form.smoothingOctaves,
+      room: roomOf(form),
+      temperatureC: form.temperatureC,
+    },
+    signal,
+  );
+  return { ...analysis, file: { sizeBytes: file.size, ...read } };
 }
 
 /** The room dimensions, all three or none. */

@@ -181,12 +181,19 @@ function calculationProblem(err: CalculationInputError, base = '/body'): Problem
   });
 }
 
-/** Runs a calculation on a part of the request at `base` (e.g. `/body/plan`), so its errors name that part. */
+/**
+ * Runs a calculation on a part of the request at `base` (e.g. `/body/plan`), so its errors name that
+ * part. A calculation that returns a promise (one run on a worker thread) has its rejection mapped too.
+ */
 export function calculateAt<T>(base: string, calculation: () => T): T {
-  try {
-    return calculation();
-  } catch (error) {
+  const rethrow = (error: unknown): never => {
     throw error instanceof CalculationInputError ? calculationProblem(error, base) : error;
+  };
+  try {
+    const result = calculation();
+    return (result instanceof Promise ? result.catch(rethrow) : result) as T;
+  } catch (error) {
+    return rethrow(error);
   }
 }
 

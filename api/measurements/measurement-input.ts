@@ -1,16 +1,14 @@
-import { speedOfSoundMps } from '../../shared/acoustics/speed-of-sound';
-import { analyzeImpulseResponse } from '../../shared/analysis/analyze-impulse-response';
 import {
   parseFrequencyResponseText,
   requireFrequencyResponse,
   type ParsedFrequencyResponse,
 } from '../../shared/analysis/frequency-response-text';
-import { MIN_SMOOTHING_OCTAVES } from '../../shared/analysis/smoothing';
 import { detectArrival, signalLevel } from '../../shared/analysis/level';
 import { decodeWav } from '../../shared/analysis/wav-decode';
 import { CalculationInputError } from '../../shared/errors';
 import type { MeasurementKind, MeasurementSource } from '../db/models/measurement';
 import type { Room } from '../db/models/room';
+import type { HeavyWork } from '../work/heavy-work';
 
 /** What a measurement row stores, before the row exists. */
 export interface MeasurementContent {
@@ -50,39 +48,28 @@ const isWav = (bytes: Buffer, fileName: string, mimeType: string): boolean =>
 
 /**
  * An uploaded file as a measurement: a WAV impulse response is analysed in the room (its dimensions give
- * the modes); anything else must be a text frequency response.
+ * the modes, on a worker thread); anything else must be a text frequency response.
  */
-export function contentFromFile(
+export async function contentFromFile(
+  work: Pick<HeavyWork, 'run'>,
   file: { buffer: Buffer; originalname: string; mimetype: string; size: number },
   form: UploadForm,
   room: Room,
-): MeasurementContent {
+): Promise<MeasurementContent> {
   if (isWav(file.buffer, file.originalname, file.mimetype)) {
-    const wav = decodeWav(file.buffer, { channel: form.fileChannel, channelField: '/fileChannel' });
-    const analysis = analyzeImpulseResponse(wav.samples, wav.sampleRateHz, {
-      smoothingOctaves: Math.max(MIN_SMOOTHING_OCTAVES, form.smoothingOctaves ?? 1 / 12),
+    const { analysis, file: read } = await work.run('analyseWav', {
+      bytes: file.buffer,
+      channel: form.fileChannel,
+      channelField: '/fileChannel',
+      smoothingOctaves: form.smoothingOctaves ?? 1 / 12,
       room: room.dimensions,
-      speedOfSoundMps: speedOfSoundMps(form.temperatureC ?? 20),
+      temperatureC: form.temperatureC ?? 20,
     });
-    const { sampleRateHz, channelCount, channelIndex, encoding, durationS } = wav;
     const timingReference = timingReferenceOf(file.buffer, form);
     return {
       kind: 'impulseResponse',
-      source: {
-        type: 'wav',
-        fileName: file.originalname,
-        sizeBytes: file.size,
-        sampleRateHz,
-        channelCount,
-        channelIndex,
-        encoding,
-        durationS,
-      },
-      result: {
-        ...analysis,
-        ...(timingReference && { timingReference }),
-        warnings: [...wav.warnings, ...analysis.warnings],
-      },
+      source: { type: 'wav', fileName: file.originalname, sizeBytes: file.size, ...read },
+      result: timingReference ? { ...analysis, timingReference } : analysis,
     };
   }
   if (file.buffer.includes(0)) {

@@ -6,8 +6,8 @@ import type { Services } from '../services';
 import { MeasurementsService } from './measurements.service';
 
 /** /v1/rooms/{roomId}/measurements: uploads analysed on arrival and stored whole, or not at all. */
-export function measurementsRouter({ db }: Services): Router {
-  const measurements = new MeasurementsService(db);
+export function measurementsRouter({ db, work }: Services): Router {
+  const measurements = new MeasurementsService(db, work);
   const router = Router();
   const tuning = requirePermission('tuning');
   const path = '/rooms/:roomId/measurements';

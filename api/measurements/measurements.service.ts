@@ -7,6 +7,7 @@ import { pageOf, type Page, type PageRequest } from '../db/pagination';
 import type { UploadedFile } from '../http/validate';
 import { notFound, ProblemError } from '../http/problem';
 import { findRoomFor, roomStillThere, type Caller } from '../rooms/room-access';
+import type { HeavyWork } from '../work/heavy-work';
 import { measurementDto } from './measurement-dto';
 import {
   contentFromFile,
@@ -30,7 +31,10 @@ interface Labels {
 
 /** Measurements of a stored room: uploads analysed on arrival and stored whole, or not at all. */
 export class MeasurementsService {
-  constructor(private readonly db: Database) {}
+  constructor(
+    private readonly db: Database,
+    private readonly work: HeavyWork,
+  ) {}
 
   /** A multipart upload (`file` with its form fields) or a JSON measurement. */
   async create(
@@ -40,7 +44,9 @@ export class MeasurementsService {
   ): Promise<MeasurementView> {
     const room = await findRoomFor(caller, this.db.models, roomId);
     requireRoomChannel(room, input.body.channel);
-    const content = input.file ? contentFromFile(input.file, input.body, room) : contentFromJson(input.body);
+    const content = input.file
+      ? await contentFromFile(this.work, input.file, input.body, room)
+      : contentFromJson(input.body);
     const labels: Labels = input.body;
     const loaded = await this.loadedTuning(room.id, labels);
     const row = await this.db.write(async (transaction) => {

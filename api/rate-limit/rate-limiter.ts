@@ -2,6 +2,7 @@ import type { Request, RequestHandler } from 'express';
 import { MemoryStore, rateLimit, type Store } from 'express-rate-limit';
 import { ProblemError } from '../http/problem';
 import type { Services } from '../services';
+import { contractRequestCost, withCost, type RequestCost } from './request-cost';
 
 const WINDOW_MS = 60_000;
 
@@ -15,13 +16,16 @@ export function rateLimitSubject(req: Request): string {
 export interface RateLimiterOptions {
   /** Where hits are counted; one store per limiter. In memory by default (one process). */
   store?: Store;
+  /** Units a request spends; by default the contract's (`x-rate-limit-cost`, else 1). */
+  cost?: RequestCost;
 }
 
 /**
  * Per-key rate limit over a one-minute window: each key's own `rateLimitPerMinute`, or the server
  * default. Mounted after authentication so the identity is the key, never the client address. Answers
  * with IETF draft-8 `RateLimit`/`RateLimit-Policy` headers and, past the limit, a 429 problem document
- * with `Retry-After`. Build it once per app; its store is shut down when the services close.
+ * with `Retry-After`. Limits count units: a heavy operation spends its contract's `x-rate-limit-cost`.
+ * Build it once per app; its store is shut down when the services close.
  */
 export function createRateLimiter(services: Services, options: RateLimiterOptions = {}): RequestHandler {
   const store = options.store ?? new MemoryStore();
@@ -29,7 +33,7 @@ export function createRateLimiter(services: Services, options: RateLimiterOption
   services.onClose.push(async () => {
     await store.shutdown?.();
   });
-  return rateLimit({
+  const limiter = rateLimit({
     windowMs: WINDOW_MS,
     limit: (req) => req.principal?.rateLimitPerMinute ?? fallback,
     keyGenerator: rateLimitSubject,
@@ -43,10 +47,11 @@ export function createRateLimiter(services: Services, options: RateLimiterOption
         new ProblemError({
           status: 429,
           title: 'Too many requests',
-          detail: `This key may make ${String(limit)} requests per minute. Retry after the time given in Retry-After (seconds).`,
+          detail: `This key may make ${String(limit)} requests per minute, a heavy operation counting as several (its x-rate-limit-cost). Retry after the time given in Retry-After (seconds).`,
           type: 'rate-limited',
         }),
       );
     },
   });
+  return withCost(limiter, store, rateLimitSubject, options.cost ?? contractRequestCost());
 }

@@ -2,7 +2,6 @@ import { CalculationInputError } from '../../shared/errors';
 import type { FilterSpec } from '../../shared/filters/biquad-design';
 import {
   checkTuningSettings,
-  planRoom,
   planToTuningSettings,
   type PlanChannelInput,
   type PlanInput,
@@ -13,6 +12,7 @@ import {
 } from '../../shared/plan';
 import type { CrossoverSpec } from '../../shared/plan';
 import type { Room } from '../db/models/room';
+import type { HeavyWork } from '../work/heavy-work';
 
 /** A channel as a request gives it; everything but the id and the two numbers may be left out. */
 export interface ChannelInput {
@@ -55,12 +55,14 @@ export function settingsFromInput(
  * Runs the whole-room plan for a stored room: layout, room, listener, limits and sample rate come from
  * the room unless the request gives them, and a channel without position, distance or arrival takes
  * the stored loudspeaker's position. Without channels, every stored loudspeaker is planned.
- * Errors name fields of the plan (the caller places them in the request).
+ * Errors name fields of the plan (the caller places them in the request). The plan runs on a worker
+ * thread.
  */
-export function planForRoom(
+export async function planForRoom(
+  work: HeavyWork,
   room: Room,
   plan: Partial<PlanInput>,
-): { plan: RoomPlan; settings: TuningSettings } {
+): Promise<{ plan: RoomPlan; settings: TuningSettings }> {
   const stored = new Map(room.loudspeakers.map((s) => [s.id, { x: s.x, y: s.y, z: s.z }]));
   const requested: PlanChannelInput[] = plan.channels ?? room.loudspeakers.map((s) => ({ id: s.id }));
   const channels = requested.map((c) =>
@@ -77,7 +79,7 @@ export function planForRoom(
     sampleRateHz: plan.sampleRateHz ?? room.sampleRateHz,
     channels,
   };
-  const result = planRoom(input);
+  const result = await work.run('planRoom', input);
   return { plan: result, settings: planToTuningSettings(result) };
 }
 

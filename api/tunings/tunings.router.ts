@@ -9,7 +9,7 @@ import { verificationRouter } from './verification.router';
 
 /** Tunings of stored rooms: versioned on every edit, duplicable, comparable, exportable. */
 export function tuningsRouter(services: Services): Router {
-  const tunings = new TuningsService(services.db);
+  const tunings = new TuningsService(services.db, services.work);
   const router = Router();
   const tuning = requirePermission('tuning');
 

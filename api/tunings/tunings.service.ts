@@ -6,6 +6,7 @@ import { pageOf, type Page, type PageRequest } from '../db/pagination';
 import { badRequest, calculateAt } from '../http/problem';
 import { findRoomFor, findTuningFor, type Caller } from '../rooms/room-access';
 import { TargetCurvesService } from '../target-curves/target-curves.service';
+import type { HeavyWork } from '../work/heavy-work';
 import { exportTuning, type ExportQuery } from './tuning-export';
 import { checkPatchedChannel, planForRoom, settingsFromInput, toTuningChannel } from './tuning-input';
 import type { Room } from '../db/models/room';
@@ -50,7 +51,10 @@ type VersionView = ReturnType<typeof versionDto>;
 
 /** Tunings of stored rooms: versioned on every edit, duplicable, comparable, exportable. */
 export class TuningsService {
-  constructor(private readonly db: Database) {}
+  constructor(
+    private readonly db: Database,
+    private readonly work: HeavyWork,
+  ) {}
 
   async list(caller: Caller, roomId: string, page: PageRequest): Promise<Page<TuningView>> {
     const room = await findRoomFor(caller, this.db.models, roomId);
@@ -81,7 +85,7 @@ export class TuningsService {
         ),
       },
     };
-    const fromPlan = plan ? calculateAt('/body/plan', () => planForRoom(room, plan)) : null;
+    const fromPlan = plan ? await calculateAt('/body/plan', () => planForRoom(this.work, room, plan)) : null;
     const settings = fromPlan
       ? fromPlan.settings
       : settingsFromInput({ ...body, channels: body.channels ?? [] }, room);

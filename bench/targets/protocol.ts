@@ -10,6 +10,9 @@ export interface ReadyMessage {
 export interface CpuMessage {
   type: 'cpu';
   cpuMs: number;
+  /** Monotonic clock (the one V8's CPU profiles use), microseconds, at `mark` and at `report`. */
+  fromUs: number;
+  toUs: number;
 }
 
 export interface StoppedMessage {
@@ -30,13 +33,16 @@ export function serveUntilStopped(
   stop: () => Promise<Omit<StoppedMessage, 'type'>>,
 ): void {
   const send = (message: TargetMessage) => process.send?.(message);
+  const monotonicUs = () => Number(process.hrtime.bigint() / 1000n);
   let mark = process.cpuUsage();
+  let markedUs = monotonicUs();
   process.on('message', (message) => {
     if (message === 'mark') {
       mark = process.cpuUsage();
+      markedUs = monotonicUs();
     } else if (message === 'report') {
       const used = process.cpuUsage(mark);
-      send({ type: 'cpu', cpuMs: (used.user + used.system) / 1000 });
+      send({ type: 'cpu', cpuMs: (used.user + used.system) / 1000, fromUs: markedUs, toUs: monotonicUs() });
     } else if (message === 'stop') {
       stop().then(
         (report) => {

@@ -614,7 +614,9 @@ export type paths = {
          *     subwoofer delay and polarity that line its low-pass up in phase with the mains' high-pass at the
          *     crossover. Positions are checked against the layout (ITU-R BS.2051-3) and its warnings included.
          *     Nothing is stored; `POST /v1/rooms/{roomId}/tunings` with `plan` stores a plan as a tuning.
-         *     Deterministic: the same request always gives the same plan.
+         *     Deterministic: the same request always gives the same plan. At most 24 channels may carry a
+         *     `measuredResponse` (each is one EQ fit; 24 covers every channel of the largest BS.2051 layout);
+         *     a larger room is planned in parts. Runs on a worker thread and costs 20 rate-limit units.
          *
          *     **Cautions.** Level calibration plays loud test signals: start quietly and protect hearing. EQ
          *     boosts can overdrive amplifiers and drivers. Mounting loudspeakers overhead and running their
@@ -3078,6 +3080,16 @@ export type components = {
                 "application/problem+json": components["schemas"]["Problem"];
             };
         };
+        /** @description Too many heavy calculations are running or waiting (type `heavy-work-busy`); retry after the seconds given in Retry-After. */
+        Busy: {
+            headers: {
+                "Retry-After": components["headers"]["RetryAfter"];
+                [name: string]: unknown;
+            };
+            content: {
+                "application/problem+json": components["schemas"]["Problem"];
+            };
+        };
         /**
          * @description A state-changing request authenticated by the session cookie lacks `X-Requested-With:
          *     isochron-console` or comes from another origin.
@@ -3469,6 +3481,7 @@ export interface operations {
                 };
             };
             429: components["responses"]["TooManyRequests"];
+            503: components["responses"]["Busy"];
         };
     };
     planBassManagement: {
@@ -3614,6 +3627,7 @@ export interface operations {
             403: components["responses"]["Forbidden"];
             422: components["responses"]["Unprocessable"];
             429: components["responses"]["TooManyRequests"];
+            503: components["responses"]["Busy"];
         };
     };
     computeGeometry: {
@@ -3962,6 +3976,7 @@ export interface operations {
             403: components["responses"]["Forbidden"];
             422: components["responses"]["Unprocessable"];
             429: components["responses"]["TooManyRequests"];
+            503: components["responses"]["Busy"];
         };
     };
     listProcessorProfiles: {
@@ -4374,6 +4389,7 @@ export interface operations {
             };
             422: components["responses"]["Unprocessable"];
             429: components["responses"]["TooManyRequests"];
+            503: components["responses"]["Busy"];
         };
     };
     getMeasurement: {
@@ -4650,6 +4666,7 @@ export interface operations {
             404: components["responses"]["NotFound"];
             422: components["responses"]["Unprocessable"];
             429: components["responses"]["TooManyRequests"];
+            503: components["responses"]["Busy"];
         };
     };
     listTargetCurves: {

@@ -1,5 +1,6 @@
 import fc from 'fast-check';
 import { catchInputError, expectWithin } from '../filters/test-helpers';
+import { MAX_CHANNELS } from '../limits';
 import { alignDelays, DelayInput } from './align-delays';
 
 /** 343.2·sqrt((t + 273.15)/293.15) m/s (pyfar, ISO 9613-1 form), written out here for expected values. */
@@ -144,15 +145,17 @@ describe('alignDelays', () => {
     expect(plan.channels[1].delaySamples / 44.1).toBeLessThanOrEqual(0.0113);
   });
 
-  it('accepts 128 channels and does not modify its input', () => {
+  it('accepts MAX_CHANNELS channels and does not modify its input', () => {
     const input = Object.freeze({
       channels: Object.freeze(
-        Array.from({ length: 128 }, (_, i) => Object.freeze({ id: `ch${i}`, distance: 2 + i / 100 })),
+        Array.from({ length: MAX_CHANNELS }, (_, i) =>
+          Object.freeze({ id: `ch${i}`, distance: 2 + i / 100 }),
+        ),
       ),
     }) as unknown as DelayInput;
     const plan = alignDelays(input);
-    expect(plan.channels).toHaveLength(128);
-    expect(plan.referenceChannel).toBe('ch127');
+    expect(plan.channels).toHaveLength(MAX_CHANNELS);
+    expect(plan.referenceChannel).toBe(`ch${MAX_CHANNELS - 1}`);
   });
 
   it.each([

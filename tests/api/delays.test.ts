@@ -1,3 +1,4 @@
+import { MAX_CHANNELS } from '../../shared/limits';
 import { expectToMatchContract } from '../support/contract';
 import { createTestContext, type TestContext } from '../support/test-context';
 import { deeplyNested, expectProblem, poster, rawPoster } from './calculation-helpers';
@@ -68,11 +69,17 @@ describe('POST /v1/delays', () => {
     expect(res.body.warnings[0]).toMatchObject({ code: 'delayClamped', channel: 'near' });
   });
 
-  it('accepts 128 channels', async () => {
-    const channels = Array.from({ length: 128 }, (_, i) => ({ id: `ch${i}`, distance: 2 + i / 50 }));
-    const res = await post({ channels });
+  it('accepts MAX_CHANNELS channels and refuses one more', async () => {
+    const channels = Array.from({ length: MAX_CHANNELS + 1 }, (_, i) => ({
+      id: `ch${i}`,
+      distance: 2 + i / 50,
+    }));
+    const res = await post({ channels: channels.slice(0, MAX_CHANNELS) });
     expect(res.status).toBe(200);
-    expect(res.body.channels).toHaveLength(128);
+    expect(res.body.channels).toHaveLength(MAX_CHANNELS);
+    const over = await post({ channels });
+    expect(over.status).toBe(400);
+    expect(over.body.errors[0].pointer).toBe('/body/channels');
   });
 
   describe('bad input gets a problem document naming the field', () => {

@@ -7,6 +7,7 @@ import {
   resolveRef,
   type OpenApiDocument,
 } from '../../api/openapi/document';
+import { MAX_CHANNELS } from '../../shared/limits';
 import { createTestContext, type TestContext } from '../support/test-context';
 
 let ctx: TestContext;
@@ -76,10 +77,10 @@ describe('a request body with a huge array (validation time linear in the body)'
     const res = await request(ctx.app)
       .post('/v1/delays')
       .set(asAdmin())
-      .send({ channels: Array.from({ length: 128 }, () => ({ id: '' })) });
+      .send({ channels: Array.from({ length: MAX_CHANNELS }, () => ({ id: '' })) });
     expect(res.status).toBe(400);
     expect(res.body.errors).toHaveLength(50);
-    expect(res.body.detail).toMatch(/ (\d{3}) invalid fields; the first 50 are listed/);
+    expect(res.body.detail).toMatch(/ (\d+) invalid fields; the first 50 are listed/);
   });
 });
 

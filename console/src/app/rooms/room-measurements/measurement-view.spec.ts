@@ -11,6 +11,7 @@ import {
   uploadFieldErrors,
   uploadProblems,
 } from './measurement-view';
+import { MAX_FIT_POINTS } from '../../../../../shared/limits';
 import type { Measurement, RoomMode } from './measurement.model';
 
 function measurement(partial: Partial<Measurement> & Pick<Measurement, 'id' | 'kind'>): Measurement {
@@ -146,7 +147,7 @@ describe('eqFitRequest', () => {
     });
   });
 
-  it('drops points the API would refuse and thins long responses to 16384 points, keeping both ends', () => {
+  it('drops points the API would refuse and thins long responses to the point cap on a log scale, keeping both ends', () => {
     const odd = {
       frequenciesHz: [0, 20, 40, 80, 200000],
       magnitudeDb: [80, Number.NaN, -400, 81, 82],
@@ -161,7 +162,12 @@ describe('eqFitRequest', () => {
       magnitudeDb: Array.from({ length: n }, (_, i) => i % 7),
     };
     const thinned = eqFitRequest(long, null, 48000, false).measured;
-    expect(thinned.frequenciesHz).toHaveLength(16384);
+    expect(thinned.frequenciesHz.length).toBeLessThanOrEqual(MAX_FIT_POINTS);
+    // Below about 120 Hz the 1-Hz points are sparser than the log grid, so fewer than the cap are kept.
+    expect(thinned.frequenciesHz.length).toBeGreaterThan(MAX_FIT_POINTS * 0.75);
+    // Log spacing keeps the 1-Hz points at the low end, where room modes sit: at 1024 points over
+    // 12 octaves a step is 0.8 % of the frequency, under 1 Hz below about 120 Hz.
+    for (let f = 10; f <= 100; f += 1) expect(thinned.frequenciesHz).toContain(f);
     expect(thinned.frequenciesHz[0]).toBe(10);
     expect(thinned.frequenciesHz.at(-1)).toBe(10 + n - 1);
     expect(thinned.frequenciesHz.every((f, i) => i === 0 || f > thinned.frequenciesHz[i - 1])).toBe(true);

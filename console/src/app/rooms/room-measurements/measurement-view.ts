@@ -128,7 +128,8 @@ export interface RoomLimits {
  * cuts only unless boosts are allowed (then up to the room's boost limit), toward a flat target, and the
  * room's volume and measured reverberation time so the fit corrects only up to its transition frequency.
  * Points the API would refuse (non-finite, out of range) are dropped and a longer response is thinned
- * evenly to the API's point cap, keeping both ends.
+ * to the API's point cap evenly on a log-frequency scale, keeping both ends: an export with linear
+ * spacing (FFT bins) keeps its low-frequency points, where room modes need them.
  */
 export function eqFitRequest(
   measured: { frequenciesHz: readonly number[]; magnitudeDb: readonly number[] },
@@ -141,13 +142,7 @@ export function eqFitRequest(
     const db = measured.magnitudeDb[i];
     return f > 0 && f <= MAX_FIT_HZ && Number.isFinite(db) && Math.abs(db) <= MAX_FIT_DB ? [[f, db]] : [];
   });
-  const kept =
-    points.length <= MAX_FIT_POINTS
-      ? points
-      : Array.from(
-          { length: MAX_FIT_POINTS },
-          (_, i) => points[Math.round((i * (points.length - 1)) / (MAX_FIT_POINTS - 1))],
-        );
+  const kept = points.length <= MAX_FIT_POINTS ? points : thinLogarithmically(points, MAX_FIT_POINTS);
   return {
     sampleRateHz,
     measured: { frequenciesHz: kept.map((p) => p[0]), magnitudeDb: kept.map((p) => p[1]) },
@@ -162,6 +157,27 @@ export function eqFitRequest(
       },
     }),
   };
+}
+
+/**
+ * At most `count` of the ascending `points`: for each of `count` log-spaced frequencies from the first
+ * to the last point, the point nearest it (in log frequency), each point taken once.
+ */
+function thinLogarithmically(points: number[][], count: number): number[][] {
+  const first = Math.log(points[0][0]);
+  const span = Math.log(points[points.length - 1][0]) - first;
+  const kept: number[][] = [];
+  let index = 0;
+  for (let i = 0; i < count; i += 1) {
+    const wanted = first + (span * i) / (count - 1);
+    while (
+      index + 1 < points.length &&
+      Math.abs(Math.log(points[index + 1][0]) - wanted) <= Math.abs(Math.log(points[index][0]) - wanted)
+    )
+      index += 1;
+    if (kept.at(-1) !== points[index]) kept.push(points[index]);
+  }
+  return kept;
 }
 
 export interface DecayRow {

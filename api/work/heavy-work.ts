@@ -1,0 +1,136 @@
+import path from 'node:path';
+import type { Response } from 'express';
+import { Piscina } from 'piscina';
+import { ProblemError } from '../http/problem';
+import type { TaskInput, TaskName, TaskOutput } from './tasks';
+import { reviveRefusal, runTask, type TaskReply, type TaskRequest } from './worker';
+
+export interface HeavyWorkOptions {
+  /** Worker threads running heavy tasks side by side. */
+  threads: number;
+  /** Heavy tasks that may wait for a thread; one more is refused with 503 and Retry-After. */
+  queueLimit: number;
+}
+
+/**
+ * The worker file. Built (`dist/`), it is plain JavaScript beside this module. From source (`tsx`,
+ * jest) a small CommonJS entry registers tsx's require hook in the thread first: a worker thread does
+ * not inherit the hooks of the process that started it.
+ */
+const workerFile = path.join(__dirname, __filename.endsWith('.ts') ? 'worker-from-source.cjs' : 'worker.js');
+
+/**
+ * Runs the calculations of `tasks.ts` in a pool of worker threads (piscina), so a heavy request never
+ * holds the event loop. The pool starts on the first task and stops on `close()` (the services close it
+ * on SIGTERM, after the requests in flight have ended). Admission is counted here, not by piscina, so
+ * the limit is exact: `threads` tasks running plus `queueLimit` waiting; one more is a 503 problem.
+ */
+export class HeavyWork {
+  private pool: Piscina | null = null;
+  private pending = 0;
+  private closed = false;
+  /** Running mean of a task's duration (ms), for Retry-After; starts at one second. */
+  private meanTaskMs = 1000;
+
+  constructor(readonly options: HeavyWorkOptions) {}
+
+  /** Tasks running or waiting now. */
+  get inFlight(): number {
+    return this.pending;
+  }
+
+  /** Most tasks running or waiting at once. */
+  get capacity(): number {
+    return this.options.threads + this.options.queueLimit;
+  }
+
+  /**
+   * Runs `task` on a worker thread. A refused input rejects with the core's CalculationInputError (the
+   * error path makes it a 422 naming the field); a full queue or a closed pool with a 503 problem.
+   * `signal` drops the task (queued) or stops its thread (running), for a client that went away.
+   */
+  async run<T extends TaskName>(task: T, input: TaskInput<T>, signal?: AbortSignal): Promise<TaskOutput<T>> {
+    if (this.closed) throw unavailable('The service is shutting down.', 1);
+    if (this.pending >= this.capacity) {
+      throw unavailable(
+        `${this.pending} heavy calculations are running or waiting, the most this service takes at once. Retry after the time given in Retry-After (seconds).`,
+        this.retryAfterS(),
+      );
+    }
+    this.pending += 1;
+    const started = performance.now();
+    try {
+      const request: TaskRequest = { task, input };
+      let reply: TaskReply;
+      try {
+        reply = (await this.start().run(request, { name: 'runTask', signal })) as TaskReply;
+      } catch (error) {
+        // Nobody reads this answer; a problem (not a fault) keeps it out of the error log.
+        if (signal?.aborted) throw unavailable('The client closed the connection.', 1);
+        throw error;
+      }
+      if (!reply.ok) throw reviveRefusal(reply.refused);
+      return reply.value as TaskOutput<T>;
+    } finally {
+      this.pending -= 1;
+      this.meanTaskMs += (performance.now() - started - this.meanTaskMs) / 8;
+    }
+  }
+
+  /** Stops the threads; tasks still running are cancelled. */
+  async close(): Promise<void> {
+    this.closed = true;
+    const pool = this.pool;
+    this.pool = null;
+    await pool?.destroy();
+  }
+
+  private start(): Piscina {
+    this.pool ??= new Piscina({
+      filename: workerFile,
+      minThreads: this.options.threads,
+      maxThreads: this.options.threads,
+      // The admission check above already bounds the queue.
+      maxQueue: this.capacity,
+    });
+    return this.pool;
+  }
+
+  /** Seconds until a place is likely free: the work ahead of a new task spread over the threads. */
+  private retryAfterS(): number {
+    return Math.max(1, Math.ceil((this.pending * this.meanTaskMs) / this.options.threads / 1000));
+  }
+}
+
+const unavailable = (detail: string, retryAfterS: number): ProblemError =>
+  new ProblemError({
+    status: 503,
+    title: 'Busy with heavy calculations',
+    detail,
+    type: 'heavy-work-busy',
+    headers: { 'Retry-After': String(retryAfterS) },
+  });
+
+/**
+ * A signal that aborts when the client closes the connection before its answer was sent, so a heavy
+ * task nobody waits for any more gives its thread back.
+ */
+export function whenClientGone(res: Response): AbortSignal {
+  const controller = new AbortController();
+  res.once('close', () => {
+    if (!res.writableFinished) controller.abort();
+  });
+  return controller.signal;
+}
+
+/**
+ * The same tasks on the calling thread, for start-up work no request waits behind (loading the demo
+ * data before the service listens): starting a worker thread for it would only add its start-up time.
+ */
+export const onThisThread: Pick<HeavyWork, 'run'> = {
+  async run<T extends TaskName>(task: T, input: TaskInput<T>): Promise<TaskOutput<T>> {
+    const reply = runTask({ task, input });
+    if (!reply.ok) throw reviveRefusal(reply.refused);
+    return reply.value as TaskOutput<T>;
+  },
+};
