@@ -27,9 +27,15 @@ async function roomWithTuning(): Promise<{ roomId: string; tuningId: string }> {
   return { roomId: room.body.id, tuningId: tuning.body.id };
 }
 
-/** What `DELETE /v1/rooms/{id}` removes, done inside a transaction the test controls. */
-async function deleteRoomRows(roomId: string, transaction: Transaction): Promise<void> {
+/**
+ * What `DELETE /v1/rooms/{id}` does, inside a transaction the test controls: lock the room (PostgreSQL;
+ * SQLite's one writer needs no lock), then remove it and what hangs on it. `locked` is called once the
+ * room is locked.
+ */
+async function deleteRoomRows(roomId: string, transaction: Transaction, locked: () => void): Promise<void> {
   const { Room, RoomState, Tuning, TuningVersion, Measurement } = ctx.db.models;
+  await Room.findByPk(roomId, { transaction, lock: transaction.LOCK.UPDATE });
+  locked();
   const tunings = await Tuning.findAll({ where: { roomId }, transaction });
   await TuningVersion.destroy({ where: { tuningId: tunings.map((t) => t.id) }, transaction });
   await Tuning.destroy({ where: { roomId }, transaction });
@@ -46,14 +52,19 @@ async function whileRoomIsDeleted(roomId: string, send: () => request.Test): Pro
   const realWrite = ctx.db.write;
   let queued!: () => void;
   const requestReachedWrite = new Promise<void>((resolve) => (queued = resolve));
-  const spy = jest.spyOn(ctx.db, 'write').mockImplementation((work) => {
+  let locked!: () => void;
+  const deletionHoldsRoom = new Promise<void>((resolve) => (locked = resolve));
+  // SQLite queues the request's write behind the deletion; PostgreSQL runs writes side by side, so the
+  // request's write starts once the deletion holds the room's lock, and then waits for it.
+  const spy = jest.spyOn(ctx.db, 'write').mockImplementation(async (work) => {
     queued();
+    if (ctx.db.dialect === 'postgres') await deletionHoldsRoom;
     return realWrite(work);
   });
   try {
     const deletion = realWrite(async (transaction) => {
       await requestReachedWrite;
-      await deleteRoomRows(roomId, transaction);
+      await deleteRoomRows(roomId, transaction, locked);
     });
     const res = await send();
     await deletion;
