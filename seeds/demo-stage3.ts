@@ -23,8 +23,10 @@ function stage3Plan(bassManaged: boolean): PlanInput {
       ...(responses[id] && { measuredResponse: responses[id] }),
       bassManaged: bassManaged && !id.startsWith('LFE'),
     })),
-    targets: { referenceDb: STAGE3_REFERENCE_DB, crossoverHz: 80 },
+    // T60 0.30 s is the invented decay of the demo impulse response: the EQ stops at 2000·√(0.3/V) ≈ 93 Hz.
+    targets: { referenceDb: STAGE3_REFERENCE_DB, crossoverHz: 80, reverberationTimeS: 0.3 },
     limits: STAGE3_ROOM.limits,
+    processorEq: STAGE3_PROFILE.eq,
     temperatureC: 21,
     sampleRateHz: STAGE3_ROOM.sampleRateHz,
   };

@@ -12,6 +12,7 @@ import {
 } from '../../shared/plan';
 import type { CrossoverSpec } from '../../shared/plan';
 import type { Room } from '../db/models/room';
+import type { ProcessorProfileSettings } from '../../shared/processor/profile';
 import type { HeavyWork } from '../work/heavy-work';
 
 /** A channel as a request gives it; everything but the id and the two numbers may be left out. */
@@ -62,6 +63,7 @@ export async function planForRoom(
   work: HeavyWork,
   room: Room,
   plan: Partial<PlanInput>,
+  profile: ProcessorProfileSettings | null = null,
 ): Promise<{ plan: RoomPlan; settings: TuningSettings }> {
   const stored = new Map(room.loudspeakers.map((s) => [s.id, { x: s.x, y: s.y, z: s.z }]));
   const requested: PlanChannelInput[] = plan.channels ?? room.loudspeakers.map((s) => ({ id: s.id }));
@@ -78,6 +80,8 @@ export async function planForRoom(
     limits: plan.limits ?? room.limits ?? undefined,
     sampleRateHz: plan.sampleRateHz ?? room.sampleRateHz,
     channels,
+    // The EQ fit keeps to the room's processor as the limit check after it will.
+    processorEq: profile?.eq,
   };
   const result = await work.run('planRoom', input);
   return { plan: result, settings: planToTuningSettings(result) };

@@ -11,7 +11,7 @@ import { checkPatchedChannel, planForRoom, settingsFromInput, toTuningChannel } 
 import type { Room } from '../db/models/room';
 import type { Tuning } from '../db/models/tuning';
 import type { TuningVersion } from '../db/models/tuning-version';
-import { stalenessOf } from '../rooms/room-state-store';
+import { profileOfRoom, stalenessOf } from '../rooms/room-state-store';
 import {
   addVersion,
   createTuning,
@@ -84,7 +84,10 @@ export class TuningsService {
         ),
       },
     };
-    const fromPlan = plan ? await calculateAt('/body/plan', () => planForRoom(this.work, room, plan)) : null;
+    const profile = plan ? await profileOfRoom(this.db.models, room) : null;
+    const fromPlan = plan
+      ? await calculateAt('/body/plan', () => planForRoom(this.work, room, plan, profile?.settings ?? null))
+      : null;
     const settings = fromPlan
       ? fromPlan.settings
       : settingsFromInput({ ...body, channels: body.channels ?? [] }, room);

@@ -1282,6 +1282,18 @@ export type components = {
             /** Format: date-time */
             updatedAt: string;
         };
+        /** @description The processor's setting steps; bands are rounded to them (frequency and Q to the nearest step inside their ranges, gain toward 0 dB, so no limit is crossed). Default 0.1 Hz, 0.01 dB, 0.001. */
+        BandSteps: {
+            /** @description Hertz, or octaves with frequencyStepUnit octave. */
+            frequencyHz?: number;
+            /**
+             * @default hz
+             * @enum {string}
+             */
+            frequencyStepUnit?: "hz" | "octave";
+            gainDb?: number;
+            q?: number;
+        };
         /** @description Any part of the crossover; the rest comes from the request's crossover or from LR4 at 80 Hz. */
         BassCrossover: {
             family?: components["schemas"]["CrossoverFamily"];
@@ -1495,6 +1507,7 @@ export type components = {
                 fromHz: number;
                 toHz: number;
             };
+            bandSteps?: components["schemas"]["BandSteps"];
             /** @description Filter types the processor offers; without `peaking` no band is fitted. */
             filterTypes?: components["schemas"]["FilterType"][];
             /** @description Lower end of the correction. */

@@ -55,7 +55,7 @@ export function combinedExtremes(
 
 /**
  * Scales the boosts (or the cuts) down together until the summed response stays within the limits at
- * every frequency of {@link limitGrid}. Gains are truncated toward 0 dB at 0.01 dB, so rounding never
+ * every frequency of {@link limitGrid}. Gains are truncated toward 0 dB to the gain step, so rounding never
  * pushes a band back past a limit. Returns new bands; those scaled are listed in `scaled`.
  */
 export function withinCombinedLimits(
@@ -63,6 +63,7 @@ export function withinCombinedLimits(
   sampleRateHz: number,
   maxBoostDb: number,
   maxCutDb: number,
+  gainStepDb = 0.01,
 ): { bands: Band[]; scaled: boolean } {
   let current = bands.map((b) => ({ ...b }));
   let scaled = false;
@@ -78,9 +79,16 @@ export function withinCombinedLimits(
     const cutFactor = cutOver ? (maxCutDb / cut) * 0.999 : 1;
     current = current.map((b) => ({
       ...b,
-      gainDb: Math.trunc(b.gainDb * (b.gainDb > 0 ? boostFactor : cutFactor) * 100) / 100,
+      gainDb: truncateToStep(b.gainDb * (b.gainDb > 0 ? boostFactor : cutFactor), gainStepDb),
     }));
   }
   // Not reached in practice: the factors shrink every offending band each time.
   return { bands: current.map((b) => ({ ...b, gainDb: 0 })), scaled: true };
+}
+
+/** A gain truncated toward 0 dB to a multiple of the step (a step of 0: unchanged). */
+export function truncateToStep(gainDb: number, stepDb: number): number {
+  if (!(stepDb > 0)) return gainDb;
+  const steps = Math.trunc(gainDb / stepDb + Math.sign(gainDb) * 1e-9);
+  return Math.round(steps * stepDb * 1e9) / 1e9;
 }

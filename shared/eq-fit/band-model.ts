@@ -9,7 +9,16 @@ export interface Band {
   q: number;
 }
 
-/** Where one band may go: centre frequency, gain and Q bounds. */
+/** The processor's setting steps a band is rounded to. */
+export interface BandSteps {
+  /** Frequency step: hertz, or a fraction of an octave (from 1 kHz) with `frequencyUnit` `octave`. */
+  frequencyHz: number;
+  frequencyUnit: 'hz' | 'octave';
+  gainDb: number;
+  q: number;
+}
+
+/** Where one band may go: centre frequency, gain and Q bounds, and the steps it is rounded to. */
 export interface BandBounds {
   fromHz: number;
   toHz: number;
@@ -17,6 +26,7 @@ export interface BandBounds {
   maxGainDb: number;
   qMin: number;
   qMax: number;
+  steps: BandSteps;
 }
 
 /** The data a set of bands is fitted to, on one grid. */

@@ -261,6 +261,50 @@ describe('fitParametricEq as an engineer would accept it', () => {
     expect(noPeaking.explanation.notUsed.map((n) => n.code)).toContain('peakingNotSupported');
   });
 
+  it('rounds bands to the processor steps without crossing a limit (1 Hz or 1/12 octave, 0.5 dB, Q 0.1)', () => {
+    const input: EqFitInput = {
+      sampleRateHz: fs,
+      measured: {
+        frequenciesHz: low,
+        magnitudeDb: responseOf(
+          [
+            [37, 7, 5],
+            [58, 6, 4],
+            [140, -6, 1.2],
+          ],
+          low,
+        ),
+      },
+      maxBands: 6,
+      maxBoostDb: 2,
+      maxCutDb: 6,
+      toHz: 300,
+    };
+    const multiple = (v: number, step: number) => Math.abs(v / step - Math.round(v / step)) < 1e-6;
+    const hz = fitParametricEq({ ...input, bandSteps: { frequencyHz: 1, gainDb: 0.5, q: 0.1 } });
+    expect(hz.bands.length).toBeGreaterThanOrEqual(2);
+    for (const b of hz.bands) {
+      expect(multiple(b.frequencyHz, 1)).toBe(true);
+      expect(multiple(b.gainDb, 0.5)).toBe(true);
+      expect(multiple(b.q, 0.1)).toBe(true);
+    }
+    expectDisciplined(hz, { maxBands: 6, maxBoostDb: 2, maxCutDb: 6, minGainDb: 0.5 });
+    const octave = fitParametricEq({
+      ...input,
+      bandSteps: { frequencyHz: 1 / 12, frequencyStepUnit: 'octave' },
+    });
+    // A step coarser than the range leaves no setting for a band: none is fitted, nothing breaks.
+    expect(fitParametricEq({ ...input, bandSteps: { frequencyHz: 1000 } }).bands).toEqual([]);
+    // On the 1/12-octave series through 1 kHz: log2(f/1000)·12 is a whole number.
+    for (const b of octave.bands)
+      expectWithin(
+        Math.log2(b.frequencyHz / 1000) * 12,
+        Math.round(Math.log2(b.frequencyHz / 1000) * 12),
+        1e-4,
+        `${b.frequencyHz} Hz`,
+      );
+  });
+
   it('fits toward a target given as points', () => {
     // A house curve: +4 dB at 20 Hz falling to 0 dB at 200 Hz; the response follows it but for one mode.
     const points = [

@@ -12,9 +12,17 @@ import {
   combinedExtremes,
   MIN_BAND_SPACING_OCTAVES,
   octavesApart,
+  truncateToStep,
   withinCombinedLimits,
 } from './band-discipline';
-import { BandModel, weightedRms, type Band, type BandBounds, type FitData } from './band-model';
+import {
+  BandModel,
+  weightedRms,
+  type Band,
+  type BandBounds,
+  type BandSteps,
+  type FitData,
+} from './band-model';
 import { findNulls, type ResponseNull } from './nulls';
 import { requireTargetCurve, targetDb, type TargetCurve } from './target-curve';
 
@@ -60,6 +68,11 @@ export interface EqFitInput {
   bandFrequencyRangeHz?: { fromHz: number; toHz: number };
   /** Filter types the processor offers; without `peaking` no band is fitted. */
   filterTypes?: string[];
+  /**
+   * The processor's setting steps (default 0.1 Hz, 0.01 dB, 0.001): bands are rounded to them, gains toward
+   * 0 dB, so the limits still hold. `frequencyStepUnit` `octave`: the step is a fraction of an octave from 1 kHz.
+   */
+  bandSteps?: { frequencyHz?: number; frequencyStepUnit?: 'hz' | 'octave'; gainDb?: number; q?: number };
   /** Broad, gentle corrections above the transition frequency: only when given. */
   aboveTransition?: {
     /** Most bands above the transition, 0..4 (default 2); they count toward `maxBands`. */
@@ -362,11 +375,13 @@ export function fitParametricEq(input: EqFitInput): EqFitResult {
       message: `The processor offers ${input.filterTypes?.join(', ') || 'no filter types'} but no peaking filters, so no band was fitted.`,
     });
   }
+  const steps = requireSteps(input.bandSteps);
   const roomBounds = {
     fromHz: Math.max(fromHz, bandRange.min),
     toHz: Math.min(toHz, bandRange.max),
     qMin: qRange.min,
     qMax,
+    steps,
   };
   let fitted: Fitted[] = [];
   let roomModel: BandModel | null = null;
@@ -404,6 +419,7 @@ export function fitParametricEq(input: EqFitInput): EqFitResult {
       maxCutDb,
       minGainDb,
       bandRange,
+      steps,
       notUsed,
       warnings,
     });
@@ -412,7 +428,7 @@ export function fitParametricEq(input: EqFitInput): EqFitResult {
   }
 
   // Final check of every rule on the rounded bands, and never worse than no EQ.
-  fitted = finalDiscipline(fitted, fs, maxBoostDb, maxCutDb, minGainDb, roomModel, notUsed);
+  fitted = finalDiscipline(fitted, fs, maxBoostDb, maxCutDb, minGainDb, steps.gainDb, roomModel, notUsed);
   // With broad bands the answer covers the whole corrected range, on the unsmoothed response: bands go
   // (broad ones first) while the residual there is worse than without them.
   let reportLast = fitLast;
@@ -547,7 +563,7 @@ interface RoomFitOptions {
 /** Greedy placement and joint refinement below the transition, then merging and pruning (see fitParametricEq). */
 function fitRoomBands(
   model: BandModel,
-  limits: { fromHz: number; toHz: number; qMin: number; qMax: number },
+  limits: { fromHz: number; toHz: number; qMin: number; qMax: number; steps: BandSteps },
   options: RoomFitOptions,
 ): Fitted[] {
   const { maxBands, maxBoostDb, maxCutDb, minGainDb, notUsed } = options;
@@ -648,7 +664,7 @@ function disciplined(
   const result: Fitted[] = [];
   for (const candidate of kept) {
     const { band } = candidate;
-    if (Math.abs(band.gainDb) < minGainDb) {
+    if (band.gainDb === 0 || Math.abs(band.gainDb) < minGainDb) {
       changed = true;
       notUsed.push({
         code: 'belowMinimumGain',
@@ -725,6 +741,7 @@ function finalDiscipline(
   maxBoostDb: number,
   maxCutDb: number,
   minGainDb: number,
+  gainStepDb: number,
   roomModel: BandModel | null,
   notUsed: NotUsed[],
 ): Fitted[] {
@@ -737,10 +754,13 @@ function finalDiscipline(
       fs,
       maxBoostDb,
       maxCutDb,
+      gainStepDb,
     );
     current = current.map((f, i) => ({ ...f, band: limited.bands[i] }));
-    if (roomModel) current = withoutBoostIntoNoBoost(roomModel, current);
-    current = current.filter((f) => Math.abs(f.band.gainDb) >= minGainDb || dropNote(f, minGainDb, notUsed));
+    if (roomModel) current = withoutBoostIntoNoBoost(roomModel, current, gainStepDb);
+    current = current.filter(
+      (f) => (f.band.gainDb !== 0 && Math.abs(f.band.gainDb) >= minGainDb) || dropNote(f, minGainDb, notUsed),
+    );
     if (roomModel) current = notWorseThanNone(roomModel, current, notUsed, 'room');
     if (roomModel) current = withoutIdleBands(roomModel, current, notUsed);
     const stable =
@@ -762,7 +782,7 @@ function dropNote(f: Fitted, minGainDb: number, notUsed: NotUsed[]): false {
 }
 
 /** Scales boosts down until the summed EQ adds no more than 0.1 dB at any no-boost point. */
-function withoutBoostIntoNoBoost(model: BandModel, fitted: Fitted[]): Fitted[] {
+function withoutBoostIntoNoBoost(model: BandModel, fitted: Fitted[], gainStepDb: number): Fitted[] {
   let current = fitted;
   for (let attempt = 0; attempt < 40; attempt++) {
     const total = model.totalDb(current.map((f) => f.band));
@@ -770,7 +790,9 @@ function withoutBoostIntoNoBoost(model: BandModel, fitted: Fitted[]): Fitted[] {
     for (let i = 0; i < total.length; i++) if (model.data.noBoost[i]) worst = Math.max(worst, total[i]);
     if (worst <= 0.1) return current;
     current = current.map((f) =>
-      f.band.gainDb > 0 ? { ...f, band: { ...f.band, gainDb: Math.trunc(f.band.gainDb * 80) / 100 } } : f,
+      f.band.gainDb > 0
+        ? { ...f, band: { ...f.band, gainDb: truncateToStep(f.band.gainDb * 0.8, gainStepDb) } }
+        : f,
     );
   }
   return current.filter((f) => f.band.gainDb <= 0);
@@ -932,6 +954,7 @@ interface BroadContext {
   maxCutDb: number;
   minGainDb: number;
   bandRange: { min: number; max: number };
+  steps: BandSteps;
   notUsed: NotUsed[];
   warnings: EqFitWarning[];
 }
@@ -1023,6 +1046,7 @@ function fitBroadBands(options: NonNullable<EqFitInput['aboveTransition']>, ctx:
     toHz: Math.min(ctx.toHz, ctx.bandRange.max),
     qMin: EQ_FIT_LIMITS.aboveQMin,
     qMax,
+    steps: ctx.steps,
   };
   if (!(limits.toHz > limits.fromHz)) return ctx.fitted;
   const cutBounds: BandBounds = { ...limits, minGainDb: -cut, maxGainDb: 0 };
@@ -1383,19 +1407,52 @@ function fitBand(
   return { fromHz, toHz };
 }
 
+/**
+ * A band on the processor's grid: frequency and Q to the nearest step inside their ranges (inward at the
+ * ends), gain truncated toward 0 dB to its step so no limit is crossed by rounding.
+ */
 function roundBand(band: Band, bounds: BandBounds): Band {
+  const { steps } = bounds;
   const clamp = (v: number, lo: number, hi: number) => Math.min(hi, Math.max(lo, v));
-  // Rounded to 0.1 Hz, inward at the ends, so a band never sits outside its range.
-  const frequencyHz = clamp(
-    Math.round(band.frequencyHz * 10) / 10,
-    Math.ceil(bounds.fromHz * 10 - 1e-9) / 10,
-    Math.floor(bounds.toHz * 10 + 1e-9) / 10,
-  );
-  const q = clamp(Math.round(band.q * 1000) / 1000, bounds.qMin, bounds.qMax);
+  // No step inside the range: the band cannot be set on this processor, so it gets no gain (and is dropped).
+  let settable = true;
+  const onGrid = (v: number, step: number, lo: number, hi: number) => {
+    if (!(step > 0)) return clamp(v, lo, hi);
+    const fix = (x: number) => Math.round(x * 1e9) / 1e9;
+    const first = fix(Math.ceil(lo / step - 1e-9) * step);
+    const last = fix(Math.floor(hi / step + 1e-9) * step);
+    if (first > last) {
+      settable = false;
+      return clamp(v, lo, hi);
+    }
+    return clamp(fix(Math.round(v / step) * step), first, last);
+  };
+  let frequencyHz: number;
+  if (steps.frequencyUnit === 'octave' && steps.frequencyHz > 0) {
+    const octaves = onGrid(
+      Math.log2(band.frequencyHz / 1000),
+      steps.frequencyHz,
+      Math.log2(bounds.fromHz / 1000),
+      Math.log2(bounds.toHz / 1000),
+    );
+    frequencyHz = Math.round(1000 * Math.pow(2, octaves) * 1e6) / 1e6;
+    frequencyHz = clamp(frequencyHz, bounds.fromHz, bounds.toHz);
+  } else {
+    frequencyHz = onGrid(band.frequencyHz, steps.frequencyHz, bounds.fromHz, bounds.toHz);
+  }
+  const q = onGrid(band.q, steps.q, bounds.qMin, bounds.qMax);
+  const gainDb = clamp(truncateToStep(band.gainDb, steps.gainDb), bounds.minGainDb, bounds.maxGainDb);
+  return { frequencyHz, gainDb: settable ? gainDb : 0, q };
+}
+
+function requireSteps(steps: EqFitInput['bandSteps']): BandSteps {
+  const step = (value: number | undefined, fallback: number, max: number, name: string) =>
+    requireInRange(value ?? fallback, { min: 0, max }, `bandSteps.${name}`, `/bandSteps/${name}`);
   return {
-    frequencyHz: Math.round(frequencyHz * 1e9) / 1e9,
-    gainDb: clamp(Math.trunc(band.gainDb * 100) / 100, bounds.minGainDb, bounds.maxGainDb),
-    q,
+    frequencyHz: step(steps?.frequencyHz, 0.1, 1000, 'frequencyHz'),
+    frequencyUnit: steps?.frequencyStepUnit === 'octave' ? 'octave' : 'hz',
+    gainDb: step(steps?.gainDb, 0.01, 6, 'gainDb'),
+    q: step(steps?.q, 0.001, 10, 'q'),
   };
 }
 

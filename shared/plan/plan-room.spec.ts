@@ -180,6 +180,33 @@ describe('planRoom — EQ from measured responses', () => {
     expect(wider.eq.bands.some((b) => b.frequencyHz > 150 && b.frequencyHz < 250 && b.gainDb < 0)).toBe(true);
   });
 
+  it('keeps to the processor profile of the room: band count, filter types, frequency, gain and Q ranges, steps', () => {
+    const processorEq = {
+      bandsPerChannel: 2,
+      filterTypes: ['peaking' as const],
+      frequencyHz: { min: 30, max: 20000, step: 1 },
+      frequencyStepUnit: 'hz' as const,
+      gainDb: { min: -5, max: 3, step: 0.5 },
+      q: { min: 0.5, max: 3, step: 0.1 },
+    };
+    const limited = planRoom({ ...input, processorEq });
+    const bands = limited.channels.flatMap((c) => c.eq.bands);
+    expect(bands.length).toBeGreaterThan(0);
+    for (const channel of limited.channels) expect(channel.eq.bands.length).toBeLessThanOrEqual(2);
+    for (const b of bands) {
+      expect(b.frequencyHz).toBeGreaterThanOrEqual(30);
+      expect(b.gainDb).toBeGreaterThanOrEqual(-5);
+      expect(b.q).toBeLessThanOrEqual(3);
+      expect(Number.isInteger(b.frequencyHz)).toBe(true);
+      expect(Math.abs(b.gainDb * 2 - Math.round(b.gainDb * 2))).toBeLessThan(1e-9);
+    }
+    const shelvesOnly = planRoom({
+      ...input,
+      processorEq: { ...processorEq, filterTypes: ['lowShelf' as const] },
+    });
+    expect(shelvesOnly.channels.flatMap((c) => c.eq.bands)).toEqual([]);
+  });
+
   it('refuses measured responses without a band count', () => {
     const { eqBandsPerChannel: _bands, ...limits } = input.limits!;
     expect(() => planRoom({ ...input, limits })).toThrow(

@@ -4,7 +4,12 @@ import {
   DEFAULT_LFE_GAIN_DB,
 } from '../bass-management/bass-management';
 import { alignDelays } from '../delay/align-delays';
-import { fitParametricEq, type EqFitResult, type PeakingBand } from '../eq-fit/fit-parametric-eq';
+import {
+  EQ_FIT_DEFAULTS,
+  fitParametricEq,
+  type EqFitResult,
+  type PeakingBand,
+} from '../eq-fit/fit-parametric-eq';
 import type { TargetCurve } from '../eq-fit/target-curve';
 import { CalculationInputError, withFieldPrefix } from '../errors';
 import type { Sos } from '../dsp/sos';
@@ -19,6 +24,7 @@ import { toListenerPolar, type RoomPoint } from '../geometry/coordinates';
 import { requireLayout } from '../layouts';
 import { computeLevelTrims } from '../level/level-trims';
 import type { Caution, CalculationWarning } from '../notices';
+import type { ProcessorProfileSettings } from '../processor/profile';
 import type { DistanceInput } from '../units/distance';
 import { DEFAULT_SAMPLE_RATE_HZ } from '../units/sample-rate';
 import { planCautions } from './plan-cautions';
@@ -75,7 +81,15 @@ export interface PlanInput {
     eqBandsPerChannel?: number;
     eqMaxBoostDb?: number;
     eqMaxCutDb?: number;
+    /** Lowest and highest filter frequency the processor takes, Hz: EQ bands are placed inside. */
+    frequencyMinHz?: number;
+    frequencyMaxHz?: number;
   };
+  /**
+   * The EQ part of the room's processor profile (plans of stored rooms): its band count, filter types and
+   * frequency, gain and Q ranges bound the fit as the room's limits do.
+   */
+  processorEq?: ProcessorProfileSettings['eq'];
   temperatureC?: number;
   sampleRateHz?: number;
 }
@@ -365,6 +379,13 @@ function fitChannelEq(
       : role === 'managed' && crossoverHz !== null
         ? { fromHz: crossoverHz, toHz: input.targets?.eqToHz }
         : { toHz: input.targets?.eqToHz };
+  const profile = input.processorEq;
+  const lowestHz = Math.max(input.limits?.frequencyMinHz ?? 0, profile?.frequencyHz.min ?? 0);
+  const highestHz = Math.min(input.limits?.frequencyMaxHz ?? Infinity, profile?.frequencyHz.max ?? Infinity);
+  const bandRange =
+    lowestHz > 0 || highestHz < Infinity
+      ? { fromHz: Math.max(1, lowestHz), toHz: Math.min(highestHz, fs / 2) }
+      : undefined;
   const room = input.room
     ? {
         volumeM3: input.room.widthM * input.room.lengthM * input.room.heightM,
@@ -388,9 +409,34 @@ function fitChannelEq(
         sampleRateHz: fs,
         measured: channel.measuredResponse as { frequenciesHz: number[]; magnitudeDb: number[] },
         target: input.targets?.curve,
-        maxBands,
-        maxBoostDb: Math.min(input.targets?.eqMaxBoostDb ?? 0, input.limits?.eqMaxBoostDb ?? Infinity),
-        maxCutDb: input.limits?.eqMaxCutDb,
+        maxBands: Math.min(maxBands, profile?.bandsPerChannel ?? Infinity),
+        maxBoostDb: Math.max(
+          0,
+          Math.min(
+            input.targets?.eqMaxBoostDb ?? 0,
+            input.limits?.eqMaxBoostDb ?? Infinity,
+            profile?.gainDb.max ?? Infinity,
+          ),
+        ),
+        maxCutDb: Math.max(
+          0,
+          Math.min(input.limits?.eqMaxCutDb ?? EQ_FIT_DEFAULTS.maxCutDb, -(profile?.gainDb.min ?? -Infinity)),
+        ),
+        qRange: profile && {
+          min: Math.max(EQ_FIT_DEFAULTS.qMin, profile.q.min),
+          max: Math.max(
+            Math.max(EQ_FIT_DEFAULTS.qMin, profile.q.min),
+            Math.min(EQ_FIT_DEFAULTS.qMax, profile.q.max),
+          ),
+        },
+        bandFrequencyRangeHz: bandRange,
+        filterTypes: profile?.filterTypes,
+        bandSteps: profile && {
+          frequencyHz: profile.frequencyHz.step,
+          frequencyStepUnit: profile.frequencyStepUnit,
+          gainDb: profile.gainDb.step,
+          q: profile.q.step,
+        },
         room,
         ...band,
       }),
