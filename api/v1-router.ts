@@ -6,6 +6,7 @@ import { layoutsRouter } from './layouts/layouts.router';
 import { outboxRouter } from './mail/outbox.router';
 import { profilesRouter } from './profiles/profiles.router';
 import { measurementsRouter } from './measurements/measurements.router';
+import { roomPlansRouter } from './room-plans/room-plans.router';
 import { roomsRouter } from './rooms/rooms.router';
 import { targetCurvesRouter } from './target-curves/target-curves.router';
 import type { Services } from './services';
@@ -29,6 +30,7 @@ export function v1Router(services: Services): Router {
   router.use(profilesRouter(services));
   router.use(roomsRouter(services));
   router.use(measurementsRouter(services));
+  router.use(roomPlansRouter(services));
   router.use(tuningsRouter(services));
   router.use(targetCurvesRouter(services));
   return router;

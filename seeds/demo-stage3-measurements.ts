@@ -49,3 +49,34 @@ export function stage3MeasuredResponses(): Record<
     }),
   );
 }
+
+/**
+ * The same invented responses with phase, as a capture with a loopback reference would give them at the
+ * listening position: the phase of the invented room filters, plus the time of flight from the loudspeaker
+ * (21 °C) and an invented 4 ms of interface latency. Demo data.
+ */
+export function stage3MeasuredResponsesWithPhase(
+  distancesM: Record<string, number>,
+): Record<string, { frequenciesHz: number[]; magnitudeDb: number[]; phaseDeg: number[] }> {
+  const fs = 48000;
+  const speedMps = 343.2 * Math.sqrt(294.15 / 293.15);
+  const latencyS = 0.004;
+  const frequenciesHz = responseGrid({ fromHz: 20, toHz: 20000, pointsPerOctave: 12 }, fs);
+  return Object.fromEntries(
+    Object.entries(ROOM_SHAPES).map(([id, filters]) => {
+      const { magnitudeDb, phaseDeg } = cascadeResponse(designBiquads(filters, fs), frequenciesHz, fs);
+      const delayS = distancesM[id] / speedMps + latencyS;
+      return [
+        id,
+        {
+          frequenciesHz,
+          magnitudeDb: magnitudeDb.map((db) => Math.round(db * 100) / 100),
+          phaseDeg: phaseDeg.map((p, i) => {
+            const total = p - 360 * frequenciesHz[i] * delayS;
+            return Math.round((total - 360 * Math.round(total / 360)) * 100) / 100;
+          }),
+        },
+      ];
+    }),
+  );
+}

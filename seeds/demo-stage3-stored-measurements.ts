@@ -8,8 +8,8 @@ import {
 import type { Services } from '../api/services';
 import { onThisThread } from '../api/work/heavy-work';
 import { noisyDecay } from '../shared/analysis/test-signals';
-import { stage3MeasuredResponses } from './demo-stage3-measurements';
-import { STAGE3_SPL_DB } from './demo-stage3-room';
+import { stage3MeasuredResponses, stage3MeasuredResponsesWithPhase } from './demo-stage3-measurements';
+import { STAGE3_ROOM, STAGE3_SPL_DB } from './demo-stage3-room';
 
 /*
  * DEMO DATA — invented measurements of Stage 3 (Kestrel Yard Post is fictional), stored the way an upload
@@ -78,15 +78,27 @@ export async function seedDemoStage3Measurements(services: Services): Promise<vo
       content: contentFromJson({ kind: 'spl', splDb, weighting: 'C', timeWeighting: 'slow' }),
     });
   }
+  const l = STAGE3_ROOM.listener;
+  const withPhase = stage3MeasuredResponsesWithPhase(
+    Object.fromEntries(
+      STAGE3_ROOM.loudspeakers.map((s) => [s.id, Math.hypot(s.x - l.x, s.y - l.y, s.z - l.z)]),
+    ),
+  );
   for (const [channel, response] of Object.entries(stage3MeasuredResponses())) {
     const atLevel = response.magnitudeDb.map((db) => Math.round((db + RESPONSE_LEVEL_DB) * 100) / 100);
+    // At the listening position the responses carry phase (captured against a loopback), so the
+    // subwoofer can be integrated from them.
     entries.push({
       channel,
       micPosition: 'MLP',
       name: `Demo data — response ${channel}`,
       content: contentFromJson({
         kind: 'frequencyResponse',
-        response: { frequenciesHz: response.frequenciesHz, magnitudeDb: atLevel },
+        response: {
+          frequenciesHz: response.frequenciesHz,
+          magnitudeDb: atLevel,
+          phaseDeg: withPhase[channel].phaseDeg,
+        },
       }),
     });
     if (channel === 'M+030' || channel === 'M+000') {

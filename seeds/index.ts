@@ -2,6 +2,7 @@ import type { Services } from '../api/services';
 import { seedDemoPlatform } from './demo-platform';
 import { seedDemoStage3 } from './demo-stage3';
 import { seedDemoStage3Measurements } from './demo-stage3-stored-measurements';
+import { seedDemoStage3Verification } from './demo-stage3-verification';
 
 /**
  * Loads the invented demo scenario (Kestrel Yard Post, Stage 3) into an empty database only.
@@ -12,6 +13,7 @@ export async function loadDemoData(services: Services): Promise<boolean> {
   await seedDemoPlatform(services);
   await seedDemoStage3(services);
   await seedDemoStage3Measurements(services);
+  await seedDemoStage3Verification(services);
   services.logger.info('loaded the demo data (Kestrel Yard Post, demo only)');
   return true;
 }

@@ -67,6 +67,8 @@ export const MAX_MEASURED_POINTS = 100000;
 export const MAX_RESPONSE_POINTS = 4096;
 /** Longest name of a room, tuning, key, measurement or user. */
 export const NAME_MAX_LENGTH = 120;
+/** Most measurement ids a room plan may include or exclude by name. */
+export const MAX_PLAN_MEASUREMENT_IDS = 1000;
 /** Longest channel label or microphone position. */
 export const LABEL_MAX_LENGTH = 32;
 
@@ -149,6 +151,9 @@ export const LIMITS = {
   'MeasurementUpload.name': { minLength: 1, maxLength: NAME_MAX_LENGTH },
   'MeasurementUpload.notes': { maxLength: 2000 },
   'MeasurementUpload.temperatureC': { ...TEMPERATURE_RANGE_C, default: 20 },
+  referenceFileChannel: { minimum: 0, maximum: 127 },
+  timingReferenceMs: { minimum: 0, maximum: 1000 },
+  MeasuredTuningVersion: { minimum: 1 },
   min: { minimum: 0.025, maximum: 100 },
   minGainDb: { minimum: 0, maximum: 6, default: 0.5 },
   'name|string': { minLength: 1, maxLength: NAME_MAX_LENGTH },
@@ -191,6 +196,25 @@ export const LIMITS = {
   'ResponseGrid|object.toHz': { exclusiveMinimum: 0 },
   reverberationTimeS: { minimum: 0.05, maximum: 20 },
   rightVersion: { minimum: 1 },
+  engineer: { minLength: 1, maxLength: NAME_MAX_LENGTH },
+  microphone: { minLength: 1, maxLength: NAME_MAX_LENGTH },
+  referenceLevelDb: { minimum: 0, maximum: 150 },
+  positions: { minItems: 1, maxItems: 64 },
+  'positions[]': { minLength: 1, maxLength: LABEL_MAX_LENGTH },
+  'SignOffRequest.notes': { maxLength: 4000 },
+  micPosition: { minLength: 1, maxLength: LABEL_MAX_LENGTH },
+  arrivalToleranceMs: { exclusiveMinimum: 0, maximum: 10 },
+  levelToleranceDb: { exclusiveMinimum: 0, maximum: 20 },
+  responseRmsToleranceDb: { exclusiveMinimum: 0, maximum: 40 },
+  responseMaxToleranceDb: { exclusiveMinimum: 0, maximum: 40 },
+  crossoverDipToleranceDb: { exclusiveMinimum: 0, maximum: 40 },
+  'RoomPlanRequest.temperatureC': { ...TEMPERATURE_RANGE_C },
+  'RoomPlanRequest.bassManaged': { maxItems: MAX_CHANNELS },
+  'RoomPlanRequest.include': { maxItems: MAX_PLAN_MEASUREMENT_IDS },
+  'RoomPlanRequest.exclude': { maxItems: MAX_PLAN_MEASUREMENT_IDS },
+  'RoomPlanRequest.micPosition': { minLength: 1, maxLength: LABEL_MAX_LENGTH },
+  'RoomPlanRequest.name': { minLength: 1, maxLength: NAME_MAX_LENGTH },
+  'RoomPlanRequest.notes': { maxLength: 4000 },
   'RoomCreate.name': { minLength: 1, maxLength: NAME_MAX_LENGTH },
   'RoomCreate.notes': { maxLength: 4000 },
   roomHeightM: { minimum: 0.5, maximum: 200 },

@@ -45,6 +45,9 @@ export function measurementDto(m: Measurement, withResult: boolean) {
     source: m.source,
     summary: summaryOf(m),
     ...(withResult && { result: m.result }),
+    tuningId: m.tuningId ?? null,
+    tuningVersion: m.tuningVersion ?? null,
+    stage: m.stage ?? 'before',
     createdAt: m.createdAt.toISOString(),
   };
 }

@@ -3,6 +3,8 @@ import {
   requireFrequencyResponse,
   type ParsedFrequencyResponse,
 } from '../../shared/analysis/frequency-response-text';
+import { detectArrival, signalLevel } from '../../shared/analysis/level';
+import { decodeWav } from '../../shared/analysis/wav-decode';
 import { CalculationInputError } from '../../shared/errors';
 import type { MeasurementKind, MeasurementSource } from '../db/models/measurement';
 import type { Room } from '../db/models/room';
@@ -23,6 +25,8 @@ export interface UploadForm {
   temperatureC?: number;
   name?: string;
   notes?: string;
+  referenceFileChannel?: number;
+  timingReferenceMs?: number;
 }
 
 /** The room must have a loudspeaker with this channel label. */
@@ -61,10 +65,11 @@ export async function contentFromFile(
       room: room.dimensions,
       temperatureC: form.temperatureC ?? 20,
     });
+    const timingReference = timingReferenceOf(file.buffer, form);
     return {
       kind: 'impulseResponse',
       source: { type: 'wav', fileName: file.originalname, sizeBytes: file.size, ...read },
-      result: analysis,
+      result: timingReference ? { ...analysis, timingReference } : analysis,
     };
   }
   if (file.buffer.includes(0)) {
@@ -79,6 +84,41 @@ export async function contentFromFile(
     source: { type: 'text', fileName: file.originalname, sizeBytes: file.size },
     result: { ...response },
   };
+}
+
+/**
+ * The timing reference of an impulse-response capture: the arrival in the loopback channel of the same file
+ * (detected as the loudspeaker's arrival is), or the figure the capture tool gave. Plans use arrivals
+ * relative to it, so interface and converter latency cancel between captures.
+ */
+function timingReferenceOf(
+  buffer: Buffer,
+  form: UploadForm,
+): { source: 'loopback' | 'given'; arrivalMs: number; fileChannel?: number } | null {
+  if (form.referenceFileChannel !== undefined && form.timingReferenceMs !== undefined) {
+    throw new CalculationInputError(
+      'give the timing reference either as a file channel or as a time, not both',
+      '/timingReferenceMs',
+    );
+  }
+  if (form.timingReferenceMs !== undefined) return { source: 'given', arrivalMs: form.timingReferenceMs };
+  if (form.referenceFileChannel === undefined) return null;
+  if (form.referenceFileChannel === (form.fileChannel ?? 0)) {
+    throw new CalculationInputError(
+      'the timing reference must be another channel of the file than the loudspeaker',
+      '/referenceFileChannel',
+    );
+  }
+  const loop = decodeWav(buffer, {
+    channel: form.referenceFileChannel,
+    channelField: '/referenceFileChannel',
+  });
+  const level = signalLevel(loop.samples);
+  if (level.peakDbfs < -120) {
+    throw new CalculationInputError('the timing-reference channel is silent', '/referenceFileChannel');
+  }
+  const arrival = detectArrival(loop.samples, loop.sampleRateHz, level);
+  return { source: 'loopback', arrivalMs: arrival.arrivalMs, fileChannel: form.referenceFileChannel };
 }
 
 export type JsonMeasurement =

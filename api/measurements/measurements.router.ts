@@ -31,7 +31,9 @@ export function measurementsRouter({ db, work }: Services): Router {
     `${path}/average`,
     tuning,
     validate('averageMeasurements', async ({ params, query }, req, res) => {
-      res.json(await measurements.average(callerOf(req), params.roomId, query.channel, query.kind));
+      res.json(
+        await measurements.average(callerOf(req), params.roomId, query.channel, query.kind, query.stage),
+      );
     }),
   );
   router.get(

@@ -1,3 +1,4 @@
+import { Op } from 'sequelize';
 import { powerAverageResampled } from '../../shared/analysis/spatial-average';
 import type { Database } from '../db/database';
 import { newId } from '../db/ids';
@@ -23,6 +24,9 @@ interface Labels {
   micPosition?: string;
   name?: string;
   notes?: string;
+  tuningId?: string;
+  tuningVersion?: number;
+  stage?: 'before' | 'after';
 }
 
 /** Measurements of a stored room: uploads analysed on arrival and stored whole, or not at all. */
@@ -44,6 +48,7 @@ export class MeasurementsService {
       ? await contentFromFile(this.work, input.file, input.body, room)
       : contentFromJson(input.body);
     const labels: Labels = input.body;
+    const loaded = await this.loadedTuning(room.id, labels);
     const row = await this.db.write(async (transaction) => {
       await roomStillThere(this.db.models, room.id, transaction);
       return this.db.models.Measurement.create(
@@ -56,6 +61,7 @@ export class MeasurementsService {
           name: labels.name ?? null,
           notes: labels.notes ?? null,
           ...content,
+          ...loaded,
           createdByKeyId: caller.principal.keyId ?? null,
         },
         { transaction },
@@ -64,21 +70,54 @@ export class MeasurementsService {
     return measurementDto(row, true);
   }
 
+  /**
+   * Which tuning version was loaded when the measurement was taken: it must be a tuning of this room
+   * (422 naming the field otherwise; never another owner's tuning, since it must be in this room).
+   */
+  private async loadedTuning(roomId: string, labels: Labels) {
+    const stage = labels.stage ?? (labels.tuningId ? 'after' : 'before');
+    if (!labels.tuningId) {
+      if (labels.tuningVersion !== undefined) throw unusable('/body/tuningVersion', 'needs tuningId');
+      if (stage === 'after')
+        throw unusable('/body/tuningId', 'is required for an after measurement (which tuning was loaded?)');
+      return { tuningId: null, tuningVersion: null, stage };
+    }
+    const tuning = await this.db.models.Tuning.findByPk(labels.tuningId);
+    if (!tuning || tuning.roomId !== roomId) {
+      throw unusable('/body/tuningId', `is not a tuning of room ${roomId}`);
+    }
+    const version = labels.tuningVersion ?? tuning.currentVersion;
+    if (version > tuning.currentVersion) {
+      throw unusable('/body/tuningVersion', `tuning ${tuning.id} has versions 1..${tuning.currentVersion}`);
+    }
+    return { tuningId: tuning.id, tuningVersion: version, stage };
+  }
+
   async list(
     caller: Caller,
     roomId: string,
-    query: PageRequest & { channel?: string },
+    query: PageRequest & { channel?: string; stage?: 'before' | 'after' },
   ): Promise<Page<MeasurementView>> {
     const room = await findRoomFor(caller, this.db.models, roomId);
-    const where = { roomId: room.id, ...(query.channel && { channel: query.channel }) };
+    const where = {
+      roomId: room.id,
+      ...(query.channel && { channel: query.channel }),
+      ...(query.stage && stageWhere(query.stage)),
+    };
     return pageOf(this.db.models.Measurement, where, query, (m) => measurementDto(m, false));
   }
 
   /** The power average of a channel's responses over its microphone positions. */
-  async average(caller: Caller, roomId: string, channel: string, kind?: Measurement['kind']) {
+  async average(
+    caller: Caller,
+    roomId: string,
+    channel: string,
+    kind?: Measurement['kind'],
+    stage: 'before' | 'after' = 'before',
+  ) {
     const room = await findRoomFor(caller, this.db.models, roomId);
     const rows = await this.db.models.Measurement.findAll({
-      where: { roomId: room.id, channel },
+      where: { roomId: room.id, channel, ...stageWhere(stage) },
       order: [['id', 'ASC']],
     });
     const withResponse = rows.filter((m) => m.kind !== 'spl' && (kind === undefined || m.kind === kind));
@@ -121,6 +160,21 @@ export class MeasurementsService {
     if (!measurement) throw notFound(`No measurement ${measurementId} in room ${room.id}.`);
     return measurement;
   }
+}
+
+/** Measurements of a stage; rows stored before stages existed count as "before". */
+function stageWhere(stage: 'before' | 'after') {
+  return stage === 'after' ? { stage: 'after' } : { stage: { [Op.or]: [null, 'before'] } };
+}
+
+function unusable(pointer: string, message: string): ProblemError {
+  return new ProblemError({
+    status: 422,
+    title: 'Value cannot be used',
+    detail: `${pointer.replace('/body/', '')} ${message}.`,
+    type: 'calculation-input',
+    errors: [{ pointer, message }],
+  });
 }
 
 /** The magnitude response a stored measurement carries: an analysis's smoothed response, or the response itself. */

@@ -11,12 +11,14 @@ const DB_MAX = 12;
 
 /**
  * A small magnitude plot as inline SVG: log frequency 20 Hz–20 kHz, −30..+12 dB, grid at decades and
- * every 6 dB; values outside the range are drawn at the edge.
+ * every 6 dB; values outside the range are drawn at the edge. `before`, when given, is drawn dashed
+ * underneath (the verification's before/after plots).
  */
 export function responseSvg(
   frequenciesHz: readonly number[],
   magnitudeDb: readonly number[],
   title: string,
+  before?: { frequenciesHz: readonly number[]; magnitudeDb: readonly number[] },
 ): string {
   const x = (f: number) =>
     LEFT + ((Math.log10(f) - Math.log10(F_MIN)) / (Math.log10(F_MAX) - Math.log10(F_MIN))) * (W - LEFT - 4);
@@ -39,13 +41,18 @@ export function responseSvg(
     );
     grid.push(`<text x="${LEFT - 3}" y="${coord(y(db) + 3)}" class="d">${db}</text>`);
   }
-  const points = frequenciesHz
-    .map((f, i) => `${i === 0 ? 'M' : 'L'}${coord(x(f))} ${coord(y(magnitudeDb[i]))}`)
-    .join(' ');
+  const path = (fs: readonly number[], dbs: readonly number[]) =>
+    fs
+      .map((f, i) => ({ f, db: dbs[i] }))
+      .filter((p) => p.f >= F_MIN && p.f <= F_MAX)
+      .map((p, i) => `${i === 0 ? 'M' : 'L'}${coord(x(p.f))} ${coord(y(p.db))}`)
+      .join(' ');
+  const points = path(frequenciesHz, magnitudeDb);
   return [
     `<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 ${W} ${H}" width="${W}" height="${H}" role="img" aria-label="${esc(title)}">`,
-    '<style>.g{stroke:#ddd;stroke-width:.6}.z{stroke:#888;stroke-width:.8}.t{font:8px sans-serif;text-anchor:middle;fill:#555}.d{font:8px sans-serif;text-anchor:end;fill:#555}.c{fill:none;stroke:#1d5a85;stroke-width:1.6}</style>',
+    '<style>.g{stroke:#ddd;stroke-width:.6}.z{stroke:#888;stroke-width:.8}.t{font:8px sans-serif;text-anchor:middle;fill:#555}.d{font:8px sans-serif;text-anchor:end;fill:#555}.c{fill:none;stroke:#1d5a85;stroke-width:1.6}.b{fill:none;stroke:#a4551b;stroke-width:1.1;stroke-dasharray:3 2}</style>',
     ...grid,
+    ...(before ? [`<path d="${path(before.frequenciesHz, before.magnitudeDb)}" class="b"/>`] : []),
     `<path d="${points}" class="c"/>`,
     '</svg>',
   ].join('');

@@ -2,6 +2,7 @@ import type { GeometryResult } from '../../shared/geometry';
 import type { Layout } from '../../shared/layouts';
 import type { Caution } from '../../shared/notices';
 import type { DesignedTuning, TuningSettings } from '../../shared/plan';
+import type { SignOff, Status, Verification } from '../../shared/verification';
 import { responseGrid } from '../../shared/dsp/grid';
 import { cascadeResponse } from '../../shared/dsp/response';
 import { esc, num, signed } from './report-html';
@@ -30,7 +31,73 @@ export interface RoomReportInput {
     /** Set when the room changed since the settings were made: the report says so first. */
     stale: { since: string; reasons: string[] } | null;
   } | null;
+  /** The tuning version's verification, with the "before" averages for the plots, and its sign-off. */
+  verification?: {
+    result: Verification;
+    before: ReadonlyArray<{ channel: string; frequenciesHz: number[]; magnitudeDb: number[] }>;
+    signOff: SignOff | null;
+  } | null;
   generatedAt: Date;
+}
+
+const STATUS_TEXT: Record<Status | 'incomplete', string> = {
+  pass: '<span class="ok">pass</span>',
+  warn: '<span class="warn">warn</span>',
+  fail: '<span class="bad">fail</span>',
+  notMeasured: '<span class="na">not measured</span>',
+  incomplete: '<span class="na">incomplete</span>',
+};
+
+/** Mean of a response from 100 Hz to 10 kHz (or over all of it), the 0 dB of the before/after plots. */
+function levelOf(r: { frequenciesHz: readonly number[]; magnitudeDb: readonly number[] }): number {
+  const inBand = r.magnitudeDb.filter((_, i) => r.frequenciesHz[i] >= 100 && r.frequenciesHz[i] <= 10000);
+  const use = inBand.length > 0 ? inBand : r.magnitudeDb;
+  return use.reduce((a, b) => a + b, 0) / use.length;
+}
+
+function verificationPart(v: NonNullable<RoomReportInput['verification']>, version: number): string {
+  const r = v.result;
+  const rows = r.channels.map((c) => {
+    const a = c.arrival;
+    const l = c.level;
+    const resp = c.response;
+    const x = c.crossoverSum;
+    return `<tr><td>${esc(c.id)}</td><td class="n">${a.deviationMs === null ? '—' : signed(a.deviationMs, 3)}</td><td>${STATUS_TEXT[a.status]}</td><td class="n">${num(l.measuredDb, 1)} / ${num(l.expectedDb, 1)}</td><td class="n">${signed(l.deviationDb, 2)}</td><td>${STATUS_TEXT[l.status]}</td><td class="n">${num(resp.rmsDb, 2)} / ${signed(resp.largestDb, 1)}${resp.largestAtHz === null ? '' : ` @ ${num(resp.largestAtHz, 0)} Hz`}</td><td>${STATUS_TEXT[resp.status]}</td><td class="n">${signed(x.deepestDipDb, 1)}</td><td>${STATUS_TEXT[x.status]}</td></tr>`;
+  });
+  const table = `<table><thead><tr><th>Channel</th><th>Arrival vs median ms</th><th></th><th>Level measured / expected dB</th><th>Δ dB</th><th></th><th>Response RMS / largest dB</th><th></th><th>Crossover dip dB</th><th></th></tr></thead><tbody>${rows.join('')}</tbody></table>`;
+  const tolerances = `<ul class="notices">${r.tolerances
+    .map(
+      (t) =>
+        `<li><strong>${esc(t.name)}</strong> ${num(t.value, 2)}${t.setByCaller ? ` (default ${num(t.default, 2)})` : ''} — ${t.basis === 'published' ? 'published' : 'common practice'}: ${esc(t.source)}</li>`,
+    )
+    .join('')}</ul>`;
+  const plots = r.responses
+    .map((after) => {
+      const before = v.before.find((b) => b.channel === after.channel);
+      const zero = levelOf(after);
+      const shift = (x: { frequenciesHz: number[]; magnitudeDb: number[] }) => ({
+        frequenciesHz: x.frequenciesHz,
+        magnitudeDb: x.magnitudeDb.map((db) => db - zero),
+      });
+      const beforeShifted = before
+        ? shift({ ...before, magnitudeDb: before.magnitudeDb.map((db) => db - levelOf(before) + zero) })
+        : undefined;
+      const a = shift(after);
+      return `<div class="plot"><p>${esc(after.channel)}</p>${responseSvg(a.frequenciesHz, a.magnitudeDb, `Before and after response of ${after.channel}`, beforeShifted)}</div>`;
+    })
+    .join('');
+  const s = v.signOff;
+  const signOff = s
+    ? `<table class="signoff"><tbody><tr><th>Engineer</th><td>${esc(s.engineer)}</td><th>Date</th><td>${esc(s.date)}</td></tr><tr><th>Reference level</th><td>${num(s.referenceLevelDb, 1)} dB ${esc(s.weighting)}-weighted</td><th>Microphone</th><td>${esc(s.microphone)}</td></tr><tr><th>Positions</th><td>${esc(s.positions.join(', '))}</td><th>Verdict when signed</th><td>${STATUS_TEXT[s.verdict ?? 'incomplete']}</td></tr>${s.notes ? `<tr><th>Notes</th><td colspan="3">${esc(s.notes)}</td></tr>` : ''}</tbody></table>`
+    : '<p>Not signed off.</p>';
+  return `<section><h2>Verification — version ${version}: ${STATUS_TEXT[r.verdict]}</h2>
+<p class="meta">"After" measurements taken with this version loaded${r.micPosition ? `, arrivals and levels at position ${esc(r.micPosition)}` : ''}; reference ${r.referenceDb === null ? 'not known' : `${num(r.referenceDb, 1)} dB`}${r.referenceFrom === 'medianOfMeasured' ? ' (median of the measured channels)' : ''}. Arrival spread ${r.arrivalSpread.spreadMs === null ? 'not measured' : `${num(r.arrivalSpread.spreadMs, 3)} ms`} ${STATUS_TEXT[r.arrivalSpread.status]}.</p>
+${table}
+<p class="meta">Pass within the tolerance, warn past 80 % of it, fail beyond it. Tolerances:</p>${tolerances}
+${r.notes.length ? `<ul class="notices">${r.notes.map((n) => `<li>${esc(n)}</li>`).join('')}</ul>` : ''}
+<h2>Responses before and after</h2><p class="meta">Solid: after (with this version loaded); dashed: before. Each at its own mean level from 100 Hz to 10 kHz (0 dB), averaged over the microphone positions.</p>
+<div class="plots">${plots || '<p>No responses were measured after.</p>'}</div>
+<h2>Sign-off</h2>${signOff}</section>`;
 }
 
 const STYLE = `
@@ -42,7 +109,8 @@ h1 { font-size: 19pt; margin: 0 0 2mm; } h2 { font-size: 13pt; margin: 7mm 0 2mm
 .meta { color: #444; margin: 0 0 4mm; } .demo { color: #8a5300; }
 table { border-collapse: collapse; width: 100%; font-size: 9pt; } th, td { padding: 1.2mm 1.6mm; border-bottom: 0.5px solid #ccc; text-align: left; vertical-align: top; }
 th { background: #eef3f7; font-weight: 600; } td.n { text-align: right; font-variant-numeric: tabular-nums; white-space: nowrap; }
-.ok { color: #1d6b2f; } .bad { color: #a4211b; font-weight: 600; }
+.ok { color: #1d6b2f; } .bad { color: #a4211b; font-weight: 600; } .warn { color: #8a5300; font-weight: 600; } .na { color: #777; }
+table.signoff th { width: 22%; }
 .plots { display: flex; flex-wrap: wrap; gap: 3mm; } .plot { break-inside: avoid; } .plot p { margin: 0; font-size: 8.5pt; font-weight: 600; }
 .legend span { margin-right: 5mm; white-space: nowrap; }
 .mk { display: inline-block; width: 11px; height: 11px; margin-right: 1.5mm; vertical-align: middle; -webkit-print-color-adjust: exact; print-color-adjust: exact; }
@@ -143,6 +211,7 @@ ${room.notes ? `<p class="meta demo">${esc(room.notes)}</p>` : ''}</header>
 <section><h2>Layout seen from above</h2>${topViewSvg({ dimensions: room.dimensions, listener: room.listener, loudspeakers: room.loudspeakers, geometry: input.geometry.speakers, layout })}${legend}</section>
 <section><h2>Loudspeaker positions</h2><p class="meta">Azimuth positive to the left, elevation positive up, seen from the listening position (ITU-R BS.2051). Ranges widened by ±${num(input.geometry.angleToleranceDeg, 1)}° for measuring error.</p>${geometryTable(input)}</section>
 ${tuningPart}
+${tuning && input.verification ? verificationPart(input.verification, tuning.version) : ''}
 ${notices('Warnings', input.geometry.warnings)}
 ${notices('Cautions', cautions, 'caution')}
 <footer>Isochron computes settings from the data given; it does not certify a room. Calibration uses loud test signals: start quietly and protect hearing within the occupational noise limits that apply where you work. Mounting loudspeakers overhead and running power or signal cabling are for qualified installers under local codes. Biquad sections are normalised a0 = 1, H(z) = (b0 + b1 z⁻¹ + b2 z⁻²) / (1 + a1 z⁻¹ + a2 z⁻²).</footer>

@@ -11,6 +11,7 @@ import type { Tuning } from '../db/models/tuning';
 import type { TuningOrigin, TuningVersion } from '../db/models/tuning-version';
 import type { Models } from '../db/models';
 import { notFound, ProblemError } from '../http/problem';
+import type { TuningPromise } from '../../shared/verification';
 import { roomStillThere, type Caller } from '../rooms/room-access';
 import { profileOfRoom, type Staleness } from '../rooms/room-state-store';
 
@@ -20,6 +21,8 @@ export interface VersionContent {
   settings: TuningSettings;
   origin: TuningOrigin;
   restoredFromVersion?: number | null;
+  /** What the plan promised; absent: an edit keeps the promise of the version it edits. */
+  promise?: TuningPromise | null;
   /** The room state the settings were made from; absent: the room as it is now. */
   roomRevision?: number;
 }
@@ -117,6 +120,7 @@ export function versionDto(version: TuningVersion, caller: Principal | undefined
     channels: version.channels,
     subwoofer: version.subwoofer,
     createdAt: version.createdAt.toISOString(),
+    signOff: version.signOff ?? null,
     createdBy: authorAsSeenBy(caller, { userId: version.createdByUserId, keyId: version.createdByKeyId }),
   };
 }
@@ -142,6 +146,7 @@ async function insertVersion(
       subwoofer: content.settings.subwoofer,
       origin: content.origin,
       restoredFromVersion: content.restoredFromVersion ?? null,
+      promise: content.promise ?? null,
       roomRevision: content.roomRevision ?? room.stateRevision,
       createdByUserId: caller.principal.userId,
       createdByKeyId: caller.principal.keyId ?? null,
@@ -202,7 +207,8 @@ export async function addVersion(
     const tuning = await db.models.Tuning.findByPk(tuningId, { transaction, lock: transaction.LOCK.UPDATE });
     if (!tuning) throw notFound(`No tuning ${tuningId}.`);
     const current = await findVersion(db.models, tuning, tuning.currentVersion, transaction);
-    const content = build(current);
+    const built = build(current);
+    const content = { ...built, promise: built.promise !== undefined ? built.promise : current.promise };
     checkTuningSettings(content.settings);
     const room = await roomStillThere(db.models, tuning.roomId, transaction);
     await requireWithinRoomLimits(db.models, room, content.settings, pointer(content), transaction);

@@ -5,6 +5,7 @@ import { validate } from '../http/validate';
 import type { Services } from '../services';
 import { tuningVersionsRouter } from './tuning-versions.router';
 import { TuningsService } from './tunings.service';
+import { verificationRouter } from './verification.router';
 
 /** Tunings of stored rooms: versioned on every edit, duplicable, comparable, exportable. */
 export function tuningsRouter(services: Services): Router {
@@ -78,5 +79,6 @@ export function tuningsRouter(services: Services): Router {
   );
 
   router.use(tuningVersionsRouter(tunings));
+  router.use(verificationRouter(services));
   return router;
 }

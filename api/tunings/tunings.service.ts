@@ -1,5 +1,6 @@
 import type { components } from '../../shared/contract/api-types';
 import { compareTunings } from '../../shared/plan';
+import { promiseOfPlan } from '../../shared/verification';
 import type { Database } from '../db/database';
 import { pageOf, type Page, type PageRequest } from '../db/pagination';
 import { badRequest, calculateAt } from '../http/problem';
@@ -95,7 +96,13 @@ export class TuningsService {
       this.db,
       caller,
       room,
-      { name: body.name, notes: body.notes ?? null, settings, origin: fromPlan ? 'plan' : 'settings' },
+      {
+        name: body.name,
+        notes: body.notes ?? null,
+        settings,
+        origin: fromPlan ? 'plan' : 'settings',
+        promise: fromPlan ? promiseOfPlan(fromPlan.plan, plan?.targets?.curve ?? null) : null,
+      },
       // A plan's settings are the plan's result, so a refused one is the plan's doing.
       fromPlan ? () => '/body/plan' : inBody,
     );
@@ -189,6 +196,7 @@ export class TuningsService {
         notes: version.notes,
         settings: settingsOf(version),
         origin: 'duplicate',
+        promise: version.promise ?? null,
         roomRevision: version.roomRevision,
       },
       // The copy's settings are the source version's: a refused one is that version's.
@@ -236,6 +244,7 @@ export class TuningsService {
         origin: 'restore',
         restoredFromVersion: old.version,
         roomRevision: old.roomRevision,
+        promise: old.promise ?? null,
       }),
       () => () => '/path/version',
     );

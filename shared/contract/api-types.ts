@@ -742,7 +742,9 @@ export type paths = {
         };
         /**
          * List a room's measurements
-         * @description The room's measurements, oldest first, without their arrays (`summary` instead of `result`). Filter by `channel`.
+         * @description The room's measurements, oldest first, without their arrays (`summary` instead of `result`). Filter by
+         *     `channel`, and by `stage`: `before` (taken without a tuning loaded, what plans use) or `after` (taken
+         *     with a tuning loaded, what verification uses).
          */
         get: operations["listMeasurements"];
         put?: never;
@@ -811,6 +813,63 @@ export type paths = {
         get: operations["averageMeasurements"];
         put?: never;
         post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/v1/rooms/{roomId}/plans": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Plan a stored room from its geometry, limits and measurements
+         * @description The whole-room plan of `POST /v1/plans` (the same engine), with every input taken from what is
+         *     stored: layout, dimensions, listening position, loudspeaker positions, limits and sample rate from
+         *     the room; per channel the measured arrival, the SPL reading and the averaged response from its
+         *     measurements. The body only overrides: `targets`, `temperatureC`, `sampleRateHz`, which channels
+         *     are `bassManaged`, and which `measurements` to use.
+         *
+         *     **Where each number comes from** (`channels[].sources`, each with the `measurementIds` that fed it):
+         *     - `delay.source`: `measuredArrival` — the arrival in the newest impulse response of the channel at
+         *       the reference position, relative to the capture's timing reference (loopback) when it has one — or
+         *       `geometry` (distance from the stored positions, temperature-corrected speed of sound). Arrivals
+         *       are used only when every channel has one and all or none of them have a timing reference (captures
+         *       without a common reference are otherwise not comparable); a warning says why they were not.
+         *     - `level.source`: `splReading` — the newest SPL reading at the reference position — or `none`.
+         *     - `response.source`: `responseAverage` — the power average over every microphone position (newest
+         *       per position) of the channel's frequency responses or, if it has more of them, its
+         *       impulse-response analyses (never both: their levels are on different scales) — or `none`. EQ is
+         *       fitted only when the room's limits give `eqBandsPerChannel`.
+         *     - `subwoofer.integration.source`: `measuredResponses` when the subwoofer and at least one
+         *       bass-managed channel have frequency responses with phase at the reference position (measured
+         *       with the same timing reference); then the subwoofer delay (0 to the room's `delayMaxMs`, at most
+         *       100 ms, whole samples) and polarity are chosen so that the sum with the crossover filters applied is loudest
+         *       and smoothest from one octave below to one octave above the crossover (score = mean level −
+         *       RMS deviation, averaged over the measured mains), with the summed response and up to three
+         *       runners-up. Otherwise `geometry`: the phase-at-the-crossover suggestion of `POST /v1/plans`, and
+         *       `reason` says what to measure.
+         *
+         *     The reference position is `measurements.micPosition`, or else the position with the most arrivals
+         *     and SPL readings. Measurements taken with a tuning loaded (`stage: after`) are verification data
+         *     and are left out unless listed in `measurements.include`. `measurements.used` and `.ignored` (with
+         *     the reason) account for every measurement of the room.
+         *
+         *     `store: true` saves the plan as a new tuning (version 1, origin `plan`) in the same call, with what
+         *     it promises (reference level, expected levels, corrected ranges) for `GET
+         *     /v1/tunings/{tuningId}/verification`; the stored tuning is in `tuning`.
+         *
+         *     **Cautions.** Level calibration plays loud test signals: start quietly and protect hearing. EQ
+         *     boosts can overdrive amplifiers and drivers. Mounting loudspeakers overhead and running their
+         *     cabling are for qualified installers under local codes.
+         */
+        post: operations["planStoredRoom"];
         delete?: never;
         options?: never;
         head?: never;
@@ -1001,6 +1060,48 @@ export type paths = {
         patch?: never;
         trace?: never;
     };
+    "/v1/tunings/{tuningId}/verification": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * Check the "after" measurements against what the tuning promised
+         * @description Compares the measurements stored with `tuningId`, `tuningVersion` = `version` (default the latest)
+         *     and `stage: after` with what that version promised (a tuning stored from a plan keeps its
+         *     reference level, expected levels, target curve and corrected ranges; for one typed in by hand, give
+         *     `referenceDb`, or levels are checked for matching against their median). Per channel:
+         *
+         *     - **arrival** — the arrival in the newest impulse response at the reference position (relative to
+         *       its timing reference when it has one) minus the median of the checked channels; and the
+         *       **arrival spread** (latest − earliest). Subwoofer outputs have no arrival line: they are timed
+         *       by the sum at the crossover.
+         *     - **level** — the newest SPL reading minus the promised level (the reference; LFE channels 10 dB
+         *       above it).
+         *     - **response** — the power average over the positions of the "after" responses against the target
+         *       curve over the corrected range, level removed (the level has its own line): RMS and largest
+         *       deviation, 1/48-octave grid.
+         *     - **crossoverSum** — for a bass-managed channel (its "after" response holds the subwoofer, through
+         *       the bass management): the deepest dip below the mean from one octave below to one octave above
+         *       the crossover, 1/6-octave smoothed.
+         *
+         *     Each line passes within its tolerance, warns past 80 % of it, fails beyond it, or is `notMeasured`
+         *     (which does not count). The verdict is the worst line, or `incomplete` when nothing was measured.
+         *     `tolerances` lists every tolerance used, its default, whether the caller set it, and where it comes
+         *     from (`published` with the document, or `commonPractice`). The version's sign-off, if any, is in
+         *     `signOff`.
+         */
+        get: operations["getTuningVerification"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
     "/v1/tunings/{tuningId}/versions": {
         parameters: {
             query?: never;
@@ -1052,6 +1153,29 @@ export type paths = {
          * @description Copies the settings of `version` into a new latest version; nothing is overwritten.
          */
         post: operations["restoreTuningVersion"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/v1/tunings/{tuningId}/versions/{version}/sign-off": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        /**
+         * Sign off a verified tuning version
+         * @description Stores the engineer's sign-off with the tuning version: who, the day, the reference level and its
+         *     weighting, the microphone and the positions measured, and notes. The verification verdict at the
+         *     time of signing is stored with it (`verdict`), so a later report shows what was signed. Signing
+         *     again replaces the sign-off. The settings of a version never change; only its sign-off may.
+         */
+        put: operations["signOffTuningVersion"];
+        post?: never;
         delete?: never;
         options?: never;
         head?: never;
@@ -1374,6 +1498,30 @@ export type components = {
         };
         /** @description ITU-R BS.2051 label such as `M+030`, `M-110`, `U+045`, `LFE1`, or another identifier of the feed. */
         ChannelLabel: string;
+        ChannelSources: {
+            delay: {
+                measurementIds: components["schemas"]["SourceIds"];
+                micPosition: string | null;
+                /** @enum {unknown} */
+                source: "measuredArrival" | "geometry";
+                timingReference: boolean | null;
+            };
+            level: {
+                measurementIds: components["schemas"]["SourceIds"];
+                micPosition: string | null;
+                /** @enum {unknown} */
+                source: "splReading" | "none";
+                weighting: string | null;
+            };
+            response: {
+                /** @enum {unknown} */
+                kind: "frequencyResponse" | "impulseResponse" | null;
+                measurementIds: components["schemas"]["SourceIds"];
+                micPositions: string[];
+                /** @enum {unknown} */
+                source: "responseAverage" | "none";
+            };
+        };
         CreatedApiKey: components["schemas"]["ApiKey"] & {
             /** @description The clear key, `iso_live_` or `iso_test_` and 43 characters. Shown only in this answer. */
             secret: string;
@@ -1748,6 +1896,22 @@ export type components = {
              */
             temperatureC?: number;
         };
+        IntegrationCandidate: {
+            /** @description Deepest point below the mean (worst main). */
+            deepestDipDb: number;
+            delayMs: number;
+            delaySamples: number;
+            /** @description RMS deviation of the sum from its mean over the band. */
+            deviationDb: number;
+            /** @description Mean level of the sum over the band. */
+            meanDb: number;
+            /** @enum {unknown} */
+            polarity: "normal" | "inverted";
+            /** @description meanDb − deviationDb; the highest wins. */
+            scoreDb: number;
+            /** @description Mean of 20·log10(|sub + main| / (|sub| + |main|)): 0 dB when they add in phase. */
+            summationDb: number;
+        };
         /** @description A key's `id` (not its secret). */
         KeyId: string;
         /** @description A label for people; stored exactly as given. Control characters are refused. */
@@ -1861,6 +2025,8 @@ export type components = {
             frequenciesHz: number[];
             magnitudeDb: number[];
         };
+        /** @description The version of `tuningId` that was loaded (default its latest); needs `tuningId`. */
+        MeasuredTuningVersion: number;
         Measurement: {
             channel: string;
             /** Format: date-time */
@@ -1890,8 +2056,12 @@ export type components = {
                 /** @enum {unknown} */
                 type: "wav" | "text" | "json";
             };
+            /** @enum {unknown} */
+            stage: "before" | "after";
             /** @description A few numbers for lists: arrival, level and decay times; points and range; or the SPL. */
             summary: Record<string, never>;
+            tuningId: string | null;
+            tuningVersion: number | null;
         };
         /** @description A frequency response (arrays or text) or an SPL reading, for one channel at one microphone position. */
         MeasurementCreate: {
@@ -1906,8 +2076,11 @@ export type components = {
                 magnitudeDb: number[];
                 phaseDeg?: number[];
             };
+            stage?: components["schemas"]["MeasurementStage"];
             /** @description The response as text columns. */
             text?: string;
+            tuningId?: components["schemas"]["TuningId"];
+            tuningVersion?: components["schemas"]["MeasuredTuningVersion"];
         } | {
             channel: components["schemas"]["ChannelLabel"];
             /** @constant */
@@ -1917,11 +2090,14 @@ export type components = {
             notes?: string;
             /** @description Sound pressure level, dB re 20 µPa. */
             splDb: number;
+            stage?: components["schemas"]["MeasurementStage"];
             /**
              * @description Time weighting; default slow.
              * @enum {unknown}
              */
             timeWeighting?: "slow" | "fast";
+            tuningId?: components["schemas"]["TuningId"];
+            tuningVersion?: components["schemas"]["MeasuredTuningVersion"];
             /**
              * @description Frequency weighting; default C.
              * @enum {unknown}
@@ -1929,6 +2105,13 @@ export type components = {
             weighting?: "A" | "C" | "Z";
         };
         MeasurementId: string;
+        /**
+         * @description `before`: taken without a tuning (or before one was loaded) — plans use it. `after`: taken with the
+         *     tuning version `tuningId`/`tuningVersion` loaded in the processor — verification uses it and plans
+         *     leave it out. Default `after` when `tuningId` is given, else `before`; `after` needs `tuningId`.
+         * @enum {unknown}
+         */
+        MeasurementStage: "before" | "after";
         MeasurementUpload: {
             /** @description Loudspeaker id in the room, e.g. M+030. */
             channel: string;
@@ -1940,13 +2123,24 @@ export type components = {
             micPosition?: string;
             name?: string;
             notes?: string;
+            /**
+             * @description 0-based channel of the same WAV file that holds the timing reference (an electrical loopback of
+             *     the test signal). Its arrival is stored as `result.timingReference`, and plans then use the
+             *     loudspeaker's arrival relative to it, so converter and interface latency cancel.
+             */
+            referenceFileChannel?: number;
             /** @default 0.08333333333333333 */
             smoothingOctaves?: number;
+            stage?: components["schemas"]["MeasurementStage"];
             /**
              * @description Air temperature for the modes.
              * @default 20
              */
             temperatureC?: number;
+            /** @description The timing reference's arrival in this file, ms, when the capture tool measured it itself. */
+            timingReferenceMs?: number;
+            tuningId?: components["schemas"]["TuningId"];
+            tuningVersion?: components["schemas"]["MeasuredTuningVersion"];
         };
         OutboxMessage: {
             id: string;
@@ -2259,6 +2453,33 @@ export type components = {
             } | null;
             warnings: components["schemas"]["Warning"][];
         };
+        RoomPlanRequest: {
+            /** @description Channels handed to the subwoofer; default every channel but the LFE ones when the room has an LFE channel, none otherwise. */
+            bassManaged?: components["schemas"]["ChannelLabel"][];
+            measurements?: {
+                /**
+                 * @default auto
+                 * @enum {unknown}
+                 */
+                delaysFrom?: "auto" | "measuredArrival" | "geometry";
+                exclude?: components["schemas"]["MeasurementId"][];
+                /** @description Use only these measurements ("after" measurements too, when listed). */
+                include?: components["schemas"]["MeasurementId"][];
+                /** @description Position whose arrivals and SPL readings are used. */
+                micPosition?: string;
+            };
+            /** @description Name of the stored tuning (default "Plan from measurements"). */
+            name?: string;
+            notes?: string;
+            sampleRateHz?: components["schemas"]["SampleRateHz"];
+            /**
+             * @description Save the plan as a new tuning (version 1).
+             * @default false
+             */
+            store?: boolean;
+            targets?: components["schemas"]["PlanTargets"];
+            temperatureC?: number;
+        };
         /** @description Metres from the floor's front-left corner; x right, y toward the back wall, z up. */
         RoomPoint: {
             x: number;
@@ -2299,6 +2520,40 @@ export type components = {
             /** @enum {string} */
             role: "admin" | "developer" | "viewer";
         };
+        SignOff: {
+            date: string;
+            engineer: string;
+            microphone: string;
+            notes?: string;
+            positions: string[];
+            referenceLevelDb: number;
+            /** Format: date-time */
+            signedAt: string;
+            /** @enum {unknown} */
+            verdict: "pass" | "warn" | "fail" | "incomplete";
+            /** @enum {unknown} */
+            weighting: "A" | "C" | "Z";
+        };
+        SignOffRequest: {
+            /**
+             * Format: date
+             * @description Day of the verification, YYYY-MM-DD.
+             */
+            date: string;
+            engineer: string;
+            microphone: string;
+            notes?: string;
+            positions: string[];
+            referenceLevelDb: number;
+            /** @enum {unknown} */
+            weighting: "A" | "C" | "Z";
+        };
+        SignOffResult: {
+            signOff: components["schemas"]["SignOff"];
+            tuningId: string;
+            version: number;
+        };
+        SourceIds: string[];
         SpeakerGeometry: {
             /** @description Positive to the left, in (−180, 180]. */
             azimuthDeg: number;
@@ -2330,6 +2585,24 @@ export type components = {
             /** @description 1–8 for Butterworth; 2, 4 or 8 for Linkwitz-Riley. */
             order: number;
         };
+        StoredRoomPlan: components["schemas"]["RoomPlan"] & {
+            channels: (components["schemas"]["PlanChannel"] & {
+                sources: components["schemas"]["ChannelSources"];
+            })[];
+            measurements: {
+                ignored: {
+                    id: string;
+                    reason: string;
+                }[];
+                referencePosition: string | null;
+                used: components["schemas"]["SourceIds"];
+            };
+            subwoofer: {
+                integration: components["schemas"]["SubwooferIntegration"];
+            } | null;
+            /** @description The stored tuning (only with `store: true`). */
+            tuning?: components["schemas"]["Tuning"];
+        };
         StoredTargetCurve: {
             /** Format: date-time */
             createdAt: string;
@@ -2340,6 +2613,38 @@ export type components = {
             points: components["schemas"]["TargetPoint"][];
             /** Format: date-time */
             updatedAt: string;
+        };
+        SubwooferIntegration: {
+            band: {
+                fromHz: number;
+                toHz: number;
+            };
+            chosen: components["schemas"]["IntegrationCandidate"];
+            geometric: {
+                delayMs: number;
+                delaySamples: number;
+                /** @enum {unknown} */
+                polarity: "normal" | "inverted";
+            };
+            mains: string[];
+            measurementIds: components["schemas"]["SourceIds"];
+            micPosition: string;
+            runnersUp: components["schemas"]["IntegrationCandidate"][];
+            searchedUpToMs: number;
+            /** @constant */
+            source: "measuredResponses";
+            subGainDb: number;
+            summed: {
+                channel: string;
+                frequenciesHz: number[];
+                magnitudeDb: number[];
+            }[];
+        } | {
+            /** @description Always empty. */
+            measurementIds: string[];
+            reason: string;
+            /** @constant */
+            source: "geometry";
         };
         /**
          * @description The response a channel should reach, in dB relative to its own level. `flat`: 0 dB. `tilt`: a
@@ -2595,6 +2900,68 @@ export type components = {
             sampleRateHz?: number;
             subwoofer?: components["schemas"]["TuningSubwoofer"] | null;
         };
+        TuningVerification: {
+            arrivalSpread: {
+                channels: string[];
+                spreadMs: number | null;
+                status: components["schemas"]["VerificationStatus"];
+                timingReference: boolean | null;
+            };
+            channels: {
+                arrival: {
+                    arrivalMs: number | null;
+                    deviationMs: number | null;
+                    measurementIds: string[];
+                    note?: string;
+                    status: components["schemas"]["VerificationStatus"];
+                };
+                crossoverSum: {
+                    atHz: number | null;
+                    deepestDipDb: number | null;
+                    fromHz: number | null;
+                    measurementIds: string[];
+                    status: components["schemas"]["VerificationStatus"];
+                    toHz: number | null;
+                };
+                id: string;
+                level: {
+                    deviationDb: number | null;
+                    expectedDb: number | null;
+                    measuredDb: number | null;
+                    measurementIds: string[];
+                    status: components["schemas"]["VerificationStatus"];
+                };
+                response: {
+                    fromHz: number | null;
+                    largestAtHz: number | null;
+                    largestDb: number | null;
+                    measurementIds: string[];
+                    micPositions: string[];
+                    rmsDb: number | null;
+                    status: components["schemas"]["VerificationStatus"];
+                    toHz: number | null;
+                };
+            }[];
+            micPosition: string | null;
+            notes: string[];
+            referenceDb: number | null;
+            /** @enum {unknown} */
+            referenceFrom: "promise" | "request" | "medianOfMeasured" | null;
+            signOff: components["schemas"]["SignOff"] | null;
+            tolerances: {
+                /** @enum {unknown} */
+                basis: "published" | "commonPractice";
+                default: number;
+                name: string;
+                setByCaller: boolean;
+                source: string;
+                value: number;
+            }[];
+            tuningId: string;
+            /** @enum {unknown} */
+            verdict: "pass" | "warn" | "fail" | "incomplete";
+            version: number;
+        };
         TuningVersion: components["schemas"]["TuningSettingsFields"] & {
             /** Format: date-time */
             createdAt: string;
@@ -2611,6 +2978,8 @@ export type components = {
             /** @enum {string} */
             origin: "settings" | "plan" | "edit" | "restore" | "duplicate";
             restoredFromVersion: number | null;
+            /** @description The engineer's sign-off after verification (`PUT …/versions/{version}/sign-off`), or null. */
+            signOff?: components["schemas"]["SignOff"] | null;
             tuningId: string;
             version: number;
         };
@@ -2704,6 +3073,8 @@ export type components = {
                 role: "calculate" | "tuning" | "admin";
             }[];
         };
+        /** @enum {unknown} */
+        VerificationStatus: "pass" | "warn" | "fail" | "notMeasured";
         Warning: {
             /** @description Channel the warning is about, if any. */
             channel?: string;
@@ -3942,6 +4313,7 @@ export interface operations {
                 channel?: components["schemas"]["ChannelLabel"];
                 /** @description Page size. */
                 limit?: components["parameters"]["Limit"];
+                stage?: components["schemas"]["MeasurementStage"];
                 /** @description Cursor; the id of the last item of the previous page. */
                 startingAfter?: components["parameters"]["StartingAfter"];
             };
@@ -4109,6 +4481,11 @@ export interface operations {
                 channel: components["schemas"]["ChannelLabel"];
                 /** @description Which responses to average; required when the channel has both kinds. */
                 kind?: "frequencyResponse" | "impulseResponse";
+                /**
+                 * @description Average the measurements taken before (default; what plans use) or after a tuning was loaded (what
+                 *     verification uses). The two are never averaged together.
+                 */
+                stage?: "before" | "after";
             };
             header?: never;
             path: {
@@ -4135,6 +4512,53 @@ export interface operations {
                         measurementIds: string[];
                         micPositions: string[];
                     };
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
+            422: components["responses"]["Unprocessable"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    planStoredRoom: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /**
+                 * @description A room id from `POST /v1/rooms` or `GET /v1/rooms`.
+                 * @example room_0mf3x1c2a9f8a7b6c5d4e
+                 */
+                roomId: components["parameters"]["RoomIdPath"];
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["RoomPlanRequest"];
+            };
+        };
+        responses: {
+            /** @description The plan (nothing stored). */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["StoredRoomPlan"];
+                };
+            };
+            /** @description The plan, stored as a new tuning (`store: true`). */
+            201: {
+                headers: {
+                    /** @description URL of the new tuning. */
+                    Location?: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["StoredRoomPlan"];
                 };
             };
             400: components["responses"]["BadRequest"];
@@ -4604,6 +5028,49 @@ export interface operations {
             429: components["responses"]["TooManyRequests"];
         };
     };
+    getTuningVerification: {
+        parameters: {
+            query?: {
+                /** @description Default 0.1 ms (ITU-R BS.2051-3, Table 1 note 1). */
+                arrivalToleranceMs?: number;
+                /** @description Default 3 dB (common practice). */
+                crossoverDipToleranceDb?: number;
+                /** @description Default 0.5 dB (common practice). */
+                levelToleranceDb?: number;
+                /** @description Position whose arrivals and SPL readings count; default the one with the most of them. */
+                micPosition?: string;
+                /** @description Reference level to check levels against, when the tuning promised none (or to override it). */
+                referenceDb?: number;
+                /** @description Default 3 dB (common practice). */
+                responseMaxToleranceDb?: number;
+                /** @description Default 1.5 dB (common practice). */
+                responseRmsToleranceDb?: number;
+                version?: number;
+            };
+            header?: never;
+            path: {
+                tuningId: components["parameters"]["TuningIdPath"];
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The verification. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["TuningVerification"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
     listTuningVersions: {
         parameters: {
             query?: {
@@ -4693,6 +5160,38 @@ export interface operations {
             403: components["responses"]["Forbidden"];
             404: components["responses"]["NotFound"];
             422: components["responses"]["Unprocessable"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    signOffTuningVersion: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                tuningId: components["parameters"]["TuningIdPath"];
+                version: components["parameters"]["TuningVersionPath"];
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["SignOffRequest"];
+            };
+        };
+        responses: {
+            /** @description The sign-off as stored. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["SignOffResult"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
             429: components["responses"]["TooManyRequests"];
         };
     };
@@ -4981,7 +5480,7 @@ export interface operations {
 export type ValidatedDefaults = {
   acceptInvitation: { query: never; body: never };
   analyzeImpulseResponse: { query: never; body: "smoothingOctaves" | "temperatureC" };
-  averageMeasurements: { query: never; body: never };
+  averageMeasurements: { query: "stage"; body: never };
   compareTunings: { query: never; body: never };
   computeDelays: { query: never; body: never };
   computeGeometry: { query: never; body: "angleToleranceDeg" };
@@ -5016,6 +5515,7 @@ export type ValidatedDefaults = {
   getSession: { query: never; body: never };
   getTargetCurve: { query: never; body: never };
   getTuning: { query: never; body: never };
+  getTuningVerification: { query: never; body: never };
   getTuningVersion: { query: never; body: never };
   getUsage: { query: "groupBy"; body: never };
   getUser: { query: never; body: never };
@@ -5031,11 +5531,13 @@ export type ValidatedDefaults = {
   listTuningVersions: { query: "limit"; body: never };
   listUsers: { query: "limit"; body: never };
   planBassManagement: { query: never; body: "lfeGainDb" | "subwooferCount" | "headroomWarningDb" };
+  planStoredRoom: { query: never; body: "store" };
   reissueInvitation: { query: never; body: never };
   replaceProcessorProfile: { query: never; body: never };
   restoreTuningVersion: { query: never; body: never };
   revokeKey: { query: never; body: never };
   signIn: { query: never; body: never };
+  signOffTuningVersion: { query: never; body: never };
   signOut: { query: never; body: never };
   updateKey: { query: never; body: never };
   updateRoom: { query: never; body: never };

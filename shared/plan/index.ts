@@ -25,3 +25,17 @@ export {
 } from './tuning-design';
 export { compareTunings, type TuningComparison, type ChannelDifference } from './tuning-compare';
 export { tuningCautions } from './tuning-cautions';
+export {
+  integrateSubwoofer,
+  type ComplexResponse,
+  type SubwooferIntegration,
+  type IntegrationCandidate,
+} from './subwoofer-integration';
+export {
+  planStoredRoom,
+  type StoredMeasurement,
+  type StoredRoom,
+  type StoredPlanOverrides,
+  type StoredRoomPlan,
+  type ChannelSources,
+} from './stored-room-plan';

@@ -8,6 +8,8 @@ import {
 } from 'sequelize';
 
 export type MeasurementKind = 'impulseResponse' | 'frequencyResponse' | 'spl';
+/** Taken before a tuning was loaded (raw, plans use it) or after (verification uses it). */
+export type MeasurementStage = 'before' | 'after';
 
 /** What was uploaded: the file's name and, for audio, its format (the audio itself is not kept). */
 export interface MeasurementSource {
@@ -38,6 +40,10 @@ export class Measurement extends Model<InferAttributes<Measurement>, InferCreati
   /** The analysis (impulse response), the response arrays (frequency response) or the reading (SPL). */
   declare result: Record<string, unknown>;
   declare createdByKeyId: string | null;
+  /** The tuning (and version) loaded in the processor when it was taken, if any. */
+  declare tuningId: CreationOptional<string | null>;
+  declare tuningVersion: CreationOptional<number | null>;
+  declare stage: CreationOptional<MeasurementStage | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -56,6 +62,9 @@ export function initMeasurement(sequelize: Sequelize): typeof Measurement {
       source: { type: DataTypes.JSON, allowNull: false },
       result: { type: DataTypes.JSON, allowNull: false },
       createdByKeyId: { type: DataTypes.STRING(40), allowNull: true },
+      tuningId: { type: DataTypes.STRING(40), allowNull: true },
+      tuningVersion: { type: DataTypes.INTEGER, allowNull: true },
+      stage: { type: DataTypes.STRING(8), allowNull: true },
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },

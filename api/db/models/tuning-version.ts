@@ -7,6 +7,7 @@ import {
   type Sequelize,
 } from 'sequelize';
 import type { TuningChannel, TuningSubwoofer } from '../../../shared/plan/tuning';
+import type { TuningPromise, SignOff } from '../../../shared/verification';
 
 export type TuningOrigin = 'settings' | 'plan' | 'edit' | 'restore' | 'duplicate';
 
@@ -29,6 +30,10 @@ export class TuningVersion extends Model<
   declare roomRevision: number;
   declare createdByUserId: string | null;
   declare createdByKeyId: string | null;
+  /** What the plan this version came from promised (null for settings typed in by hand). */
+  declare promise: CreationOptional<TuningPromise | null>;
+  /** The engineer's sign-off after verification; the only part of a version set after it is written. */
+  declare signOff: CreationOptional<SignOff | null>;
   declare createdAt: CreationOptional<Date>;
 }
 
@@ -48,6 +53,8 @@ export function initTuningVersion(sequelize: Sequelize): typeof TuningVersion {
       roomRevision: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
       createdByUserId: { type: DataTypes.STRING(40), allowNull: true },
       createdByKeyId: { type: DataTypes.STRING(40), allowNull: true },
+      promise: { type: DataTypes.JSON, allowNull: true },
+      signOff: { type: DataTypes.JSON, allowNull: true },
       createdAt: DataTypes.DATE,
     },
     { sequelize, tableName: 'tuning_versions', updatedAt: false },

@@ -13,10 +13,13 @@ export class MeasurementsService {
     return `/v1/rooms/${encodeURIComponent(roomId)}/measurements`;
   }
 
-  /** Every measurement of the room, oldest first, following the cursor to the end. */
+  /**
+   * Every measurement of the room taken without a tuning loaded (what plans use), oldest first, following
+   * the cursor to the end. Those taken with a tuning loaded belong to that tuning's verification.
+   */
   list(roomId: string): Observable<Measurement[]> {
     const page = (startingAfter?: string) => {
-      let params = new HttpParams().set('limit', 100);
+      let params = new HttpParams().set('limit', 100).set('stage', 'before');
       if (startingAfter) params = params.set('startingAfter', startingAfter);
       return this.http.get<ListPage<Measurement>>(this.base(roomId), { params });
     };
