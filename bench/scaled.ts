@@ -49,6 +49,7 @@ interface AutocannonResult {
   timeouts: number;
   non2xx: number;
   '2xx': number;
+  statusCodeStats?: Record<string, { count: number }>;
 }
 // eslint-disable-next-line @typescript-eslint/no-require-imports
 const autocannon = require('autocannon') as (options: object) => Promise<AutocannonResult>;
@@ -336,15 +337,18 @@ async function measure(
           body: JSON.stringify({ notes: 'bench edit' }),
         };
   const base = {
-    url: `http://127.0.0.1:${running.port}`,
+    // autocannon takes the path as part of the URL.
+    url: `http://127.0.0.1:${running.port}${options.path}`,
     connections: CONNECTIONS,
-    ...options,
+    method: options.method,
+    body: options.body,
     headers: { Authorization: `Bearer ${running.key}`, 'Content-Type': 'application/json' },
   };
   await autocannon({ ...base, duration: WARMUP_S });
   const before = cpuSecondsOfTree(running.pids);
   const result = await autocannon({ ...base, duration: SECONDS });
   const cpu = cpuSecondsOfTree(running.pids) - before;
+  if (result.non2xx > 0) console.log(`  status codes: ${JSON.stringify(result.statusCodeStats)}`);
   const completed = result['2xx'];
   return {
     setUp: setUp.name,
