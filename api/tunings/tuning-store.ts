@@ -202,15 +202,19 @@ export async function addVersion(
   pointer: (content: VersionContent) => SettingPointer,
 ): Promise<{ tuning: Tuning; version: TuningVersion }> {
   return db.write(async (transaction) => {
-    // PostgreSQL: the row lock makes a concurrent edit (from any instance) wait and then read the
-    // number this one wrote. SQLite ignores it: its write transactions already run one at a time.
+    const found = await db.models.Tuning.findByPk(tuningId, { transaction });
+    if (!found) throw notFound(`No tuning ${tuningId}.`);
+    // PostgreSQL: the room is locked before the tuning, the order a room's deletion takes them, so an
+    // edit racing a deletion waits for it (and answers 404) instead of deadlocking with it. The tuning's
+    // row lock then makes a concurrent edit (from any instance) wait and read the number this one wrote.
+    // SQLite ignores both: its write transactions already run one at a time.
+    const room = await roomStillThere(db.models, found.roomId, transaction);
     const tuning = await db.models.Tuning.findByPk(tuningId, { transaction, lock: transaction.LOCK.UPDATE });
     if (!tuning) throw notFound(`No tuning ${tuningId}.`);
     const current = await findVersion(db.models, tuning, tuning.currentVersion, transaction);
     const built = build(current);
     const content = { ...built, promise: built.promise !== undefined ? built.promise : current.promise };
     checkTuningSettings(content.settings);
-    const room = await roomStillThere(db.models, tuning.roomId, transaction);
     await requireWithinRoomLimits(db.models, room, content.settings, pointer(content), transaction);
     const version = await insertVersion(
       db.models,
