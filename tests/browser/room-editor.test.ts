@@ -4,10 +4,9 @@ import {
   PHONE,
   contrastProblems,
   horizontalOverflow,
-  launchBrowser,
   screenshot,
 } from './support/browser';
-import { openPage, signIn } from './support/console-pages';
+import { openPage, withSignedInBrowser } from './support/console-pages';
 import { type RunningService, startService } from './support/service';
 
 // Creating a room from a layout in the console: dimensions, listener, loudspeakers placed at the nominal
@@ -22,20 +21,11 @@ afterAll(async () => {
   await service?.stop();
 });
 
-async function withBrowser(
+function withBrowser(
   colorScheme: 'light' | 'dark',
   run: (page: Page, browser: ConsoleBrowser) => Promise<void>,
 ): Promise<void> {
-  const browser = await launchBrowser(service.origin, colorScheme);
-  browser.allowFailure('/auth/session', 401);
-  try {
-    const page = await browser.newPage();
-    await signIn(page, service.origin, 'dev@kestrel.example');
-    await run(page, browser);
-    expect(browser.faults()).toEqual([]);
-  } finally {
-    await browser.close();
-  }
+  return withSignedInBrowser(service.origin, colorScheme, 'dev@kestrel.example', run);
 }
 
 const editor = (page: Page) => page.getByTestId('room-editor');

@@ -1,4 +1,5 @@
 import type { Page } from 'playwright-core';
+import { type ConsoleBrowser, launchBrowser } from './browser';
 
 export const DEMO_PASSWORD = 'kestrel-demo';
 
@@ -44,3 +45,22 @@ export const ADMIN_PAGES: Array<{ path: string; heading: string; name: string }>
   { path: '/users', heading: 'Users', name: 'users' },
   { path: '/reference', heading: 'API documentation', name: 'reference' },
 ];
+
+/** A browser signed in as `email`; the test fails if the page logged a fault the test did not allow. */
+export async function withSignedInBrowser(
+  origin: string,
+  colorScheme: 'light' | 'dark',
+  email: string,
+  run: (page: Page, browser: ConsoleBrowser) => Promise<void>,
+): Promise<void> {
+  const browser = await launchBrowser(origin, colorScheme);
+  browser.allowFailure('/auth/session', 401);
+  try {
+    const page = await browser.newPage();
+    await signIn(page, origin, email);
+    await run(page, browser);
+    expect(browser.faults()).toEqual([]);
+  } finally {
+    await browser.close();
+  }
+}
