@@ -40,6 +40,8 @@ export interface Config {
   workThreads: number;
   /** Heavy calculations that may wait for a worker thread; beyond that a 503 with Retry-After. */
   workQueueLimit: number;
+  /** How many nice steps below the event loop the worker threads run (Linux; 0 = same priority). */
+  workNice: number;
   /**
    * Redis (`redis://…`) shared by every instance: rate limits, sign-in throttles, console sessions,
    * key-cache invalidation and the usage buffer. Null keeps all of them in this process's memory.
@@ -189,6 +191,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     shutdownDeadlineMs: integer(env, 'SHUTDOWN_DEADLINE_MS', 10_000, 0, 600_000),
     workThreads: integer(env, 'HEAVY_WORK_THREADS', defaultWorkThreads(), 1, 64),
     workQueueLimit: integer(env, 'HEAVY_WORK_QUEUE_LIMIT', 16, 0, 10_000),
+    workNice: integer(env, 'HEAVY_WORK_NICE', 10, 0, 19),
     redisUrl: redisUrl(env),
     redisKeyPrefix: env.REDIS_KEY_PREFIX || 'isochron:',
     databasePoolMax: integer(env, 'DATABASE_POOL_MAX', 10, 1, 1000),

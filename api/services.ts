@@ -53,7 +53,11 @@ export async function createServices(config: Config): Promise<Services> {
   logger.info(`mail goes to ${mail.description}`);
   const sessions = createConsoleSessions({ config, db, shared });
   const usage = createUsageMeter(db, config, logger, shared);
-  const work = new HeavyWork({ threads: config.workThreads, queueLimit: config.workQueueLimit });
+  const work = new HeavyWork({
+    threads: config.workThreads,
+    queueLimit: config.workQueueLimit,
+    nice: config.workNice,
+  });
   const keys = new KeyStore(db.models, config.keyHashSecret);
   // A revocation or role change anywhere (any instance, the command line) empties every instance's cache.
   keys.broadcast = () => shared.publishKeyChange();

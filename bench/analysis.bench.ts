@@ -8,47 +8,7 @@ import { noisyDecay } from '../shared/analysis/test-signals';
 import { decodeWav } from '../shared/analysis/wav-decode';
 import { fitParametricEq } from '../shared/eq-fit/fit-parametric-eq';
 import { cookbookPeakingDb } from '../shared/filters/test-helpers';
-
-export interface BenchResult {
-  name: string;
-  targetMs: number | null;
-  runs: number;
-  /** Wall-clock times. */
-  medianMs: number;
-  p95Ms: number;
-  minMs: number;
-  /** Median CPU time (user + system) of the process per run: steadier than wall time on a shared machine. */
-  medianCpuMs: number;
-  /** True when the median is under the target (null target: informational). */
-  passed: boolean | null;
-}
-
-function measure(name: string, targetMs: number | null, runs: number, fn: () => unknown): BenchResult {
-  for (let i = 0; i < 3; i++) fn();
-  const times: number[] = [];
-  const cpuTimes: number[] = [];
-  for (let i = 0; i < runs; i++) {
-    const cpu = process.cpuUsage();
-    const start = performance.now();
-    fn();
-    times.push(performance.now() - start);
-    const used = process.cpuUsage(cpu);
-    cpuTimes.push((used.user + used.system) / 1000);
-  }
-  times.sort((a, b) => a - b);
-  cpuTimes.sort((a, b) => a - b);
-  const medianMs = times[Math.floor(runs / 2)];
-  return {
-    name,
-    targetMs,
-    runs,
-    medianMs,
-    p95Ms: times[Math.min(runs - 1, Math.ceil(runs * 0.95) - 1)],
-    minMs: times[0],
-    medianCpuMs: cpuTimes[Math.floor(runs / 2)],
-    passed: targetMs === null ? null : medianMs < targetMs,
-  };
-}
+import { measure, printResults, type BenchResult } from './measure';
 
 /** A room-like 2 s impulse response at 48 kHz: direct sound, then a T60 = 0.5 s decay over −80 dB noise. */
 function roomImpulseResponse(): Float64Array {
@@ -190,13 +150,7 @@ export default runAnalysisBench;
 
 if (require.main === module) {
   void runAnalysisBench().then((results) => {
-    for (const r of results) {
-      const verdict = r.passed === null ? 'info' : r.passed ? 'ok' : 'SLOW';
-      const target = r.targetMs === null ? '' : ` (target < ${r.targetMs} ms)`;
-      console.log(
-        `${verdict.padEnd(4)} ${r.name}: median ${r.medianMs.toFixed(1)} ms (CPU ${r.medianCpuMs.toFixed(1)} ms), p95 ${r.p95Ms.toFixed(1)} ms, min ${r.minMs.toFixed(1)} ms over ${r.runs} runs${target}`,
-      );
-    }
+    printResults(results);
     if (results.some((r) => r.passed === false)) process.exitCode = 1;
   });
 }

@@ -11,6 +11,7 @@ import {
 } from '../openapi/validators';
 import { badRequest, ProblemError, type FieldError } from './problem';
 import { multerProblem } from './upload';
+import { ContiguousMemoryStorage } from './upload-storage';
 
 /** Every operationId of the contract. */
 export type OperationId = keyof operations;
@@ -150,7 +151,7 @@ const uploads = new Map<string, RequestHandler>();
 function receiveFile(operationId: string): RequestHandler {
   let upload = uploads.get(operationId);
   if (!upload) {
-    upload = multer({ storage: multer.memoryStorage(), limits: UPLOAD_LIMITS }).single('file');
+    upload = multer({ storage: new ContiguousMemoryStorage(), limits: UPLOAD_LIMITS }).single('file');
     uploads.set(operationId, upload);
   }
   return upload;

@@ -3,8 +3,6 @@ import {
   requireFrequencyResponse,
   type ParsedFrequencyResponse,
 } from '../../shared/analysis/frequency-response-text';
-import { detectArrival, signalLevel } from '../../shared/analysis/level';
-import { decodeWav } from '../../shared/analysis/wav-decode';
 import { CalculationInputError } from '../../shared/errors';
 import type { MeasurementKind, MeasurementSource } from '../db/models/measurement';
 import type { Room } from '../db/models/room';
@@ -57,15 +55,36 @@ export async function contentFromFile(
   room: Room,
 ): Promise<MeasurementContent> {
   if (isWav(file.buffer, file.originalname, file.mimetype)) {
-    const { analysis, file: read } = await work.run('analyseWav', {
-      bytes: file.buffer,
-      channel: form.fileChannel,
-      channelField: '/fileChannel',
-      smoothingOctaves: form.smoothingOctaves ?? 1 / 12,
-      room: room.dimensions,
-      temperatureC: form.temperatureC ?? 20,
-    });
-    const timingReference = timingReferenceOf(file.buffer, form);
+    const given = timingReferenceGiven(form);
+    // The file's memory moves to the worker thread (decoding and analysis happen there); the loopback
+    // channel, when named, is decoded and its arrival detected there too.
+    const {
+      analysis,
+      file: read,
+      timingReferenceMs,
+    } = await work.run(
+      'analyseWav',
+      {
+        bytes: file.buffer,
+        channel: form.fileChannel,
+        channelField: '/fileChannel',
+        referenceChannel: form.referenceFileChannel,
+        referenceChannelField: '/referenceFileChannel',
+        smoothingOctaves: form.smoothingOctaves ?? 1 / 12,
+        room: room.dimensions,
+        temperatureC: form.temperatureC ?? 20,
+      },
+      undefined,
+      [file.buffer],
+    );
+    const timingReference =
+      timingReferenceMs === undefined
+        ? given
+        : {
+            source: 'loopback' as const,
+            arrivalMs: timingReferenceMs,
+            fileChannel: form.referenceFileChannel,
+          };
     return {
       kind: 'impulseResponse',
       source: { type: 'wav', fileName: file.originalname, sizeBytes: file.size, ...read },
@@ -88,37 +107,24 @@ export async function contentFromFile(
 
 /**
  * The timing reference of an impulse-response capture: the arrival in the loopback channel of the same file
- * (detected as the loudspeaker's arrival is), or the figure the capture tool gave. Plans use arrivals
- * relative to it, so interface and converter latency cancel between captures.
+ * (detected on the worker thread as the loudspeaker's arrival is), or the figure the capture tool gave.
+ * Plans use arrivals relative to it, so interface and converter latency cancel between captures. Checks
+ * the two fields before any decoding, and answers the given figure.
  */
-function timingReferenceOf(
-  buffer: Buffer,
-  form: UploadForm,
-): { source: 'loopback' | 'given'; arrivalMs: number; fileChannel?: number } | null {
+function timingReferenceGiven(form: UploadForm): { source: 'given'; arrivalMs: number } | null {
   if (form.referenceFileChannel !== undefined && form.timingReferenceMs !== undefined) {
     throw new CalculationInputError(
       'give the timing reference either as a file channel or as a time, not both',
       '/timingReferenceMs',
     );
   }
-  if (form.timingReferenceMs !== undefined) return { source: 'given', arrivalMs: form.timingReferenceMs };
-  if (form.referenceFileChannel === undefined) return null;
-  if (form.referenceFileChannel === (form.fileChannel ?? 0)) {
+  if (form.referenceFileChannel !== undefined && form.referenceFileChannel === (form.fileChannel ?? 0)) {
     throw new CalculationInputError(
       'the timing reference must be another channel of the file than the loudspeaker',
       '/referenceFileChannel',
     );
   }
-  const loop = decodeWav(buffer, {
-    channel: form.referenceFileChannel,
-    channelField: '/referenceFileChannel',
-  });
-  const level = signalLevel(loop.samples);
-  if (level.peakDbfs < -120) {
-    throw new CalculationInputError('the timing-reference channel is silent', '/referenceFileChannel');
-  }
-  const arrival = detectArrival(loop.samples, loop.sampleRateHz, level);
-  return { source: 'loopback', arrivalMs: arrival.arrivalMs, fileChannel: form.referenceFileChannel };
+  return form.timingReferenceMs === undefined ? null : { source: 'given', arrivalMs: form.timingReferenceMs };
 }
 
 export type JsonMeasurement =

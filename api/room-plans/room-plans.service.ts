@@ -1,5 +1,5 @@
 import type { components } from '../../shared/contract/api-types';
-import { planStoredRoom, planToTuningSettings, type StoredRoomPlan } from '../../shared/plan';
+import { planToTuningSettings, type StoredRoomPlan } from '../../shared/plan';
 import { promiseOfPlan } from '../../shared/verification';
 import type { Database } from '../db/database';
 import type { Room } from '../db/models/room';
@@ -8,21 +8,32 @@ import { findRoomFor, type Caller } from '../rooms/room-access';
 import { TargetCurvesService } from '../target-curves/target-curves.service';
 import { profileOfRoom, stalenessOf } from '../rooms/room-state-store';
 import { createTuning, tuningDto } from '../tunings/tuning-store';
+import type { HeavyWork } from '../work/heavy-work';
 
 type RoomPlanRequest = components['schemas']['RoomPlanRequest'];
 type TuningView = ReturnType<typeof tuningDto>;
 
 const DEFAULT_TUNING_NAME = 'Plan from measurements';
 
-/** Plans of stored rooms: inputs assembled from the room and its measurements, one plan engine. */
+/**
+ * Plans of stored rooms: inputs assembled from the room and its measurements, one plan engine. The plan
+ * (EQ fits, the subwoofer search) runs on a worker thread; reading and storing stay here.
+ */
 export class RoomPlansService {
-  constructor(private readonly db: Database) {}
+  constructor(
+    private readonly db: Database,
+    private readonly work: Pick<HeavyWork, 'run'>,
+  ) {}
 
-  /** The plan; with `store`, also the tuning it was saved as (version 1, through the tuning checks). */
+  /**
+   * The plan; with `store`, also the tuning it was saved as (version 1, through the tuning checks).
+   * `signal` drops the calculation when the client has gone.
+   */
   async plan(
     caller: Caller,
     roomId: string,
     body: RoomPlanRequest,
+    signal?: AbortSignal,
   ): Promise<StoredRoomPlan & { tuning?: TuningView }> {
     const room = await findRoomFor(caller, this.db.models, roomId);
     const profile = await profileOfRoom(this.db.models, room);
@@ -36,24 +47,28 @@ export class RoomPlansService {
       where: { roomId: room.id },
       order: [['id', 'ASC']],
     });
-    const plan = calculateAt('/body', () =>
-      planStoredRoom(
-        { ...storedRoomOf(room), profile: profile?.settings ?? null },
-        rows.map((m) => ({
-          id: m.id,
-          channel: m.channel,
-          micPosition: m.micPosition,
-          kind: m.kind,
-          stage: m.stage ?? null,
-          result: m.result,
-        })),
+    const plan = await calculateAt('/body', () =>
+      this.work.run(
+        'planStoredRoom',
         {
-          targets,
-          temperatureC: body.temperatureC,
-          sampleRateHz: body.sampleRateHz,
-          bassManaged: body.bassManaged,
-          measurements: body.measurements,
+          room: { ...storedRoomOf(room), profile: profile?.settings ?? null },
+          measurements: rows.map((m) => ({
+            id: m.id,
+            channel: m.channel,
+            micPosition: m.micPosition,
+            kind: m.kind,
+            stage: m.stage ?? null,
+            result: m.result,
+          })),
+          overrides: {
+            targets,
+            temperatureC: body.temperatureC,
+            sampleRateHz: body.sampleRateHz,
+            bassManaged: body.bassManaged,
+            measurements: body.measurements,
+          },
         },
+        signal,
       ),
     );
     if (!body.store) return plan;

@@ -1,7 +1,15 @@
+import { readdirSync, readFileSync } from 'node:fs';
+import os from 'node:os';
+import { WaveFile } from 'wavefile';
+import { STAGE3_ROOM, STAGE3_SPL_DB } from '../../seeds/demo-stage3-room';
+import { stage3MeasuredResponses } from '../../seeds/demo-stage3-measurements';
 import { SignalProblemError } from '../../shared/analysis/signal-problem';
+import { exponentialSweep, type SweepSpec } from '../../shared/capture/sweep';
 import { CalculationInputError } from '../../shared/errors';
+import { planStoredRoom, type StoredMeasurement } from '../../shared/plan';
 import { ProblemError } from '../http/problem';
 import { HeavyWork } from './heavy-work';
+import { tasks, type StoredPlanInput, type SweepWavInput } from './tasks';
 
 // A fit the core accepts, and the same with frequencies out of order (the core refuses that).
 const measured = { frequenciesHz: [20, 100, 1000, 10000], magnitudeDb: [0, 6, 0, 0] };
@@ -66,5 +74,190 @@ describe('HeavyWork', () => {
     const closed = new HeavyWork({ threads: 1, queueLimit: 0 });
     await closed.close();
     await expect(closed.run('fitEq', fit)).rejects.toMatchObject({ status: 503 });
+  });
+});
+
+/** A 24-bit mono WAV of the samples (full scale ±1), encoded with wavefile. */
+function wav24(samples: Float64Array, sampleRateHz: number): Buffer {
+  const file = new WaveFile();
+  file.fromScratch(
+    1,
+    sampleRateHz,
+    '24',
+    Array.from(samples, (v) => Math.round(v * 8388607)),
+  );
+  return Buffer.from(file.toBuffer());
+}
+
+/** A 1 s sweep as a room returns it: 2 ms late, half level, with 0.3 s of room after it. */
+const sweep: SweepSpec = {
+  sampleRateHz: 48000,
+  startHz: 20,
+  endHz: 20000,
+  durationS: 1,
+  fadeInS: 0.05,
+  fadeOutS: 0.01,
+  levelDbfs: -12,
+  silenceAfterS: 0,
+};
+function sweepRecording(): Buffer {
+  const played = exponentialSweep(sweep);
+  const recorded = new Float64Array(played.length + 0.3 * 48000);
+  recorded.set(
+    played.map((v) => v / 2),
+    96,
+  );
+  return wav24(recorded, 48000);
+}
+const sweepForm = (bytes: Uint8Array): SweepWavInput => ({
+  bytes,
+  form: {
+    startHz: sweep.startHz,
+    endHz: sweep.endHz,
+    durationS: sweep.durationS,
+    fadeInS: sweep.fadeInS,
+    fadeOutS: sweep.fadeOutS,
+    levelDbfs: sweep.levelDbfs,
+    offsetS: 0,
+    method: 'regularizedDivision',
+    smoothingOctaves: 1 / 12,
+    temperatureC: 20,
+  },
+  room: STAGE3_ROOM.dimensions,
+});
+
+/** Stage 3 (demo) as stored: SPL readings of every channel and the left channel's response at two positions. */
+function storedStage3(): StoredPlanInput {
+  const left = stage3MeasuredResponses()['M+030'];
+  const measurements: StoredMeasurement[] = [
+    ...Object.entries(STAGE3_SPL_DB).map(([channel, splDb], i) => ({
+      id: `mea_${String(i).padStart(3, '0')}`,
+      channel,
+      micPosition: 'MLP',
+      kind: 'spl' as const,
+      stage: null,
+      result: { splDb, weighting: 'C', timeWeighting: 'slow' },
+    })),
+    ...['MLP', '2'].map((micPosition, k) => ({
+      id: `mea_1${k}`,
+      channel: 'M+030',
+      micPosition,
+      kind: 'frequencyResponse' as const,
+      stage: null,
+      result: { frequenciesHz: left.frequenciesHz, magnitudeDb: left.magnitudeDb.map((x) => x + 80 + 6 * k) },
+    })),
+  ];
+  return {
+    room: {
+      layoutId: STAGE3_ROOM.layout,
+      dimensions: STAGE3_ROOM.dimensions,
+      listener: STAGE3_ROOM.listener,
+      loudspeakers: STAGE3_ROOM.loudspeakers,
+      limits: STAGE3_ROOM.limits,
+      sampleRateHz: STAGE3_ROOM.sampleRateHz,
+      profile: null,
+    },
+    measurements,
+    overrides: { targets: { referenceDb: 79, crossoverHz: 80 }, temperatureC: 21 },
+  };
+}
+
+describe('HeavyWork tasks answer what the direct calculation answers', () => {
+  const work = new HeavyWork({ threads: 1, queueLimit: 4 });
+  afterAll(() => work.close());
+
+  it('analyses a recorded sweep on the worker exactly as on this thread', async () => {
+    const bytes = sweepRecording();
+    const direct = tasks.analyseSweepWav(sweepForm(bytes));
+    const pooled = await work.run('analyseSweepWav', sweepForm(bytes));
+    expect(pooled).toEqual(direct);
+    // The recording is half level: the linear response sits near −6 dB, and the file is read as sent.
+    expect(pooled.file).toEqual({
+      sampleRateHz: 48000,
+      channelCount: 1,
+      channelIndex: 0,
+      encoding: 'pcm24',
+      durationS: (48000 + 0.3 * 48000) / 48000,
+    });
+  });
+
+  it('plans a stored room on the worker exactly as on this thread', async () => {
+    const input = storedStage3();
+    const direct = planStoredRoom(input.room, input.measurements, input.overrides);
+    const pooled = await work.run('planStoredRoom', storedStage3());
+    expect(pooled).toEqual(direct);
+    expect(pooled.measurements.used).toContain('mea_10');
+  });
+
+  it('gives back the refusal of a sweep cut outside the file, naming the field', async () => {
+    const input = sweepForm(sweepRecording());
+    const refusal = await work
+      .run('analyseSweepWav', { ...input, form: { ...input.form, offsetS: 5 } })
+      .catch((e: unknown) => e);
+    expect(refusal).toBeInstanceOf(CalculationInputError);
+    expect((refusal as CalculationInputError).field).toBe('/offsetS');
+  });
+
+  it('moves a large upload to the worker instead of copying it, and copies a small pooled one', async () => {
+    const large = sweepRecording();
+    expect(large.byteLength).toBeGreaterThan(Buffer.poolSize);
+    const direct = tasks.analyseSweepWav(sweepForm(Buffer.from(large)));
+    const moved = await work.run('analyseSweepWav', sweepForm(large), undefined, [large]);
+    expect(moved).toEqual(direct);
+    // Moved: this thread's view of the memory is gone.
+    expect(large.byteLength).toBe(0);
+
+    const small = Buffer.from('RIFF\u0004\u0000\u0000\u0000WAVE');
+    expect(small.buffer.byteLength).toBe(Buffer.poolSize);
+    const refusal = await work
+      .run('analyseWav', { bytes: small, smoothingOctaves: 1 / 12, temperatureC: 20 }, undefined, [small])
+      .catch((e: unknown) => e);
+    expect(refusal).toBeInstanceOf(SignalProblemError);
+    // Copied: the pool it was cut from (and this Buffer) are untouched.
+    expect(small.toString('latin1', 8, 12)).toBe('WAVE');
+  });
+
+  it('detects the timing reference in the loopback channel on the worker', async () => {
+    // Two channels: the loudspeaker's impulse at 10 ms, the loopback's at 2 ms.
+    const file = new WaveFile();
+    const mic = new Array<number>(48000).fill(0);
+    const loop = new Array<number>(48000).fill(0);
+    mic[480] = 8388607 >> 1;
+    loop[96] = 8388607 >> 1;
+    file.fromScratch(2, 48000, '24', [mic, loop]);
+    const bytes = Buffer.from(file.toBuffer());
+    const input = { bytes, channel: 0, referenceChannel: 1, smoothingOctaves: 1 / 12, temperatureC: 20 };
+    const pooled = await work.run('analyseWav', input);
+    expect(pooled).toEqual(tasks.analyseWav(input));
+    expect(pooled.timingReferenceMs).toBeCloseTo(2, 1);
+    expect(pooled.analysis.arrival.arrivalMs - (pooled.timingReferenceMs as number)).toBeCloseTo(8, 1);
+  });
+});
+
+/** Nice values of this process's threads (Linux: field 19 of /proc/<pid>/task/<tid>/stat). */
+function threadNiceValues(): Map<number, number> {
+  const values = new Map<number, number>();
+  for (const tid of readdirSync(`/proc/${process.pid}/task`)) {
+    const stat = readFileSync(`/proc/${process.pid}/task/${tid}/stat`, 'latin1');
+    // Fields after the command name (which may hold spaces) start at field 3; nice is field 19.
+    values.set(Number(tid), Number(stat.slice(stat.lastIndexOf(')') + 2).split(' ')[16]));
+  }
+  return values;
+}
+
+describe('HeavyWork threads on Linux', () => {
+  const work = new HeavyWork({ threads: 2, queueLimit: 0, nice: 7 });
+  afterAll(() => work.close());
+
+  it('lowers the priority of each worker thread alone, by the nice steps given', async () => {
+    expect(process.platform).toBe('linux');
+    const before = threadNiceValues();
+    await Promise.all([work.run('fitEq', fit), work.run('fitEq', fit)]);
+    const after = threadNiceValues();
+    const base = os.getPriority(0);
+    // The event loop's thread (its id is the process id) keeps the process's priority.
+    expect(after.get(process.pid)).toBe(base);
+    const added = [...after].filter(([tid]) => !before.has(tid));
+    expect(added.filter(([, nice]) => nice === base + 7)).toHaveLength(2);
   });
 });

@@ -10,6 +10,12 @@ export interface HeavyWorkOptions {
   threads: number;
   /** Heavy tasks that may wait for a thread; one more is refused with 503 and Retry-After. */
   queueLimit: number;
+  /**
+   * Nice value (0–19) each worker thread gives itself, so the event loop's thread wins the CPU when
+   * both want it (`worker.ts`). Linux only: there a thread's nice value is its own; elsewhere it would
+   * renice the whole process, so it is not applied. 0 leaves the threads as they start.
+   */
+  nice?: number;
 }
 
 /**
@@ -48,8 +54,15 @@ export class HeavyWork {
    * Runs `task` on a worker thread. A refused input rejects with the core's CalculationInputError (the
    * error path makes it a 422 naming the field); a full queue or a closed pool with a 503 problem.
    * `signal` drops the task (queued) or stops its thread (running), for a client that went away.
+   * `transfer`: byte arrays of the input (an uploaded file) whose memory moves to the worker instead of
+   * being copied on the event loop; the caller must not read them afterwards (they are left empty).
    */
-  async run<T extends TaskName>(task: T, input: TaskInput<T>, signal?: AbortSignal): Promise<TaskOutput<T>> {
+  async run<T extends TaskName>(
+    task: T,
+    input: TaskInput<T>,
+    signal?: AbortSignal,
+    transfer: readonly Uint8Array[] = [],
+  ): Promise<TaskOutput<T>> {
     if (this.closed) throw unavailable('The service is shutting down.', 1);
     if (this.pending >= this.capacity) {
       throw unavailable(
@@ -63,7 +76,11 @@ export class HeavyWork {
       const request: TaskRequest = { task, input };
       let reply: TaskReply;
       try {
-        reply = (await this.start().run(request, { name: 'runTask', signal })) as TaskReply;
+        reply = (await this.start().run(request, {
+          name: 'runTask',
+          signal,
+          transferList: transferable(transfer),
+        })) as TaskReply;
       } catch (error) {
         // Nobody reads this answer; a problem (not a fault) keeps it out of the error log.
         if (signal?.aborted) throw unavailable('The client closed the connection.', 1);
@@ -92,6 +109,7 @@ export class HeavyWork {
       maxThreads: this.options.threads,
       // The admission check above already bounds the queue.
       maxQueue: this.capacity,
+      workerData: { nice: process.platform === 'linux' ? (this.options.nice ?? 0) : 0 },
     });
     return this.pool;
   }
@@ -100,6 +118,21 @@ export class HeavyWork {
   private retryAfterS(): number {
     return Math.max(1, Math.ceil((this.pending * this.meanTaskMs) / this.options.threads / 1000));
   }
+}
+
+/**
+ * The memory behind those arrays that is theirs alone: a Buffer cut from Node's shared pool
+ * (Buffer.poolSize bytes, for small Buffers) is copied instead, as moving it would take its neighbours
+ * too. Larger memory is taken to be the caller's to give (an upload's, see `upload-storage.ts`).
+ */
+function transferable(arrays: readonly Uint8Array[]): ArrayBuffer[] {
+  return arrays.flatMap(({ buffer, byteOffset, byteLength }) =>
+    buffer instanceof ArrayBuffer &&
+    byteLength > 0 &&
+    ((byteOffset === 0 && byteLength === buffer.byteLength) || buffer.byteLength > Buffer.poolSize)
+      ? [buffer]
+      : [],
+  );
 }
 
 const unavailable = (detail: string, retryAfterS: number): ProblemError =>

@@ -1,11 +1,21 @@
 import { speedOfSoundMps } from '../../shared/acoustics/speed-of-sound';
 import { analyzeImpulseResponse } from '../../shared/analysis/analyze-impulse-response';
+import { detectArrival, signalLevel } from '../../shared/analysis/level';
 import type { RoomDimensions } from '../../shared/analysis/room-modes';
 import { MIN_SMOOTHING_OCTAVES } from '../../shared/analysis/smoothing';
-import { decodeWav } from '../../shared/analysis/wav-decode';
+import { openWav } from '../../shared/analysis/wav-decode';
+import { analyzeSweepRecording } from '../../shared/capture/sweep-analysis';
 import { fitParametricEq, type EqFitInput } from '../../shared/eq-fit/fit-parametric-eq';
+import { CalculationInputError } from '../../shared/errors';
+import {
+  planStoredRoom,
+  type StoredMeasurement,
+  type StoredPlanOverrides,
+  type StoredRoom,
+} from '../../shared/plan';
 import { requirePlanBudget } from '../../shared/plan/plan-budget';
 import { planRoom, type PlanInput } from '../../shared/plan/plan-room';
+import type { ValidInput } from '../http/validate';
 
 /** A WAV impulse response to decode and analyse (an upload to the analysis route or to a room). */
 export interface WavAnalysisInput {
@@ -15,38 +25,122 @@ export interface WavAnalysisInput {
   channel?: number;
   /** The request field that names the channel, for errors (default `/channel`). */
   channelField?: string;
+  /**
+   * Another channel of the same file holding the timing reference (loopback): its arrival is detected
+   * as the loudspeaker's is and answered as `timingReferenceMs`.
+   */
+  referenceChannel?: number;
+  /** The request field that names the reference channel, for errors. */
+  referenceChannelField?: string;
   smoothingOctaves: number;
   room?: RoomDimensions;
   temperatureC: number;
 }
 
 function analyseWav(input: WavAnalysisInput) {
-  const wav = decodeWav(input.bytes, { channel: input.channel, channelField: input.channelField });
-  const analysis = analyzeImpulseResponse(wav.samples, wav.sampleRateHz, {
+  const wav = openWav(input.bytes);
+  const measured = wav.channel(input.channel, input.channelField ?? '/channel');
+  const analysis = analyzeImpulseResponse(measured.samples, wav.sampleRateHz, {
     smoothingOctaves: Math.max(MIN_SMOOTHING_OCTAVES, input.smoothingOctaves),
     room: input.room,
     speedOfSoundMps: speedOfSoundMps(input.temperatureC),
   });
-  const { sampleRateHz, channelCount, channelIndex, encoding, durationS } = wav;
+  const { sampleRateHz, channelCount, encoding, durationS } = wav;
   return {
-    file: { sampleRateHz, channelCount, channelIndex, encoding, durationS },
-    analysis: { ...analysis, warnings: [...wav.warnings, ...analysis.warnings] },
+    file: { sampleRateHz, channelCount, channelIndex: measured.channelIndex, encoding, durationS },
+    analysis: { ...analysis, warnings: [...measured.warnings, ...analysis.warnings] },
+    ...(input.referenceChannel !== undefined && {
+      timingReferenceMs: referenceArrivalMs(wav, input.referenceChannel, input.referenceChannelField),
+    }),
   };
+}
+
+/** The arrival in a file's timing-reference (loopback) channel, ms from the file's start. */
+function referenceArrivalMs(wav: ReturnType<typeof openWav>, channel: number, field = '/referenceChannel') {
+  const loop = wav.channel(channel, field);
+  const level = signalLevel(loop.samples);
+  if (level.peakDbfs < -120) throw new CalculationInputError('the timing-reference channel is silent', field);
+  return detectArrival(loop.samples, wav.sampleRateHz, level).arrivalMs;
+}
+
+type SweepForm = ValidInput<'analyzeSweepRecording'>['body'];
+
+/** A recorded sweep to decode, cut and analyse: the upload's form, the file and the room it was taken in. */
+export interface SweepWavInput {
+  bytes: Uint8Array;
+  /** The validated form (defaults filled in); the room dimensions come as `room`. */
+  form: Omit<SweepForm, 'roomWidthM' | 'roomLengthM' | 'roomHeightM'>;
+  room?: RoomDimensions;
+}
+
+function analyseSweepWav({ bytes, form, room }: SweepWavInput) {
+  const wav = openWav(bytes);
+  const { sampleRateHz: fs } = wav;
+  const measured = wav.channel(form.channel, '/channel');
+  const reference =
+    form.referenceChannel === undefined ? undefined : wav.channel(form.referenceChannel, '/referenceChannel');
+  const from = Math.round(form.offsetS * fs);
+  if (from >= wav.frameCount) {
+    throw new CalculationInputError(
+      `offsetS must lie inside the file (${wav.durationS.toFixed(3)} s); received ${form.offsetS} s`,
+      '/offsetS',
+    );
+  }
+  const to =
+    form.lengthS === undefined
+      ? wav.frameCount
+      : Math.min(wav.frameCount, from + Math.round(form.lengthS * fs));
+  const analysis = analyzeSweepRecording(
+    measured.samples.subarray(from, to),
+    {
+      sampleRateHz: fs,
+      startHz: form.startHz,
+      endHz: form.endHz,
+      durationS: form.durationS,
+      fadeInS: form.fadeInS,
+      fadeOutS: form.fadeOutS,
+      levelDbfs: form.levelDbfs,
+      silenceAfterS: 0,
+    },
+    {
+      method: form.method,
+      reference: reference?.samples.subarray(from, to),
+      smoothingOctaves: Math.max(MIN_SMOOTHING_OCTAVES, form.smoothingOctaves),
+      room,
+      speedOfSoundMps: speedOfSoundMps(form.temperatureC),
+    },
+  );
+  const { channelCount, encoding, durationS } = wav;
+  return {
+    ...analysis,
+    warnings: [...measured.warnings, ...(reference?.warnings ?? []), ...analysis.warnings],
+    file: { sampleRateHz: fs, channelCount, channelIndex: measured.channelIndex, encoding, durationS },
+  };
+}
+
+/** A stored room's plan: the room and its measurements as read from the database, and the request's overrides. */
+export interface StoredPlanInput {
+  room: StoredRoom;
+  measurements: StoredMeasurement[];
+  overrides: StoredPlanOverrides;
 }
 
 /**
  * Work too heavy for the event loop, by name: each entry calls the pure functions of `shared/` and
- * runs in a worker thread (`runHeavy` in `heavy-work.ts`). To move another heavy calculation off the
+ * runs in a worker thread (`HeavyWork.run` in `heavy-work.ts`). To move another heavy calculation off the
  * event loop, add it here; its input and answer must survive the structured clone (plain data,
  * typed arrays; no functions or class instances).
  */
 export const tasks = {
   analyseWav,
+  analyseSweepWav,
   fitEq: (input: EqFitInput) => fitParametricEq(input),
   planRoom: (input: PlanInput) => {
     requirePlanBudget(input);
     return planRoom(input);
   },
+  planStoredRoom: ({ room, measurements, overrides }: StoredPlanInput) =>
+    planStoredRoom(room, measurements, overrides),
 };
 
 export type TaskName = keyof typeof tasks;

@@ -1,6 +1,18 @@
+import os from 'node:os';
+import { isMainThread, workerData } from 'node:worker_threads';
 import { SignalProblemError, type SignalProblemCode } from '../../shared/analysis/signal-problem';
 import { CalculationInputError } from '../../shared/errors';
 import { tasks, type TaskName } from './tasks';
+
+/**
+ * On Linux a thread's nice value is its own (setpriority(PRIO_PROCESS, 0, …) names the calling thread,
+ * see the NOTES of Linux's setpriority(2)), so this lowers the priority of this worker thread alone,
+ * by `nice` steps below the process's: when the event loop's thread and a heavy task both want a core,
+ * the scheduler gives it to the event loop first, and a cheap request does not wait behind a time slice
+ * of heavy work. The pool passes 0 on other systems, where the call would renice the whole process.
+ */
+const nice = isMainThread ? 0 : ((workerData as { nice?: number } | null)?.nice ?? 0);
+if (nice > 0) os.setPriority(0, Math.min(19, os.getPriority(0) + nice));
 
 export interface TaskRequest {
   task: TaskName;

@@ -27,6 +27,12 @@ async function main(): Promise<void> {
     LOG_LEVEL: 'warn',
     // The per-user ceiling, like the key's own limit, set high enough never to refuse.
     USER_RATE_LIMIT_PER_MINUTE: '10000000',
+    // The heavy-work settings as the caller's environment gives them (else the service's defaults).
+    ...Object.fromEntries(
+      ['HEAVY_WORK_THREADS', 'HEAVY_WORK_QUEUE_LIMIT', 'HEAVY_WORK_NICE'].flatMap((name) =>
+        process.env[name] === undefined ? [] : [[name, process.env[name] as string]],
+      ),
+    ),
   });
   const services = await createServices(config);
   const { secret, prefix, lastFour } = generateKeySecret('test');

@@ -1,3 +1,5 @@
+import { monitorEventLoopDelay, performance } from 'node:perf_hooks';
+
 /** Messages between `bench/run.ts` and a target server running in its own process. */
 export interface ReadyMessage {
   type: 'ready';
@@ -15,17 +17,28 @@ export interface CpuMessage {
   toUs: number;
 }
 
+/** Answer to `loop-report`: the event loop's delay since the last `loop-mark`, in milliseconds. */
+export interface LoopDelayMessage {
+  type: 'loop';
+  p50Ms: number;
+  p99Ms: number;
+  maxMs: number;
+  /** Share of the window the event loop's thread spent running (not waiting for I/O), 0–1. */
+  utilization: number;
+}
+
 export interface StoppedMessage {
   type: 'stopped';
   /** Calls the usage meter wrote to the database (full chain only). */
   meteredCalls?: number;
 }
 
-export type TargetMessage = ReadyMessage | CpuMessage | StoppedMessage;
+export type TargetMessage = ReadyMessage | CpuMessage | LoopDelayMessage | StoppedMessage;
 
 /**
- * Tells the parent where to send load; on `mark` starts counting CPU time, on `report` answers it, and
- * on `stop` shuts down cleanly.
+ * Tells the parent where to send load; on `mark` starts counting CPU time, on `report` answers it; on
+ * `loop-mark` starts recording the event loop's delay (perf_hooks.monitorEventLoopDelay, 1 ms
+ * resolution) and utilisation, on `loop-report` answers them; on `stop` shuts down cleanly.
  */
 export function serveUntilStopped(
   port: number,
@@ -36,8 +49,24 @@ export function serveUntilStopped(
   const monotonicUs = () => Number(process.hrtime.bigint() / 1000n);
   let mark = process.cpuUsage();
   let markedUs = monotonicUs();
+  const loopDelay = monitorEventLoopDelay({ resolution: 1 });
+  let loopMark = performance.eventLoopUtilization();
   process.on('message', (message) => {
-    if (message === 'mark') {
+    if (message === 'loop-mark') {
+      loopDelay.reset();
+      loopDelay.enable();
+      loopMark = performance.eventLoopUtilization();
+    } else if (message === 'loop-report') {
+      loopDelay.disable();
+      const ms = (ns: number) => ns / 1e6;
+      send({
+        type: 'loop',
+        p50Ms: ms(loopDelay.percentile(50)),
+        p99Ms: ms(loopDelay.percentile(99)),
+        maxMs: ms(loopDelay.max),
+        utilization: performance.eventLoopUtilization(loopMark).utilization,
+      });
+    } else if (message === 'mark') {
       mark = process.cpuUsage();
       markedUs = monotonicUs();
     } else if (message === 'report') {

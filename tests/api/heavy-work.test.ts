@@ -1,4 +1,7 @@
 import request from 'supertest';
+import { WaveFile } from 'wavefile';
+import { STAGE3_ROOM } from '../../seeds/demo-stage3-room';
+import { exponentialSweep } from '../../shared/capture/sweep';
 import { MAX_EQ_BANDS, MAX_FIT_POINTS, MAX_PLAN_FITS } from '../../shared/limits';
 import { createTestContext, type TestContext } from '../support/test-context';
 
@@ -122,5 +125,122 @@ describe('heavy work on worker threads', () => {
     expect(res.status).toBe(422);
     expect(res.body.type).toBe('https://isochron.dev/problems/unusable-audio');
     expect(res.body.errors[0].pointer).toBe('/body/file');
+  });
+});
+
+/** A 1 s sweep (20 Hz–20 kHz at 48 kHz, −12 dBFS) recorded 2 ms late with 0.3 s of room after it, 24-bit. */
+function sweepWav(): Buffer {
+  const played = exponentialSweep({
+    sampleRateHz: 48000,
+    startHz: 20,
+    endHz: 20000,
+    durationS: 1,
+    fadeInS: 0.05,
+    fadeOutS: 0.01,
+    levelDbfs: -12,
+    silenceAfterS: 0,
+  });
+  const recorded = new Array<number>(played.length + 0.3 * 48000).fill(0);
+  played.forEach((v, i) => (recorded[i + 96] = Math.round(v * 8388607)));
+  const file = new WaveFile();
+  file.fromScratch(1, 48000, '24', recorded);
+  return Buffer.from(file.toBuffer());
+}
+
+describe('every heavy route waits for the pool, and is refused while it is full', () => {
+  let roomId: string;
+  const tuning = () => ({ Authorization: `Bearer ${ctx.keys.tuning}` });
+  beforeAll(async () => {
+    const room = await request(ctx.app).post('/v1/rooms').set(tuning()).send(structuredClone(STAGE3_ROOM));
+    expect(room.status).toBe(201);
+    roomId = room.body.id;
+  });
+
+  const routes: Array<[string, () => request.Test]> = [
+    [
+      'POST /v1/analysis/sweep',
+      () =>
+        request(ctx.app)
+          .post('/v1/analysis/sweep')
+          .set('Authorization', `Bearer ${ctx.keys.calculate}`)
+          .field('durationS', '1')
+          .attach('file', sweepWav(), 'sweep.wav'),
+    ],
+    [
+      'POST /v1/rooms/{roomId}/plans',
+      () => request(ctx.app).post(`/v1/rooms/${roomId}/plans`).set(tuning()).send({}),
+    ],
+    [
+      'POST /v1/rooms/{roomId}/measurements (a WAV impulse response)',
+      () =>
+        request(ctx.app)
+          .post(`/v1/rooms/${roomId}/measurements`)
+          .set(tuning())
+          .field('channel', 'M+030')
+          .attach('file', sweepWav(), 'ir.wav'),
+    ],
+  ];
+
+  /**
+   * Keeps the pool full until released: fit after fit, each started in the same turn the last one ends
+   * in (only microtasks run between), so an upload still arriving meets a full pool whenever it lands.
+   */
+  function holdPool(): () => Promise<void> {
+    let held = true;
+    const holding = (async () => {
+      while (held) await ctx.services.work.run('fitEq', heaviestFit);
+    })();
+    return async () => {
+      held = false;
+      await holding;
+    };
+  }
+
+  it.each(routes)('%s: 503 heavy-work-busy with Retry-After while the pool is full', async (_name, send) => {
+    const release = holdPool();
+    expect(ctx.services.work.inFlight).toBe(ctx.services.work.capacity);
+    const refused = await send();
+    await release();
+    expect(refused.status).toBe(503);
+    expect(Number(refused.headers['retry-after'])).toBeGreaterThanOrEqual(1);
+    expect(refused.body.type).toBe('https://isochron.dev/problems/heavy-work-busy');
+  });
+
+  it.each(routes)('%s: answered from the worker once the pool is free', async (_name, send) => {
+    const res = await send();
+    expect(res.status).toBeLessThan(300);
+    expect(ctx.services.work.inFlight).toBe(0);
+  });
+
+  it('a sweep cut outside the file is refused by the worker as a 422 naming the field', async () => {
+    const res = await request(ctx.app)
+      .post('/v1/analysis/sweep')
+      .set('Authorization', `Bearer ${ctx.keys.calculate}`)
+      .field('durationS', '1')
+      .field('offsetS', '5')
+      .attach('file', sweepWav(), 'sweep.wav');
+    expect(res.status).toBe(422);
+    expect(res.body.errors).toEqual([
+      { pointer: '/body/offsetS', message: expect.stringMatching(/inside the file/) },
+    ]);
+  });
+
+  it('a silent loopback channel of an upload is refused by the worker, naming the field', async () => {
+    const file = new WaveFile();
+    const mic = new Array<number>(48000).fill(0);
+    mic[480] = 4_000_000;
+    file.fromScratch(2, 48000, '24', [mic, new Array<number>(48000).fill(0)]);
+    const res = await request(ctx.app)
+      .post(`/v1/rooms/${roomId}/measurements`)
+      .set(tuning())
+      .field('channel', 'M+030')
+      .field('fileChannel', '0')
+      .field('referenceFileChannel', '1')
+      .attach('file', Buffer.from(file.toBuffer()), 'ir.wav');
+    expect(res.status).toBe(422);
+    expect(res.body.errors[0]).toEqual({
+      pointer: '/body/referenceFileChannel',
+      message: expect.stringMatching(/silent/),
+    });
   });
 });
