@@ -24,7 +24,7 @@ export function v1Router(services: Services): Router {
   router.use(layoutsRouter());
   router.use(calculationsRouter(services));
   router.use(analysisRouter(services));
-  router.use(testSignalsRouter());
+  router.use(testSignalsRouter(services));
   router.use(usersRouter(services));
   router.use(outboxRouter(services));
   router.use(keysRouter(services));

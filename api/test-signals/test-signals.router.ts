@@ -1,17 +1,21 @@
 import { Router } from 'express';
-import { fieldsForOtherKinds, makeTestSignal, type TestSignal } from '../../shared/capture/test-signal';
+import { fieldsForOtherKinds, type TestSignal } from '../../shared/capture/test-signal';
 import { requirePermission } from '../auth/permissions';
 import { badRequest, ProblemError } from '../http/problem';
 import { validate } from '../http/validate';
-import { wavFile } from './wav-file';
+import type { Services } from '../services';
+import { whenClientGone } from '../work/heavy-work';
 
-/** POST /v1/test-signals: a sweep, pink noise or a layout's sweep sequence, as WAV or as its description. */
-export function testSignalsRouter(): Router {
+/**
+ * POST /v1/test-signals: a sweep, pink noise or a layout's sweep sequence, as WAV or as its description.
+ * Generated and written on a worker thread (a file may be 64 MiB); the file comes back without a copy.
+ */
+export function testSignalsRouter({ work }: Services): Router {
   const router = Router();
   router.post(
     '/test-signals',
     requirePermission('calculate'),
-    validate('createTestSignal', ({ body }, req, res) => {
+    validate('createTestSignal', async ({ body }, req, res) => {
       const wanted = req.accepts(['audio/wav', 'application/json']);
       if (!wanted) {
         throw new ProblemError({
@@ -30,13 +34,18 @@ export function testSignalsRouter(): Router {
           })),
         );
       }
-      const { channels, signal } = makeTestSignal(body);
-      if (wanted === 'application/json') return res.json(signal);
+      const json = wanted === 'application/json';
+      const { signal, wav } = await work.run(
+        'testSignal',
+        { request: body, wav: !json },
+        whenClientGone(res),
+      );
+      if (json || !wav) return res.json(signal);
       return res
         .type('audio/wav')
         .attachment(fileName(signal))
         .set('Test-Signal-Caution', asciiCaution(signal))
-        .send(wavFile(channels, signal.sampleRateHz, signal.encoding));
+        .send(Buffer.from(wav.buffer, wav.byteOffset, wav.byteLength));
     }),
   );
   return router;

@@ -217,6 +217,19 @@ describe('HeavyWork tasks answer what the direct calculation answers', () => {
     expect(small.toString('latin1', 8, 12)).toBe('WAVE');
   });
 
+  it('makes a test signal on the worker, its WAV file moved back byte for byte', async () => {
+    const request = { kind: 'sweep' as const, sampleRateHz: 48000, encoding: 'pcm24' as const, durationS: 2 };
+    const direct = tasks.testSignal({ request, wav: true });
+    const pooled = await work.run('testSignal', { request, wav: true });
+    expect(pooled.signal).toEqual(direct.signal);
+    expect(Buffer.from(pooled.wav as Uint8Array).equals(Buffer.from(direct.wav as Uint8Array))).toBe(true);
+    // As long as the description says: 24-bit mono at 48 kHz after a 44-byte header.
+    expect(pooled.wav?.byteLength).toBe(pooled.signal.sizeBytes);
+    expect((pooled.signal.sizeBytes - 44) % 3).toBe(0);
+    const described = await work.run('testSignal', { request, wav: false });
+    expect(described).toEqual({ signal: direct.signal, wav: null });
+  });
+
   it('detects the timing reference in the loopback channel on the worker', async () => {
     // Two channels: the loudspeaker's impulse at 10 ms, the loopback's at 2 ms.
     const file = new WaveFile();

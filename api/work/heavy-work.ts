@@ -3,7 +3,7 @@ import type { Response } from 'express';
 import { Piscina } from 'piscina';
 import { ProblemError } from '../http/problem';
 import type { TaskInput, TaskName, TaskOutput } from './tasks';
-import { reviveRefusal, runTask, type TaskReply, type TaskRequest } from './worker';
+import { reviveRefusal, runTask, transferable, type TaskReply, type TaskRequest } from './worker';
 
 export interface HeavyWorkOptions {
   /** Worker threads running heavy tasks side by side. */
@@ -77,7 +77,7 @@ export class HeavyWork {
       let reply: TaskReply;
       try {
         reply = (await this.start().run(request, {
-          name: 'runTask',
+          name: 'runPooledTask',
           signal,
           transferList: transferable(transfer),
         })) as TaskReply;
@@ -118,21 +118,6 @@ export class HeavyWork {
   private retryAfterS(): number {
     return Math.max(1, Math.ceil((this.pending * this.meanTaskMs) / this.options.threads / 1000));
   }
-}
-
-/**
- * The memory behind those arrays that is theirs alone: a Buffer cut from Node's shared pool
- * (Buffer.poolSize bytes, for small Buffers) is copied instead, as moving it would take its neighbours
- * too. Larger memory is taken to be the caller's to give (an upload's, see `upload-storage.ts`).
- */
-function transferable(arrays: readonly Uint8Array[]): ArrayBuffer[] {
-  return arrays.flatMap(({ buffer, byteOffset, byteLength }) =>
-    buffer instanceof ArrayBuffer &&
-    byteLength > 0 &&
-    ((byteOffset === 0 && byteLength === buffer.byteLength) || buffer.byteLength > Buffer.poolSize)
-      ? [buffer]
-      : [],
-  );
 }
 
 const unavailable = (detail: string, retryAfterS: number): ProblemError =>

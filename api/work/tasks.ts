@@ -5,6 +5,7 @@ import type { RoomDimensions } from '../../shared/analysis/room-modes';
 import { MIN_SMOOTHING_OCTAVES } from '../../shared/analysis/smoothing';
 import { openWav } from '../../shared/analysis/wav-decode';
 import { analyzeSweepRecording } from '../../shared/capture/sweep-analysis';
+import { makeTestSignal, type TestSignalRequest } from '../../shared/capture/test-signal';
 import { fitParametricEq, type EqFitInput } from '../../shared/eq-fit/fit-parametric-eq';
 import { CalculationInputError } from '../../shared/errors';
 import {
@@ -16,6 +17,8 @@ import {
 import { requirePlanBudget } from '../../shared/plan/plan-budget';
 import { planRoom, type PlanInput } from '../../shared/plan/plan-room';
 import type { ValidInput } from '../http/validate';
+import { wavFile } from '../test-signals/wav-file';
+import { movingBack } from './worker';
 
 /** A WAV impulse response to decode and analyse (an upload to the analysis route or to a room). */
 export interface WavAnalysisInput {
@@ -126,6 +129,17 @@ export interface StoredPlanInput {
 }
 
 /**
+ * A test signal and, unless only its description is wanted, its WAV file (up to 64 MiB: generating and
+ * writing it takes seconds at 192 kHz); the file's memory moves back instead of being copied.
+ */
+function testSignal({ request, wav }: { request: TestSignalRequest; wav: boolean }) {
+  const { channels, signal } = makeTestSignal(request);
+  if (!wav) return { signal, wav: null };
+  const file: Uint8Array = wavFile(channels, signal.sampleRateHz, signal.encoding);
+  return movingBack({ signal, wav: file }, [file]);
+}
+
+/**
  * Work too heavy for the event loop, by name: each entry calls the pure functions of `shared/` and
  * runs in a worker thread (`HeavyWork.run` in `heavy-work.ts`). To move another heavy calculation off the
  * event loop, add it here; its input and answer must survive the structured clone (plain data,
@@ -141,6 +155,7 @@ export const tasks = {
   },
   planStoredRoom: ({ room, measurements, overrides }: StoredPlanInput) =>
     planStoredRoom(room, measurements, overrides),
+  testSignal,
 };
 
 export type TaskName = keyof typeof tasks;

@@ -1,5 +1,6 @@
 import os from 'node:os';
 import { isMainThread, workerData } from 'node:worker_threads';
+import { Piscina } from 'piscina';
 import { SignalProblemError, type SignalProblemCode } from '../../shared/analysis/signal-problem';
 import { CalculationInputError } from '../../shared/errors';
 import { tasks, type TaskName } from './tasks';
@@ -50,6 +51,45 @@ export function runTask({ task, input }: TaskRequest): TaskReply {
       },
     };
   }
+}
+
+/**
+ * The memory behind those arrays that is theirs alone: a Buffer cut from Node's shared pool
+ * (Buffer.poolSize bytes, for small Buffers) is copied instead, as moving it would take its neighbours
+ * too. Larger memory is taken to be the caller's to give (an upload's, see `upload-storage.ts`).
+ */
+export function transferable(arrays: readonly Uint8Array[]): ArrayBuffer[] {
+  return arrays.flatMap(({ buffer, byteOffset, byteLength }) =>
+    buffer instanceof ArrayBuffer &&
+    byteLength > 0 &&
+    ((byteOffset === 0 && byteLength === buffer.byteLength) || buffer.byteLength > Buffer.poolSize)
+      ? [buffer]
+      : [],
+  );
+}
+
+/** Arrays of a task's answer whose memory goes back to the event loop's thread without a copy. */
+const movingOut = new WeakMap<object, ArrayBuffer[]>();
+
+/**
+ * Marks `arrays` of a task's answer `value` to be moved, not copied, to the thread that asked: for large
+ * answers (a generated WAV file), whose copy would otherwise be made on the event loop when it arrives.
+ * Arrays cut from Node's shared pool (small Buffers) are copied instead.
+ */
+export function movingBack<T extends object>(value: T, arrays: readonly Uint8Array[]): T {
+  movingOut.set(value, transferable(arrays));
+  return value;
+}
+
+/** The pool's entry: {@link runTask}, with the arrays an answer marked with {@link movingBack} moved. */
+export function runPooledTask(request: TaskRequest): TaskReply {
+  const reply = runTask(request);
+  const moving =
+    reply.ok && typeof reply.value === 'object' && reply.value !== null && movingOut.get(reply.value);
+  if (!moving) return reply;
+  // piscina's Transferable: the reply is sent with `moving` in its transfer list.
+  const movable = { [Piscina.transferableSymbol]: moving, [Piscina.valueSymbol]: reply };
+  return Piscina.move(movable as unknown as Parameters<typeof Piscina.move>[0]) as unknown as TaskReply;
 }
 
 /** The error the core threw in the worker, as the same class on this side. */
