@@ -250,10 +250,10 @@ function roomSummary(
   const { modes, truncated, found } = roomModes(room, speedOfSoundMps, modesUpToHz, MAX_LISTED_MODES);
   const lowestModeHz = speedOfSoundMps / (2 * Math.max(room.widthM, room.lengthM, room.heightM));
   const cutAtHz = truncated ? modes[modes.length - 1].frequencyHz : null;
-  if (truncated) {
+  if (cutAtHz !== null) {
     warnings.push({
       code: 'modesTruncated',
-      message: `${found} modes lie below ${modesUpToHz.toFixed(1)} Hz; only the lowest ${modes.length} are listed (up to ${cutAtHz!.toFixed(1)} Hz), as more would say nothing a response plot does not.`,
+      message: `${found} modes lie below ${modesUpToHz.toFixed(1)} Hz; only the lowest ${modes.length} are listed (up to ${cutAtHz.toFixed(1)} Hz), as more would say nothing a response plot does not.`,
     });
   }
   if (found === 0) {
