@@ -1,4 +1,5 @@
 import { Router } from 'express';
+import { playedSweep } from '../../shared/capture/sweep-wav';
 import { requirePermission } from '../auth/permissions';
 import { badRequest } from '../http/problem';
 import { validate, type UploadedFile, type ValidInput } from '../http/validate';
@@ -60,13 +61,25 @@ async function analyseUpload(
 type SweepForm = ValidInput<'analyzeSweepRecording'>['body'];
 
 /** A recorded sweep's analysis, with what was read from the file. */
-async function analyseSweepUpload(work: HeavyWork, body: SweepForm, file: UploadedFile, signal: AbortSignal) {
-  const { roomWidthM, roomLengthM, roomHeightM, ...form } = body;
-  const room = roomOf({ roomWidthM, roomLengthM, roomHeightM });
-  const analysis = await work.run('analyseSweepWav', { bytes: file.buffer, form, room }, signal, [
-    file.buffer,
-  ]);
-  return { ...analysis, file: { sizeBytes: file.size, ...analysis.file } };
+async function analyseSweepUpload(work: HeavyWork, form: SweepForm, file: UploadedFile, signal: AbortSignal) {
+  const { file: read, ...analysis } = await work.run(
+    'analyseSweepWav',
+    {
+      bytes: file.buffer,
+      channel: form.channel,
+      referenceChannel: form.referenceChannel,
+      offsetS: form.offsetS,
+      lengthS: form.lengthS,
+      sweep: playedSweep(form),
+      method: form.method,
+      smoothingOctaves: form.smoothingOctaves,
+      room: roomOf(form),
+      temperatureC: form.temperatureC,
+    },
+    signal,
+    [file.buffer],
+  );
+  return { ...analysis, file: { sizeBytes: file.size, ...read } };
 }
 
 /** The room dimensions, all three or none. */

@@ -5,11 +5,12 @@ import { STAGE3_ROOM, STAGE3_SPL_DB } from '../../seeds/demo-stage3-room';
 import { stage3MeasuredResponses } from '../../seeds/demo-stage3-measurements';
 import { SignalProblemError } from '../../shared/analysis/signal-problem';
 import { exponentialSweep, type SweepSpec } from '../../shared/capture/sweep';
+import { playedSweep, type SweepWavInput } from '../../shared/capture/sweep-wav';
 import { CalculationInputError } from '../../shared/errors';
 import { planStoredRoom, type StoredMeasurement } from '../../shared/plan';
 import { ProblemError } from '../http/problem';
 import { HeavyWork } from './heavy-work';
-import { tasks, type StoredPlanInput, type SweepWavInput } from './tasks';
+import { tasks, type StoredPlanInput } from './tasks';
 
 // A fit the core accepts, and the same with frequencies out of order (the core refuses that).
 const measured = { frequenciesHz: [20, 100, 1000, 10000], magnitudeDb: [0, 6, 0, 0] };
@@ -111,18 +112,11 @@ function sweepRecording(): Buffer {
 }
 const sweepForm = (bytes: Uint8Array): SweepWavInput => ({
   bytes,
-  form: {
-    startHz: sweep.startHz,
-    endHz: sweep.endHz,
-    durationS: sweep.durationS,
-    fadeInS: sweep.fadeInS,
-    fadeOutS: sweep.fadeOutS,
-    levelDbfs: sweep.levelDbfs,
-    offsetS: 0,
-    method: 'regularizedDivision',
-    smoothingOctaves: 1 / 12,
-    temperatureC: 20,
-  },
+  sweep: playedSweep(sweep),
+  offsetS: 0,
+  method: 'regularizedDivision',
+  smoothingOctaves: 1 / 12,
+  temperatureC: 20,
   room: STAGE3_ROOM.dimensions,
 });
 
@@ -192,7 +186,7 @@ describe('HeavyWork tasks answer what the direct calculation answers', () => {
   it('gives back the refusal of a sweep cut outside the file, naming the field', async () => {
     const input = sweepForm(sweepRecording());
     const refusal = await work
-      .run('analyseSweepWav', { ...input, form: { ...input.form, offsetS: 5 } })
+      .run('analyseSweepWav', { ...input, offsetS: 5 })
       .catch((e: unknown) => e);
     expect(refusal).toBeInstanceOf(CalculationInputError);
     expect((refusal as CalculationInputError).field).toBe('/offsetS');

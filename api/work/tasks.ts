@@ -4,7 +4,7 @@ import { detectArrival, signalLevel } from '../../shared/analysis/level';
 import type { RoomDimensions } from '../../shared/analysis/room-modes';
 import { MIN_SMOOTHING_OCTAVES } from '../../shared/analysis/smoothing';
 import { openWav } from '../../shared/analysis/wav-decode';
-import { analyzeSweepRecording } from '../../shared/capture/sweep-analysis';
+import { analyseSweepWav } from '../../shared/capture/sweep-wav';
 import { makeTestSignal, type TestSignalRequest } from '../../shared/capture/test-signal';
 import { fitParametricEq, type EqFitInput } from '../../shared/eq-fit/fit-parametric-eq';
 import { CalculationInputError } from '../../shared/errors';
@@ -16,7 +16,6 @@ import {
 } from '../../shared/plan';
 import { requirePlanBudget } from '../../shared/plan/plan-budget';
 import { planRoom, type PlanInput } from '../../shared/plan/plan-room';
-import type { ValidInput } from '../http/validate';
 import { wavFile } from '../test-signals/wav-file';
 import { movingBack } from './worker';
 
@@ -64,61 +63,6 @@ function referenceArrivalMs(wav: ReturnType<typeof openWav>, channel: number, fi
   const level = signalLevel(loop.samples);
   if (level.peakDbfs < -120) throw new CalculationInputError('the timing-reference channel is silent', field);
   return detectArrival(loop.samples, wav.sampleRateHz, level).arrivalMs;
-}
-
-type SweepForm = ValidInput<'analyzeSweepRecording'>['body'];
-
-/** A recorded sweep to decode, cut and analyse: the upload's form, the file and the room it was taken in. */
-export interface SweepWavInput {
-  bytes: Uint8Array;
-  /** The validated form (defaults filled in); the room dimensions come as `room`. */
-  form: Omit<SweepForm, 'roomWidthM' | 'roomLengthM' | 'roomHeightM'>;
-  room?: RoomDimensions;
-}
-
-function analyseSweepWav({ bytes, form, room }: SweepWavInput) {
-  const wav = openWav(bytes);
-  const { sampleRateHz: fs } = wav;
-  const measured = wav.channel(form.channel, '/channel');
-  const reference =
-    form.referenceChannel === undefined ? undefined : wav.channel(form.referenceChannel, '/referenceChannel');
-  const from = Math.round(form.offsetS * fs);
-  if (from >= wav.frameCount) {
-    throw new CalculationInputError(
-      `offsetS must lie inside the file (${wav.durationS.toFixed(3)} s); received ${form.offsetS} s`,
-      '/offsetS',
-    );
-  }
-  const to =
-    form.lengthS === undefined
-      ? wav.frameCount
-      : Math.min(wav.frameCount, from + Math.round(form.lengthS * fs));
-  const analysis = analyzeSweepRecording(
-    measured.samples.subarray(from, to),
-    {
-      sampleRateHz: fs,
-      startHz: form.startHz,
-      endHz: form.endHz,
-      durationS: form.durationS,
-      fadeInS: form.fadeInS,
-      fadeOutS: form.fadeOutS,
-      levelDbfs: form.levelDbfs,
-      silenceAfterS: 0,
-    },
-    {
-      method: form.method,
-      reference: reference?.samples.subarray(from, to),
-      smoothingOctaves: Math.max(MIN_SMOOTHING_OCTAVES, form.smoothingOctaves),
-      room,
-      speedOfSoundMps: speedOfSoundMps(form.temperatureC),
-    },
-  );
-  const { channelCount, encoding, durationS } = wav;
-  return {
-    ...analysis,
-    warnings: [...measured.warnings, ...(reference?.warnings ?? []), ...analysis.warnings],
-    file: { sampleRateHz: fs, channelCount, channelIndex: measured.channelIndex, encoding, durationS },
-  };
 }
 
 /** A stored room's plan: the room and its measurements as read from the database, and the request's overrides. */
