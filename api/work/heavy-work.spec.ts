@@ -185,9 +185,7 @@ describe('HeavyWork tasks answer what the direct calculation answers', () => {
 
   it('gives back the refusal of a sweep cut outside the file, naming the field', async () => {
     const input = sweepForm(sweepRecording());
-    const refusal = await work
-      .run('analyseSweepWav', { ...input, offsetS: 5 })
-      .catch((e: unknown) => e);
+    const refusal = await work.run('analyseSweepWav', { ...input, offsetS: 5 }).catch((e: unknown) => e);
     expect(refusal).toBeInstanceOf(CalculationInputError);
     expect((refusal as CalculationInputError).field).toBe('/offsetS');
   });
