@@ -68,12 +68,10 @@ describe('sessionExpiryInterceptor', () => {
     session = TestBed.inject(SessionService);
     router = TestBed.inject(Router);
     const signedIn = firstValueFrom(session.signIn('dev@example.test', 'pw'));
-    http
-      .expectOne('/auth/session')
-      .flush({
-        user: { id: 'usr_1', email: 'dev@example.test', role: 'developer' },
-        permissions: ['tuning'],
-      });
+    http.expectOne('/auth/session').flush({
+      user: { id: 'usr_1', email: 'dev@example.test', role: 'developer' },
+      permissions: ['tuning'],
+    });
     await signedIn;
     navigate = vi.spyOn(router, 'navigate').mockResolvedValue(true);
   });
