@@ -99,7 +99,7 @@ async function main(): Promise<void> {
   const ready = await next<ReadyMessage>('ready');
   const load = (seconds: number) =>
     autocannon({
-      url: `http://127.0.0.1:${ready.port}${TARGET === 'full-chain.ts' ? '/v1/biquads' : '/echo'}`,
+      url: `http://127.0.0.1:${ready.port}${TARGET.endsWith('echo.ts') ? '/echo' : '/v1/biquads'}`,
       method: 'POST',
       headers: { 'content-type': 'application/json', ...ready.headers },
       body: BODY,
