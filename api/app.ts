@@ -8,6 +8,7 @@ import { refuseNulInUrl } from './http/nul-guard';
 import { fixedSecurityHeaders } from './http/security-headers';
 import { requestId } from './http/request-id';
 import { notFoundHandler, problemHandler } from './http/problem';
+import { presentNumbersInAnswers } from './http/present';
 import { createRateLimiter } from './rate-limit/rate-limiter';
 import { createUserRateLimiter } from './rate-limit/user-ceiling';
 import { getContract } from './http/validate';
@@ -28,6 +29,7 @@ export function createApp(services: Services): Express {
   app.disable('x-powered-by');
   app.set('trust proxy', config.trustProxyHops);
   app.set('json spaces', 0);
+  presentNumbersInAnswers(app);
 
   // Request id, the NUL guard and the security headers as one layer: every response carries them.
   const securityHeaders = fixedSecurityHeaders(
