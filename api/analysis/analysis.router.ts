@@ -1,6 +1,9 @@
 import { Router } from 'express';
+import { decayPlotsOf, type DecayPlotFields } from '../../shared/analysis/decay-plots';
 import { analyseSweepWav, playedSweep } from '../../shared/capture/sweep-wav';
+import { callerOf } from '../auth/actor';
 import { requirePermission } from '../auth/permissions';
+import { MicrophonesService, withMicrophone } from '../microphones/microphones.service';
 import { badRequest } from '../http/problem';
 import { validate, type UploadedFile, type ValidInput } from '../http/validate';
 import type { Services } from '../services';
@@ -10,22 +13,25 @@ import { whenClientGone, type HeavyWork } from '../work/heavy-work';
  * POST /v1/analysis/impulse-response: arrival, level, smoothed response and decay times of one WAV
  * file. Decoding and analysis run on a worker thread.
  */
-export function analysisRouter({ work }: Services): Router {
+export function analysisRouter({ work, db }: Services): Router {
   const router = Router();
+  const microphones = new MicrophonesService(db, work);
   router.post(
     '/analysis/impulse-response',
     requirePermission('calculate'),
-    validate('analyzeImpulseResponse', async ({ body, file }, _req, res) => {
-      res.json(await analyseUpload(work, body, file, whenClientGone(res)));
+    validate('analyzeImpulseResponse', async ({ body, file }, req, res) => {
+      const mic = await microphones.resolve(callerOf(req), body.microphoneId, '/microphoneId');
+      res.json(withMicrophone(await analyseUpload(work, body, file, whenClientGone(res)), mic, 0));
     }),
   );
   // On the main thread for now: a 10 s sweep at 48 kHz takes about 100 ms of CPU (npm run bench).
   router.post(
     '/analysis/sweep',
     requirePermission('calculate'),
-    validate('analyzeSweepRecording', ({ body, file }, _req, res) =>
-      res.json(analyseSweepUpload(body, file)),
-    ),
+    validate('analyzeSweepRecording', async ({ body, file }, req, res) => {
+      const mic = await microphones.resolve(callerOf(req), body.microphoneId, '/microphoneId');
+      res.json(withMicrophone(analyseSweepUpload(body, file), mic, body.levelDbfs));
+    }),
   );
   return router;
 }
@@ -39,7 +45,7 @@ interface RoomFields {
 /** A WAV upload's analysis, with what was read from the file. */
 async function analyseUpload(
   work: HeavyWork,
-  form: RoomFields & { channel?: number; smoothingOctaves: number; temperatureC: number },
+  form: RoomFields & DecayPlotFields & { channel?: number; smoothingOctaves: number; temperatureC: number },
   file: UploadedFile,
   signal: AbortSignal,
 ) {
@@ -51,6 +57,7 @@ async function analyseUpload(
       smoothingOctaves: form.smoothingOctaves,
       room: roomOf(form),
       temperatureC: form.temperatureC,
+      decayPlots: decayPlotsOf(form),
     },
     signal,
   );
@@ -72,6 +79,7 @@ export function analyseSweepUpload(form: SweepForm, file: UploadedFile) {
     smoothingOctaves: form.smoothingOctaves,
     room: roomOf(form),
     temperatureC: form.temperatureC,
+    decayPlots: decayPlotsOf(form),
   });
   return { ...analysis, file: { sizeBytes: file.size, ...read } };
 }

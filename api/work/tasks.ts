@@ -1,8 +1,10 @@
 import { speedOfSoundMps } from '../../shared/acoustics/speed-of-sound';
 import { analyzeImpulseResponse } from '../../shared/analysis/analyze-impulse-response';
+import type { DecayPlotOptions } from '../../shared/analysis/decay-plots';
 import type { RoomDimensions } from '../../shared/analysis/room-modes';
 import { MIN_SMOOTHING_OCTAVES } from '../../shared/analysis/smoothing';
 import { decodeWav } from '../../shared/analysis/wav-decode';
+import { readCalibratorWav } from '../../shared/capture/calibrator';
 import { analyseSweepWav } from '../../shared/capture/sweep-wav';
 import { fitParametricEq, type EqFitInput } from '../../shared/eq-fit/fit-parametric-eq';
 import { requirePlanBudget } from '../../shared/plan/plan-budget';
@@ -19,6 +21,7 @@ export interface WavAnalysisInput {
   smoothingOctaves: number;
   room?: RoomDimensions;
   temperatureC: number;
+  decayPlots?: DecayPlotOptions;
 }
 
 function analyseWav(input: WavAnalysisInput) {
@@ -27,6 +30,7 @@ function analyseWav(input: WavAnalysisInput) {
     smoothingOctaves: Math.max(MIN_SMOOTHING_OCTAVES, input.smoothingOctaves),
     room: input.room,
     speedOfSoundMps: speedOfSoundMps(input.temperatureC),
+    decayPlots: input.decayPlots,
   });
   const { sampleRateHz, channelCount, channelIndex, encoding, durationS } = wav;
   return {
@@ -44,6 +48,7 @@ function analyseWav(input: WavAnalysisInput) {
 export const tasks = {
   analyseWav,
   analyseSweepWav,
+  readCalibratorWav,
   fitEq: (input: EqFitInput) => fitParametricEq(input),
   planRoom: (input: PlanInput) => {
     requirePlanBudget(input);
