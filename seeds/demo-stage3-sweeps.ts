@@ -111,7 +111,7 @@ function syntheticRecording(channel: string, sweep: Float64Array, seed: number):
   return Buffer.from(wav.toBuffer());
 }
 
-/** Stores the demo microphone and "Stage 3 — measured by sweeps"; runs after the demo users. */
+/** Stores the demo microphone and Stage 3's layout measured by sweeps; runs after the demo users. */
 export async function seedDemoStage3Sweeps(services: Services): Promise<void> {
   const { User, Room, Measurement, Microphone } = services.db.models;
   const owner = await User.findOne({ where: { email: DEMO_OWNER_EMAIL } });
@@ -138,7 +138,8 @@ export async function seedDemoStage3Sweeps(services: Services): Promise<void> {
       {
         id: newId('room'),
         ownerId: owner.id,
-        name: 'Stage 3 — measured by sweeps',
+        // Named without "Stage 3" so the demo's own room keeps a name no other room shares.
+        name: 'Mix room measured by sweeps (demo)',
         layoutId: layout.id,
         dimensions: STAGE3_ROOM.dimensions,
         listener: STAGE3_ROOM.listener,
@@ -146,7 +147,7 @@ export async function seedDemoStage3Sweeps(services: Services): Promise<void> {
         limits: STAGE3_ROOM.limits,
         sampleRateHz: STAGE3_ROOM.sampleRateHz,
         profileId: null,
-        notes: `${DEMO_ROOM_NOTE} Every channel measured by a synthetic sweep with the demo microphone and a loopback.`,
+        notes: `${DEMO_ROOM_NOTE} Stage 3's layout, every channel measured by a synthetic sweep with the demo microphone and a loopback.`,
       },
       { transaction },
     );

@@ -63,5 +63,6 @@ describe('demo seed: the demo microphone and Stage 3 measured by sweeps', () => 
       });
       expect(m.result.frequencyResponse.splDb).toHaveLength(m.result.frequencyResponse.magnitudeDb.length);
     }
-  });
+    // Twelve sweeps are analysed while seeding: a generous cap for a busy machine (not a timing check).
+  }, 120000);
 });
