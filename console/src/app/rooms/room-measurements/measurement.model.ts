@@ -96,6 +96,8 @@ export interface EqFitRequest {
   maxBands: number;
   maxBoostDb: number;
   maxCutDb: number;
+  /** The room's volume and measured reverberation time, for the transition frequency the fit starts below. */
+  room?: { volumeM3: number; reverberationTimeS?: number };
 }
 
 export interface EqFitResult {
