@@ -7,6 +7,7 @@ import { layoutsRouter } from './layouts/layouts.router';
 import { outboxRouter } from './mail/outbox.router';
 import { profilesRouter } from './profiles/profiles.router';
 import { measurementsRouter } from './measurements/measurements.router';
+import { microphonesRouter } from './microphones/microphones.router';
 import { roomPlansRouter } from './room-plans/room-plans.router';
 import { roomsRouter } from './rooms/rooms.router';
 import { targetCurvesRouter } from './target-curves/target-curves.router';
@@ -38,5 +39,6 @@ export function v1Router(services: Services): RequestHandler {
     roomPlansRouter(services),
     tuningsRouter(services),
     targetCurvesRouter(services),
+    microphonesRouter(services),
   ]);
 }

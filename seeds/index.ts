@@ -2,6 +2,7 @@ import type { Services } from '../api/services';
 import { seedDemoPlatform } from './demo-platform';
 import { seedDemoStage3 } from './demo-stage3';
 import { seedDemoStage3Measurements } from './demo-stage3-stored-measurements';
+import { seedDemoStage3Sweeps } from './demo-stage3-sweeps';
 import { seedDemoStage3Verification } from './demo-stage3-verification';
 
 /**
@@ -14,6 +15,7 @@ export async function loadDemoData(services: Services): Promise<boolean> {
   await seedDemoStage3(services);
   await seedDemoStage3Measurements(services);
   await seedDemoStage3Verification(services);
+  await seedDemoStage3Sweeps(services);
   services.logger.info('loaded the demo data (Kestrel Yard Post, demo only)');
   return true;
 }

@@ -69,6 +69,10 @@ export const MAX_RESPONSE_POINTS = 4096;
 export const NAME_MAX_LENGTH = 120;
 /** Most measurement ids a room plan may include or exclude by name. */
 export const MAX_PLAN_MEASUREMENT_IDS = 1000;
+/** Most rows of a microphone calibration (real ones have tens to a few hundred, from memory). */
+export const MAX_CALIBRATION_POINTS = 4096;
+/** Largest calibration deviation accepted, dB either way: a measurement microphone's stays within a few dB (from memory). */
+export const MAX_CALIBRATION_DB = 40;
 /** Longest channel label or microphone position. */
 export const LABEL_MAX_LENGTH = 32;
 
@@ -152,6 +156,28 @@ export const LIMITS = {
   'MeasurementUpload.notes': { maxLength: 2000 },
   'MeasurementUpload.temperatureC': { ...TEMPERATURE_RANGE_C, default: 20 },
   'MeasurementUpload.startHz': { minimum: 1, maximum: 20000 },
+  // Decay plots: at most 128 × 256 values (about 0.3 MB of JSON) per plot.
+  decaySlices: { minimum: 2, maximum: 128, default: 32 },
+  decayBins: { minimum: 16, maximum: 256, default: 96 },
+  decayFromHz: { minimum: 1, maximum: 96000, default: 20 },
+  decayToHz: { minimum: 10, maximum: 96000, default: 20000 },
+  decaySpanMs: { minimum: 1, maximum: 2000, default: 300 },
+  waterfallWindowMs: { minimum: 2, maximum: 3000, default: 500 },
+  spectrogramWindowMs: { minimum: 1, maximum: 1000, default: 50 },
+  'MicrophoneCreate.name': { minLength: 1, maxLength: NAME_MAX_LENGTH },
+  'MicrophoneCreate.serial': { minLength: 1, maxLength: 64 },
+  'MicrophoneCreate.notes': { maxLength: 4000 },
+  'MicrophoneCreate.calibrationText': { minLength: 1, maxLength: 262144 },
+  'MicrophoneCreate.calibrationFileName': { minLength: 1, maxLength: 255 },
+  'MicrophoneUpdate.name': { minLength: 1, maxLength: NAME_MAX_LENGTH },
+  'MicrophoneUpdate.serial': { minLength: 1, maxLength: 64 },
+  'MicrophoneUpdate.notes': { maxLength: 4000 },
+  'MicrophoneUpdate.calibrationText': { minLength: 1, maxLength: 262144 },
+  'MicrophoneUpdate.calibrationFileName': { minLength: 1, maxLength: 255 },
+  mvPerPa: { minimum: 0.01, maximum: 10000 },
+  dbfsAt94DbSpl: { minimum: -160, maximum: 0 },
+  'CalibratorUpload.channel': { minimum: 0, maximum: 127 },
+  'CalibratorUpload.inputGain': { minLength: 1, maxLength: NAME_MAX_LENGTH },
   'MeasurementUpload.endHz': { minimum: 10, maximum: 96000 },
   'MeasurementUpload.durationS': { minimum: 0.1, maximum: 60 },
   'MeasurementUpload.fadeInS': { minimum: 0, maximum: 5 },

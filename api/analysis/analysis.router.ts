@@ -1,6 +1,9 @@
 import { Router } from 'express';
+import { decayPlotsOf, type DecayPlotFields } from '../../shared/analysis/decay-plots';
 import { playedSweep } from '../../shared/capture/sweep-wav';
+import { callerOf } from '../auth/actor';
 import { requirePermission } from '../auth/permissions';
+import { MicrophonesService, withMicrophone } from '../microphones/microphones.service';
 import { badRequest } from '../http/problem';
 import { validate, type UploadedFile, type ValidInput } from '../http/validate';
 import type { Services } from '../services';
@@ -11,20 +14,25 @@ import { whenClientGone, type HeavyWork } from '../work/heavy-work';
  * file; POST /v1/analysis/sweep: a recorded sweep deconvolved and analysed. Decoding and analysis run on
  * a worker thread; the uploaded file's memory moves there rather than being copied.
  */
-export function analysisRouter({ work }: Services): Router {
+export function analysisRouter({ work, db }: Services): Router {
   const router = Router();
+  const microphones = new MicrophonesService(db, work);
   router.post(
     '/analysis/impulse-response',
     requirePermission('calculate'),
-    validate('analyzeImpulseResponse', async ({ body, file }, _req, res) => {
-      res.json(await analyseUpload(work, body, file, whenClientGone(res)));
+    validate('analyzeImpulseResponse', async ({ body, file }, req, res) => {
+      const mic = await microphones.resolve(callerOf(req), body.microphoneId, '/microphoneId');
+      res.json(withMicrophone(await analyseUpload(work, body, file, whenClientGone(res)), mic, 0));
     }),
   );
   router.post(
     '/analysis/sweep',
     requirePermission('calculate'),
-    validate('analyzeSweepRecording', async ({ body, file }, _req, res) => {
-      res.json(await analyseSweepUpload(work, body, file, whenClientGone(res)));
+    validate('analyzeSweepRecording', async ({ body, file }, req, res) => {
+      const mic = await microphones.resolve(callerOf(req), body.microphoneId, '/microphoneId');
+      res.json(
+        withMicrophone(await analyseSweepUpload(work, body, file, whenClientGone(res)), mic, body.levelDbfs),
+      );
     }),
   );
   return router;
@@ -39,7 +47,7 @@ interface RoomFields {
 /** A WAV upload's analysis, with what was read from the file. */
 async function analyseUpload(
   work: HeavyWork,
-  form: RoomFields & { channel?: number; smoothingOctaves: number; temperatureC: number },
+  form: RoomFields & DecayPlotFields & { channel?: number; smoothingOctaves: number; temperatureC: number },
   file: UploadedFile,
   signal: AbortSignal,
 ) {
@@ -51,6 +59,7 @@ async function analyseUpload(
       smoothingOctaves: form.smoothingOctaves,
       room: roomOf(form),
       temperatureC: form.temperatureC,
+      decayPlots: decayPlotsOf(form),
     },
     signal,
     [file.buffer],
@@ -75,6 +84,7 @@ async function analyseSweepUpload(work: HeavyWork, form: SweepForm, file: Upload
       smoothingOctaves: form.smoothingOctaves,
       room: roomOf(form),
       temperatureC: form.temperatureC,
+      decayPlots: decayPlotsOf(form),
     },
     signal,
     [file.buffer],

@@ -3,16 +3,19 @@ import { powerAverageResampled } from '../../shared/analysis/spatial-average';
 import type { Database } from '../db/database';
 import { newId } from '../db/ids';
 import type { Measurement } from '../db/models/measurement';
+import type { Microphone } from '../db/models/microphone';
 import { pageOf, type Page, type PageRequest } from '../db/pagination';
 import type { UploadedFile } from '../http/validate';
 import { notFound, ProblemError } from '../http/problem';
 import { findRoomFor, roomStillThere, type Caller } from '../rooms/room-access';
+import { MicrophonesService, withMicrophone } from '../microphones/microphones.service';
 import type { HeavyWork } from '../work/heavy-work';
 import { measurementDto } from './measurement-dto';
 import {
   contentFromFile,
   contentFromJson,
   requireRoomChannel,
+  type MeasurementContent,
   type JsonMeasurement,
   type UploadForm,
 } from './measurement-input';
@@ -31,10 +34,13 @@ interface Labels {
 
 /** Measurements of a stored room: uploads analysed on arrival and stored whole, or not at all. */
 export class MeasurementsService {
+  private readonly microphones: MicrophonesService;
   constructor(
     private readonly db: Database,
     private readonly work: HeavyWork,
-  ) {}
+  ) {
+    this.microphones = new MicrophonesService(db, work);
+  }
 
   /** A multipart upload (`file` with its form fields) or a JSON measurement. */
   async create(
@@ -44,9 +50,16 @@ export class MeasurementsService {
   ): Promise<MeasurementView> {
     const room = await findRoomFor(caller, this.db.models, roomId);
     requireRoomChannel(room, input.body.channel);
-    const content = input.file
-      ? await contentFromFile(this.work, input.file, input.body, room)
-      : contentFromJson(input.body);
+    const body = input.body;
+    const microphoneId =
+      'microphoneId' in body && typeof body.microphoneId === 'string' ? body.microphoneId : undefined;
+    const mic = await this.microphones.resolve(caller, microphoneId, '/microphoneId');
+    const content = correctedBy(
+      input.file
+        ? await contentFromFile(this.work, input.file, input.body, room)
+        : contentFromJson(input.body),
+      mic,
+    );
     const labels: Labels = input.body;
     const loaded = await this.loadedTuning(room.id, labels);
     const row = await this.db.write(async (transaction) => {
@@ -160,6 +173,30 @@ export class MeasurementsService {
     if (!measurement) throw notFound(`No measurement ${measurementId} in room ${room.id}.`);
     return measurement;
   }
+}
+
+/**
+ * A measurement's content corrected with the microphone it names: an impulse response's analysis (in dB SPL
+ * too with an offset, referred to the sweep's level or to 0 dBFS) or a frequency response (its reference is
+ * unknown, so no SPL). SPL readings name no microphone.
+ */
+export function correctedBy(content: MeasurementContent, mic: Microphone | undefined): MeasurementContent {
+  if (!mic || content.kind === 'spl') return content;
+  type Analysed = Parameters<typeof withMicrophone>[0];
+  if (content.kind === 'impulseResponse') {
+    const played = content.source.sweep?.levelDbfs ?? 0;
+    return { ...content, result: withMicrophone(content.result as unknown as Analysed, mic, played) };
+  }
+  const response = content.result as unknown as Analysed['frequencyResponse'];
+  const { frequencyResponse, warnings, microphone } = withMicrophone(
+    { frequencyResponse: response, warnings: [] },
+    mic,
+    null,
+  );
+  return {
+    ...content,
+    result: { ...frequencyResponse, microphone, ...(warnings.length > 0 && { warnings }) },
+  };
 }
 
 /** Measurements of a stage; rows stored before stages existed count as "before". */

@@ -1,9 +1,11 @@
 import { speedOfSoundMps } from '../../shared/acoustics/speed-of-sound';
 import { analyzeImpulseResponse } from '../../shared/analysis/analyze-impulse-response';
 import { detectArrival, signalLevel } from '../../shared/analysis/level';
+import type { DecayPlotOptions } from '../../shared/analysis/decay-plots';
 import type { RoomDimensions } from '../../shared/analysis/room-modes';
 import { MIN_SMOOTHING_OCTAVES } from '../../shared/analysis/smoothing';
 import { openWav } from '../../shared/analysis/wav-decode';
+import { readCalibratorWav } from '../../shared/capture/calibrator';
 import { analyseSweepWav } from '../../shared/capture/sweep-wav';
 import { makeTestSignal, type TestSignalRequest } from '../../shared/capture/test-signal';
 import { fitParametricEq, type EqFitInput } from '../../shared/eq-fit/fit-parametric-eq';
@@ -37,6 +39,7 @@ export interface WavAnalysisInput {
   smoothingOctaves: number;
   room?: RoomDimensions;
   temperatureC: number;
+  decayPlots?: DecayPlotOptions;
 }
 
 function analyseWav(input: WavAnalysisInput) {
@@ -46,6 +49,7 @@ function analyseWav(input: WavAnalysisInput) {
     smoothingOctaves: Math.max(MIN_SMOOTHING_OCTAVES, input.smoothingOctaves),
     room: input.room,
     speedOfSoundMps: speedOfSoundMps(input.temperatureC),
+    decayPlots: input.decayPlots,
   });
   const { sampleRateHz, channelCount, encoding, durationS } = wav;
   return {
@@ -92,6 +96,7 @@ function testSignal({ request, wav }: { request: TestSignalRequest; wav: boolean
 export const tasks = {
   analyseWav,
   analyseSweepWav,
+  readCalibratorWav,
   fitEq: (input: EqFitInput) => fitParametricEq(input),
   planRoom: (input: PlanInput) => {
     requirePlanBudget(input);

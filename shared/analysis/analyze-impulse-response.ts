@@ -1,10 +1,11 @@
+import { cumulativeSpectralDecay, spectrogram, type DecayPlot, type DecayPlotOptions } from './decay-plots';
 import { requireInRange } from '../errors';
 import { logFrequencyGrid } from '../dsp/grid';
 import { sosfilt } from '../dsp/sosfilt';
 import { designBandPass } from './band-filter';
 import { decayTimes, type DecayTimes } from './decay';
 import { bandCentreHz, bandEdgesHz, nominalOctaveCentreHz } from './iec-bands';
-import { detectArrival, signalLevel, type Arrival, type SignalLevel } from './level';
+import { detectArrival, signalLevel, ZERO_DB, type Arrival, type SignalLevel } from './level';
 import {
   roomModes,
   roomVolumeM3,
@@ -28,6 +29,8 @@ export interface ImpulseResponseAnalysisOptions {
   room?: RoomDimensions;
   /** Speed of sound for the modes, m/s (default 343.2, air at 20 °C). */
   speedOfSoundMps?: number;
+  /** Decay over frequency to add: a waterfall, a spectrogram, or both. */
+  decayPlots?: DecayPlotOptions;
 }
 
 export interface BandDecay extends DecayTimes {
@@ -52,6 +55,8 @@ export interface ImpulseResponseAnalysis {
     /** Why the list ends where it does, and how much of it is listed. */
     modesLimit: ModesLimit;
   };
+  waterfall?: DecayPlot;
+  spectrogram?: DecayPlot;
   warnings: AnalysisWarning[];
 }
 
@@ -118,7 +123,7 @@ export function analyzeImpulseResponse(
   const level = signalLevel(samples);
   if (level.peakDbfs < SILENCE_DBFS) {
     throw new SignalProblemError(
-      `The signal is silent: its peak is ${level.peakDbfs <= -300 ? 'digital zero' : level.peakDbfs.toFixed(1) + ' dBFS'}, below ${SILENCE_DBFS} dBFS.`,
+      `The signal is silent: its peak is ${level.peakDbfs === ZERO_DB ? 'digital zero' : level.peakDbfs.toFixed(1) + ' dBFS'}, below ${SILENCE_DBFS} dBFS.`,
       'silent',
     );
   }
@@ -178,6 +183,18 @@ export function analyzeImpulseResponse(
     },
     warnings,
   };
+  const plots = options.decayPlots;
+  if (plots?.waterfall) {
+    analysis.waterfall = cumulativeSpectralDecay(
+      samples,
+      sampleRateHz,
+      arrival.arrivalSample,
+      plots.waterfall,
+    );
+  }
+  if (plots?.spectrogram) {
+    analysis.spectrogram = spectrogram(samples, sampleRateHz, arrival.arrivalSample, plots.spectrogram);
+  }
   if (options.room) {
     analysis.room = roomSummary(
       options.room,

@@ -14,10 +14,10 @@ export interface SignalLevel {
   peakSample: number;
 }
 
-/** Level floor reported for digital silence, dB. */
-const FLOOR_DB = -300;
+/** What a true zero (digital silence) reads, dB; any energy at all reads its own level, however low. */
+export const ZERO_DB = -300;
 
-const toDb = (power: number): number => (power > 0 ? Math.max(FLOOR_DB, 10 * Math.log10(power)) : FLOOR_DB);
+const toDb = (power: number): number => (power > 0 ? 10 * Math.log10(power) : ZERO_DB);
 
 /**
  * Peak, RMS, energy and tail-noise levels of an impulse response. The noise is read from the last 10 % of

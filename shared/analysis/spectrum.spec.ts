@@ -47,6 +47,19 @@ describe('FFT frequency response (fft.js) with fractional-octave smoothing', () 
     expectWithin(response.magnitudeDb[2], -3.0103, 0.002, 'fs/4');
   });
 
+  it('keeps the phase inside (−180°, 180°] for every alignment, and says −300 dB only for a true zero', () => {
+    // Delays of every fraction of a period put phases right at ±180° (atan2 of −0 and negative reals).
+    for (const delay of [1, 2, 3, 7, 24, 48, 333]) {
+      const response = smoothedResponse(realSpectrum(impulseAt(delay, 4096, -1), fs), 0, 1 / 48, grid);
+      for (const deg of response.phaseDeg) expect(deg > -180 && deg <= 180).toBe(true);
+    }
+    // An impulse of 1e-100 has power 1e-200 in every bin (−2000 dB): tiny, not zero; all zeros is the true zero.
+    const tiny = smoothedResponse(realSpectrum(impulseAt(0, 1024, 1e-100), fs), 0, 1 / 12, [1000]);
+    expect(tiny.magnitudeDb[0]).toBeCloseTo(-2000, 6);
+    const zero = smoothedResponse(realSpectrum(new Float64Array(1024), fs), 0, 1 / 12, [1000]);
+    expect(zero.magnitudeDb[0]).toBe(-300);
+  });
+
   it('pads to the next power of two', () => {
     expect(realSpectrum(new Float64Array(1000), fs).fftSize).toBe(1024);
     expect(realSpectrum(new Float64Array(1025), fs).re).toHaveLength(2048 / 2 + 1);

@@ -1,3 +1,4 @@
+import { ZERO_DB } from './level';
 import FFT from 'fft.js';
 import { CalculationInputError, requireInRange } from '../errors';
 import { wrapDegrees } from '../dsp/response';
@@ -108,7 +109,8 @@ export function smoothedResponse(
   const smoothIm = fractionalOctaveMean(binHz, alignedIm, smoothingOctaves, gridHz);
   return {
     frequenciesHz: [...gridHz],
-    magnitudeDb: Array.from(smoothPower, (p) => 10 * Math.log10(Math.max(p, 1e-30))),
+    // −300 dB only for a true zero (no energy in the window); anything else reads its own level.
+    magnitudeDb: Array.from(smoothPower, (p) => (p > 0 ? 10 * Math.log10(p) : ZERO_DB)),
     phaseDeg: Array.from(smoothRe, (r, i) => wrapDegrees((Math.atan2(smoothIm[i], r) * 180) / Math.PI)),
   };
 }

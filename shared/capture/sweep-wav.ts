@@ -1,4 +1,5 @@
 import { speedOfSoundMps } from '../acoustics/speed-of-sound';
+import type { DecayPlotOptions } from '../analysis/decay-plots';
 import type { RoomDimensions } from '../analysis/room-modes';
 import { MIN_SMOOTHING_OCTAVES } from '../analysis/smoothing';
 import { openWav, type WavEncoding } from '../analysis/wav-decode';
@@ -36,6 +37,7 @@ export interface SweepWavInput {
   smoothingOctaves: number;
   room?: RoomDimensions;
   temperatureC: number;
+  decayPlots?: DecayPlotOptions;
   /** The request fields naming the channels, for errors (default `/channel`, `/referenceChannel`). */
   fields?: { channel?: string; referenceChannel?: string };
 }
@@ -92,6 +94,7 @@ export function analyseSweepWav(input: SweepWavInput): SweepWavAnalysis {
       smoothingOctaves: Math.max(MIN_SMOOTHING_OCTAVES, input.smoothingOctaves),
       room: input.room,
       speedOfSoundMps: speedOfSoundMps(input.temperatureC),
+      decayPlots: input.decayPlots,
     },
   );
   const { channelCount, encoding, durationS } = wav;

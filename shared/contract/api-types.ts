@@ -619,6 +619,100 @@ export type paths = {
         patch?: never;
         trace?: never;
     };
+    "/v1/microphones": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * List your measurement microphones
+         * @description Your microphones, oldest first, with their calibrations. Microphones are private to their owner: no
+         *     other user sees them, admins included. Cursor pagination.
+         */
+        get: operations["listMicrophones"];
+        put?: never;
+        /**
+         * Store a measurement microphone with its calibration
+         * @description A microphone (role `tuning`): `name`, `serial`, and optionally its calibration file's text in
+         *     `calibrationText` — two or three columns (frequency in Hz, the microphone's deviation in dB, optional
+         *     phase in degrees), separated by commas, tabs or spaces (semicolons with decimal commas too); blank
+         *     lines, comment lines (`#`, `*`, `;`, `//`, `%`, `!`) and heading lines before the data are skipped.
+         *     2 to 4096 rows, frequencies ascending, deviations within ±40 dB. A parse error is a 422 naming
+         *     `/body/calibrationText` whose message names the line (`line 7: …`).
+         *
+         *     `sensitivity` is the data sheet's figure, either `mvPerPa` or `dbfsAt94DbSpl` (the RMS level the
+         *     microphone reads through your interface at 94 dB SPL, dB re full scale as elsewhere in the API: raw
+         *     RMS, a full-scale sine reads −3.01 dBFS). The second gives the dBFS-to-SPL offset `94 − dbfsAt94DbSpl`;
+         *     mV/Pa alone cannot (the interface's gain is unknown) — record a calibrator for that
+         *     (`POST /v1/microphones/{microphoneId}/calibrator`).
+         *
+         *     Name the microphone in a measurement upload or an analysis (`microphoneId`): its deviation is
+         *     subtracted from the measured response (interpolated linearly on a log-frequency axis, held at the end
+         *     values beyond the calibration's range, with a warning), and with an offset the response is also
+         *     given in dB SPL.
+         */
+        post: operations["createMicrophone"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/v1/microphones/{microphoneId}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /** One of your microphones */
+        get: operations["getMicrophone"];
+        put?: never;
+        post?: never;
+        /**
+         * Delete a microphone
+         * @description Measurements corrected with it keep their results; a later request naming it gets a 422.
+         */
+        delete: operations["deleteMicrophone"];
+        options?: never;
+        head?: never;
+        /**
+         * Rename a microphone, replace its calibration or sensitivity, or change its notes
+         * @description `null` removes the serial, notes, calibration or sensitivity. A new sensitivity in dBFS replaces an
+         *     offset taken from a calibrator; removing the sensitivity removes an offset that came from it.
+         */
+        patch: operations["updateMicrophone"];
+        trace?: never;
+    };
+    "/v1/microphones/{microphoneId}/calibrator": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Turn a calibrator recording into the microphone's dBFS-to-SPL offset
+         * @description Upload a recording (WAV, the caps of the impulse-response upload) of a sound calibrator on the
+         *     microphone — 1 kHz at 94 dB SPL (1 Pa) or 114 dB SPL (IEC 60942) — through the input and gain you
+         *     measure with. The tone's RMS is read in the 1 kHz octave band (IEC 61260-1 band edges; the first and
+         *     last 0.25 s left out, at least 1 s needed) and the offset `calibratorLevelDb − rmsDbfs` is stored
+         *     (dB SPL = dBFS + offset), replacing any earlier one. It holds only for that input and gain: note the
+         *     gain in `inputGain`. A recording whose strongest tone is not within ±5 % of 1 kHz, that reaches full
+         *     scale or is silent is refused (422 `unusable-audio` naming `/body/file`). Noise or hum above the tone
+         *     by more than 0.5 dB adds a warning.
+         */
+        post: operations["readMicrophoneCalibrator"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
     "/v1/outbox": {
         parameters: {
             query?: never;
@@ -1599,6 +1693,32 @@ export type components = {
             sections: components["schemas"]["BiquadSection"][];
             warnings: components["schemas"]["Warning"][];
         };
+        CalibratorReading: {
+            analysedS: number;
+            /** @description Everything recorded, dBFS (raw RMS). */
+            broadbandRmsDbfs: number;
+            calibratorLevelDb: number;
+            /** @description The strongest tone found, Hz. */
+            measuredFrequencyHz: number;
+            /** @description The tone in the 1 kHz octave band, dBFS (raw RMS). */
+            rmsDbfs: number;
+            /** @description dB SPL = dBFS + splOffsetDb. */
+            splOffsetDb: number;
+            warnings: components["schemas"]["Warning"][];
+        };
+        CalibratorUpload: {
+            /**
+             * @description The calibrator's level, dB SPL.
+             * @enum {number}
+             */
+            calibratorLevelDb: 94 | 114;
+            /** @description 0-based channel holding the microphone; required when the file has more than one channel. */
+            channel?: number;
+            /** @description The recording (at most 20 MiB and 30 s). */
+            file: string;
+            /** @description The input and gain setting the offset holds for. */
+            inputGain?: string;
+        };
         Caution: {
             /** @example testSignalLevel */
             code: string;
@@ -1679,6 +1799,24 @@ export type components = {
             };
             sampleRateHz: number;
             warnings: components["schemas"]["Warning"][];
+        };
+        /**
+         * @description Decay over frequency: `levelDb[slice][bin]` in dB re the plot's largest value (0 dB at its top, −150 dB
+         *     floor), at `timesMs` after the arrival (a waterfall slice's start, a spectrogram window's centre) and
+         *     `frequenciesHz` (log-spaced; each the power average over its share of the axis, `binWidthOctaves`
+         *     wide). `window` names how each slice was windowed; `resolutionHz` is the finest detail it can show.
+         */
+        DecayPlot: {
+            binWidthOctaves: number;
+            frequenciesHz: number[];
+            levelDb: number[][];
+            resolutionHz: number;
+            timesMs: number[];
+            window: {
+                lengthMs: number;
+                name: string;
+                taperMs: number;
+            };
         };
         DecayTimes: {
             /** @description Early decay time, s (0 to −10 dB, ×6). */
@@ -1957,6 +2095,13 @@ export type components = {
                 magnitudeDb: number[];
                 phaseDeg: number[];
                 smoothingOctaves: number;
+                /**
+                 * @description With a microphone that has a dBFS-to-SPL offset: the level a sine at `splForPeakDbfs` peak
+                 *     would produce at the microphone, dB SPL (`magnitudeDb + splForPeakDbfs − 3.01 + offset`; the
+                 *     sweep's level for a recorded sweep, 0 dBFS for an impulse response).
+                 */
+                splDb?: number[];
+                splForPeakDbfs?: number;
             };
             level: {
                 energyDb: number;
@@ -1965,6 +2110,7 @@ export type components = {
                 peakToNoiseDb: number;
                 rmsDbfs: number;
             };
+            microphone?: components["schemas"]["MicrophoneCorrection"];
             room?: {
                 modes: {
                     frequencyHz: number;
@@ -1994,13 +2140,42 @@ export type components = {
                 volumeM3: number;
             };
             sampleRateHz: number;
+            spectrogram?: components["schemas"]["DecayPlot"];
             warnings: components["schemas"]["Warning"][];
+            waterfall?: components["schemas"]["DecayPlot"];
         };
         ImpulseResponseUpload: {
             /** @description 0-based channel to analyse; required when the file has more than one channel. */
             channel?: number;
+            /**
+             * @description Frequency points, log-spaced.
+             * @default 96
+             */
+            decayBins?: number;
+            /**
+             * @description Lowest plotted frequency, Hz.
+             * @default 20
+             */
+            decayFromHz?: number;
+            /**
+             * @description Time slices of the plots.
+             * @default 32
+             */
+            decaySlices?: number;
+            /**
+             * @description Arrival to the last slice, ms.
+             * @default 300
+             */
+            decaySpanMs?: number;
+            /**
+             * @description Highest plotted frequency, Hz (at most Nyquist).
+             * @default 20000
+             */
+            decayToHz?: number;
             /** @description The WAV file (at most 20 MiB and 30 s). */
             file: string;
+            /** @description One of your microphones (`POST /v1/microphones`) — its calibration is subtracted from the response and, with its offset, the response is also given in dB SPL. */
+            microphoneId?: components["schemas"]["MicrophoneId"];
             /** @description Inside height (z), metres. */
             roomHeightM?: number;
             /** @description Inside length (y), metres. */
@@ -2013,10 +2188,34 @@ export type components = {
              */
             smoothingOctaves?: number;
             /**
+             * @description Also answer a spectrogram: short-time spectra through a Hann window of `spectrogramWindowMs`,
+             *     centred from the arrival to `decaySpanMs` after it.
+             * @default false
+             */
+            spectrogram?: boolean;
+            /**
+             * @description Spectrogram window length, ms.
+             * @default 50
+             */
+            spectrogramWindowMs?: number;
+            /**
              * @description Air temperature for the modes.
              * @default 20
              */
             temperatureC?: number;
+            /**
+             * @description Also answer a cumulative spectral decay (`waterfall`): the spectrum of what is left of the response
+             *     from each slice's start to a fixed end `waterfallWindowMs` after the arrival, each slice starting
+             *     `decaySpanMs/(decaySlices − 1)` later (Berman & Fincham, JAES 25(6), 1977); rectangular start,
+             *     half-Hann end over the window's last fifth.
+             * @default false
+             */
+            waterfall?: boolean;
+            /**
+             * @description Fixed end of the waterfall after the arrival, ms (longer than decaySpanMs).
+             * @default 500
+             */
+            waterfallWindowMs?: number;
         };
         IntegrationCandidate: {
             /** @description Deepest point below the mean (worst main). */
@@ -2211,6 +2410,8 @@ export type components = {
             /** @constant */
             kind: "frequencyResponse";
             micPosition?: string;
+            /** @description One of your microphones; its calibration is subtracted from the response. */
+            microphoneId?: components["schemas"]["MicrophoneId"];
             name?: string;
             notes?: string;
             response?: {
@@ -2287,6 +2488,8 @@ export type components = {
             method?: "regularizedDivision" | "inverseFilter";
             /** @default 1 */
             micPosition?: string;
+            /** @description One of your microphones (`POST /v1/microphones`) — its calibration is subtracted from the response and, with its offset, the response is also given in dB SPL. */
+            microphoneId?: components["schemas"]["MicrophoneId"];
             name?: string;
             notes?: string;
             /** @description Start of the part analysed, s into the file — a sequence slot's startS (sweepRecording; default 0). */
@@ -2311,6 +2514,82 @@ export type components = {
             timingReferenceMs?: number;
             tuningId?: components["schemas"]["TuningId"];
             tuningVersion?: components["schemas"]["MeasuredTuningVersion"];
+        };
+        Microphone: {
+            /** @description The parsed calibration (the microphone's deviation, subtracted from measured responses), or null. */
+            calibration: null | {
+                fileName: string | null;
+                frequenciesHz: number[];
+                fromHz: number;
+                magnitudeDb: number[];
+                phaseDeg?: number[];
+                points: number;
+                toHz: number;
+            };
+            /** Format: date-time */
+            createdAt: string;
+            id: components["schemas"]["MicrophoneId"];
+            name: string;
+            notes: string | null;
+            sensitivity: null | components["schemas"]["MicrophoneSensitivity"];
+            serial: string | null;
+            /** @description dB SPL = dBFS + offsetDb, from the sensitivity in dBFS or a calibrator recording; null when neither. */
+            splOffset: null | {
+                calibratorLevelDb?: number;
+                inputGain?: string | null;
+                /** Format: date-time */
+                measuredAt?: string;
+                measuredFrequencyHz?: number;
+                offsetDb: number;
+                rmsDbfs?: number;
+                /** @enum {unknown} */
+                source: "sensitivity" | "calibrator";
+            };
+            /** Format: date-time */
+            updatedAt: string;
+        };
+        /** @description The microphone named by the request and what was done with it. */
+        MicrophoneCorrection: {
+            calibratedFromHz?: number;
+            calibratedToHz?: number;
+            /** @description The calibration was subtracted from the response (false without a calibration). */
+            correctionApplied: boolean;
+            /** @description Above this the last value was used. */
+            heldFlatAboveHz?: number | null;
+            /** @description Below this the first value was used (response points outside the calibration). */
+            heldFlatBelowHz?: number | null;
+            id: components["schemas"]["MicrophoneId"];
+            name: string;
+            phaseCorrected?: boolean;
+            serial: string | null;
+            /** @description dB SPL = dBFS + this, when the microphone has an offset. */
+            splOffsetDb: number | null;
+        };
+        MicrophoneCreate: {
+            calibrationFileName?: string;
+            /** @description The calibration file as text. */
+            calibrationText?: string;
+            name: string;
+            notes?: string;
+            sensitivity?: components["schemas"]["MicrophoneSensitivity"];
+            serial?: string;
+        };
+        /** @description A microphone id, as `POST /v1/microphones` answers it. */
+        MicrophoneId: string;
+        /** @description The data sheet's sensitivity, one of the two. */
+        MicrophoneSensitivity: {
+            /** @description RMS level read at 94 dB SPL, dBFS (raw RMS). */
+            dbfsAt94DbSpl?: number;
+            /** @description Output at 1 Pa (94 dB SPL), mV. */
+            mvPerPa?: number;
+        };
+        MicrophoneUpdate: {
+            calibrationFileName?: string | null;
+            calibrationText?: string | null;
+            name?: string;
+            notes?: string | null;
+            sensitivity?: components["schemas"]["MicrophoneSensitivity"] | null;
+            serial?: string | null;
         };
         OutboxMessage: {
             id: string;
@@ -2859,6 +3138,31 @@ export type components = {
             /** @description 0-based channel holding the microphone; required when the file has more than one channel. */
             channel?: number;
             /**
+             * @description Frequency points, log-spaced.
+             * @default 96
+             */
+            decayBins?: number;
+            /**
+             * @description Lowest plotted frequency, Hz.
+             * @default 20
+             */
+            decayFromHz?: number;
+            /**
+             * @description Time slices of the plots.
+             * @default 32
+             */
+            decaySlices?: number;
+            /**
+             * @description Arrival to the last slice, ms.
+             * @default 300
+             */
+            decaySpanMs?: number;
+            /**
+             * @description Highest plotted frequency, Hz (at most Nyquist).
+             * @default 20000
+             */
+            decayToHz?: number;
+            /**
              * @description Sweep T (fades included), s.
              * @default 10
              */
@@ -2886,6 +3190,8 @@ export type components = {
              * @enum {unknown}
              */
             method?: "regularizedDivision" | "inverseFilter";
+            /** @description One of your microphones (`POST /v1/microphones`) — its calibration is subtracted from the response and, with its offset, the response is also given in dB SPL. */
+            microphoneId?: components["schemas"]["MicrophoneId"];
             /**
              * @description Start of the part analysed, s into the file (a sequence slot's startS).
              * @default 0
@@ -2905,6 +3211,17 @@ export type components = {
              */
             smoothingOctaves?: number;
             /**
+             * @description Also answer a spectrogram: short-time spectra through a Hann window of `spectrogramWindowMs`,
+             *     centred from the arrival to `decaySpanMs` after it.
+             * @default false
+             */
+            spectrogram?: boolean;
+            /**
+             * @description Spectrogram window length, ms.
+             * @default 50
+             */
+            spectrogramWindowMs?: number;
+            /**
              * @description Sweep f1, Hz.
              * @default 20
              */
@@ -2914,6 +3231,19 @@ export type components = {
              * @default 20
              */
             temperatureC?: number;
+            /**
+             * @description Also answer a cumulative spectral decay (`waterfall`): the spectrum of what is left of the response
+             *     from each slice's start to a fixed end `waterfallWindowMs` after the arrival, each slice starting
+             *     `decaySpanMs/(decaySlices − 1)` later (Berman & Fincham, JAES 25(6), 1977); rectangular start,
+             *     half-Hann end over the window's last fifth.
+             * @default false
+             */
+            waterfall?: boolean;
+            /**
+             * @description Fixed end of the waterfall after the arrival, ms (longer than decaySpanMs).
+             * @default 500
+             */
+            waterfallWindowMs?: number;
         };
         /**
          * @description The response a channel should reach, in dB relative to its own level. `flat`: 0 dB. `tilt`: a
@@ -3551,6 +3881,11 @@ export type components = {
         /** @description Page size. */
         Limit: number;
         MeasurementIdPath: components["schemas"]["MeasurementId"];
+        /**
+         * @description A microphone id from `POST /v1/microphones` or `GET /v1/microphones`.
+         * @example mic_0mf3x1c2a9f8a7b6c5d4e
+         */
+        MicrophoneIdPath: components["schemas"]["MicrophoneId"];
         /** @example prof_0mf3x1d2a9f8a7b6c5d4e */
         ProfileIdPath: components["schemas"]["ProfileId"];
         /**
@@ -4359,6 +4694,223 @@ export interface operations {
             403: components["responses"]["Forbidden"];
             422: components["responses"]["Unprocessable"];
             429: components["responses"]["TooManyRequests"];
+        };
+    };
+    listMicrophones: {
+        parameters: {
+            query?: {
+                /** @description Page size. */
+                limit?: components["parameters"]["Limit"];
+                /** @description Cursor; the id of the last item of the previous page. */
+                startingAfter?: components["parameters"]["StartingAfter"];
+            };
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description One page of microphones. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": {
+                        data: components["schemas"]["Microphone"][];
+                        hasMore: boolean;
+                    };
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    createMicrophone: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["MicrophoneCreate"];
+            };
+        };
+        responses: {
+            /** @description The stored microphone. */
+            201: {
+                headers: {
+                    /** @description URL of the new microphone. */
+                    Location?: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Microphone"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            422: components["responses"]["Unprocessable"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    getMicrophone: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /**
+                 * @description A microphone id from `POST /v1/microphones` or `GET /v1/microphones`.
+                 * @example mic_0mf3x1c2a9f8a7b6c5d4e
+                 */
+                microphoneId: components["parameters"]["MicrophoneIdPath"];
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The microphone. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Microphone"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    deleteMicrophone: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /**
+                 * @description A microphone id from `POST /v1/microphones` or `GET /v1/microphones`.
+                 * @example mic_0mf3x1c2a9f8a7b6c5d4e
+                 */
+                microphoneId: components["parameters"]["MicrophoneIdPath"];
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description Deleted. */
+            204: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content?: never;
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    updateMicrophone: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /**
+                 * @description A microphone id from `POST /v1/microphones` or `GET /v1/microphones`.
+                 * @example mic_0mf3x1c2a9f8a7b6c5d4e
+                 */
+                microphoneId: components["parameters"]["MicrophoneIdPath"];
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["MicrophoneUpdate"];
+            };
+        };
+        responses: {
+            /** @description The changed microphone. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Microphone"];
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
+            422: components["responses"]["Unprocessable"];
+            429: components["responses"]["TooManyRequests"];
+        };
+    };
+    readMicrophoneCalibrator: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                /**
+                 * @description A microphone id from `POST /v1/microphones` or `GET /v1/microphones`.
+                 * @example mic_0mf3x1c2a9f8a7b6c5d4e
+                 */
+                microphoneId: components["parameters"]["MicrophoneIdPath"];
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "multipart/form-data": components["schemas"]["CalibratorUpload"];
+            };
+        };
+        responses: {
+            /** @description The microphone with its new offset, and the reading it came from. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": {
+                        microphone: components["schemas"]["Microphone"];
+                        reading: components["schemas"]["CalibratorReading"];
+                    };
+                };
+            };
+            400: components["responses"]["BadRequest"];
+            401: components["responses"]["Unauthorized"];
+            403: components["responses"]["Forbidden"];
+            404: components["responses"]["NotFound"];
+            /** @description The file is larger than 20 MiB. */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is not multipart/form-data. */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            422: components["responses"]["Unprocessable"];
+            429: components["responses"]["TooManyRequests"];
+            503: components["responses"]["Busy"];
         };
     };
     listOutbox: {
@@ -5952,8 +6504,8 @@ export interface operations {
 /** Per operation, the query parameters and top-level body properties that validation fills in with their default. */
 export type ValidatedDefaults = {
   acceptInvitation: { query: never; body: never };
-  analyzeImpulseResponse: { query: never; body: "smoothingOctaves" | "temperatureC" };
-  analyzeSweepRecording: { query: never; body: "startHz" | "endHz" | "durationS" | "fadeInS" | "fadeOutS" | "levelDbfs" | "method" | "offsetS" | "smoothingOctaves" | "temperatureC" };
+  analyzeImpulseResponse: { query: never; body: "smoothingOctaves" | "temperatureC" | "waterfall" | "spectrogram" | "decaySlices" | "decayBins" | "decayFromHz" | "decayToHz" | "decaySpanMs" | "waterfallWindowMs" | "spectrogramWindowMs" };
+  analyzeSweepRecording: { query: never; body: "startHz" | "endHz" | "durationS" | "fadeInS" | "fadeOutS" | "levelDbfs" | "method" | "offsetS" | "smoothingOctaves" | "temperatureC" | "waterfall" | "spectrogram" | "decaySlices" | "decayBins" | "decayFromHz" | "decayToHz" | "decaySpanMs" | "waterfallWindowMs" | "spectrogramWindowMs" };
   averageMeasurements: { query: "stage"; body: never };
   compareTunings: { query: never; body: never };
   computeDelays: { query: never; body: never };
@@ -5961,6 +6513,7 @@ export type ValidatedDefaults = {
   computeLevels: { query: never; body: never };
   createKey: { query: never; body: "kind" };
   createMeasurement: { query: never; body: "micPosition" | "smoothingOctaves" | "temperatureC" };
+  createMicrophone: { query: never; body: never };
   createPlan: { query: never; body: never };
   createProcessorProfile: { query: never; body: never };
   createRoom: { query: never; body: never };
@@ -5968,6 +6521,7 @@ export type ValidatedDefaults = {
   createTargetCurve: { query: never; body: never };
   createTestSignal: { query: never; body: "sampleRateHz" | "encoding" | "durationS" };
   deleteMeasurement: { query: never; body: never };
+  deleteMicrophone: { query: never; body: never };
   deleteProcessorProfile: { query: never; body: never };
   deleteRoom: { query: never; body: never };
   deleteTargetCurve: { query: never; body: never };
@@ -5982,6 +6536,7 @@ export type ValidatedDefaults = {
   getKey: { query: never; body: never };
   getLayout: { query: never; body: never };
   getMeasurement: { query: never; body: never };
+  getMicrophone: { query: never; body: never };
   getOpenApiDocument: { query: never; body: never };
   getProcessorProfile: { query: never; body: never };
   getReadiness: { query: never; body: never };
@@ -5998,6 +6553,7 @@ export type ValidatedDefaults = {
   listKeys: { query: "limit" | "includeRevoked"; body: never };
   listLayouts: { query: never; body: never };
   listMeasurements: { query: "limit"; body: never };
+  listMicrophones: { query: "limit"; body: never };
   listOutbox: { query: "limit"; body: never };
   listProcessorProfiles: { query: "limit"; body: never };
   listRoomTunings: { query: "limit"; body: never };
@@ -6007,6 +6563,7 @@ export type ValidatedDefaults = {
   listUsers: { query: "limit"; body: never };
   planBassManagement: { query: never; body: "lfeGainDb" | "subwooferCount" | "headroomWarningDb" };
   planStoredRoom: { query: never; body: "store" };
+  readMicrophoneCalibrator: { query: never; body: never };
   reissueInvitation: { query: never; body: never };
   replaceProcessorProfile: { query: never; body: never };
   restoreTuningVersion: { query: never; body: never };
@@ -6015,6 +6572,7 @@ export type ValidatedDefaults = {
   signOffTuningVersion: { query: never; body: never };
   signOut: { query: never; body: never };
   updateKey: { query: never; body: never };
+  updateMicrophone: { query: never; body: never };
   updateRoom: { query: never; body: never };
   updateTargetCurve: { query: never; body: never };
   updateTuning: { query: never; body: never };

@@ -106,6 +106,52 @@ describe('POST /v1/analysis/impulse-response', () => {
     );
   });
 
+  it('adds a waterfall and a spectrogram of the slices and bins asked for, naming their windows', async () => {
+    const decay = noisyDecay({
+      sampleRateHz: 48000,
+      durationS: 1,
+      t60S: 0.3,
+      startSample: 480,
+      startRms: 0.1,
+      noiseDb: -70,
+      seed: 9,
+    });
+    const res = await upload(wav('24', 48000, [decay]), {
+      waterfall: 'true',
+      spectrogram: 'true',
+      decaySlices: '4',
+      decayBins: '16',
+      decayFromHz: '50',
+      decayToHz: '5000',
+      decaySpanMs: '150',
+    });
+    expect(res.status).toBe(200);
+    expectToMatchContract('analyzeImpulseResponse', 200, res.body);
+    for (const plot of [res.body.waterfall, res.body.spectrogram]) {
+      expect(plot.timesMs).toEqual([0, 50, 100, 150]);
+      expect(plot.frequenciesHz).toHaveLength(16);
+      expect(plot.levelDb).toHaveLength(4);
+      for (const row of plot.levelDb) expect(row).toHaveLength(16);
+    }
+    expect(res.body.waterfall.window).toMatchObject({
+      name: 'rectangular start, half-Hann end',
+      lengthMs: 500,
+    });
+    expect(res.body.spectrogram.window).toMatchObject({ name: 'hann', lengthMs: 50 });
+    const plain = await upload(wav('24', 48000, [decay]));
+    expect(plain.body.waterfall).toBeUndefined();
+    expectProblem(
+      await upload(wav('24', 48000, [decay]), { waterfall: 'true', decaySpanMs: '600' }),
+      422,
+      '/body/decaySpanMs',
+    );
+    expectProblem(
+      await upload(wav('24', 48000, [decay]), { spectrogram: 'true', decaySlices: '500' }),
+      400,
+      '/body/decaySlices',
+    );
+  });
+
   describe('room modes of any room the contract allows', () => {
     const decay = (t60S: number) =>
       noisyDecay({

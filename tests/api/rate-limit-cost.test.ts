@@ -37,6 +37,7 @@ describe('rate limits weighted by cost', () => {
     const costs = operationCosts(loadOpenApiDocument()).map((c) => [c.operationId, [c.cost, c.when]]);
     expect(Object.fromEntries(costs)).toEqual({
       analyzeImpulseResponse: [10, undefined],
+      readMicrophoneCalibrator: [10, undefined],
       createMeasurement: [10, 'multipart/form-data'],
       createPlan: [20, undefined],
       createRoomTuning: [20, 'plan'],

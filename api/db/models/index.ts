@@ -3,6 +3,7 @@ import { initApiKey } from './api-key';
 import { initAuditEvent } from './audit-event';
 import { initInvitation } from './invitation';
 import { initMeasurement } from './measurement';
+import { initMicrophone } from './microphone';
 import { initProcessorProfile } from './processor-profile';
 import { initRoom } from './room';
 import { initRoomState } from './room-state';
@@ -29,6 +30,7 @@ export function defineModels(sequelize: Sequelize) {
     ProcessorProfile: initProcessorProfile(sequelize),
     RoomState: initRoomState(sequelize),
     TargetCurve: initTargetCurve(sequelize),
+    Microphone: initMicrophone(sequelize),
   };
   return models;
 }
