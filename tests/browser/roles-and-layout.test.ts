@@ -72,7 +72,23 @@ describe('the demo viewer', () => {
 
       await openPage(page, service.origin, '/playground', 'Playground');
       expect(await page.getByTestId('playground-key').count()).toBe(1);
-      await page.getByText('Paste an API key, or send with your session.').waitFor();
+      // Not a dead end: the page says what a viewer can do here, and does not offer the session it may not use.
+      await page
+        .getByText('Paste an API key: your role cannot send this with the console session.')
+        .waitFor();
+      expect(await page.getByTestId('playground-role-note').textContent()).toMatch(
+        /What you can do here as Viewer.*a Developer or Admin gives you/s,
+      );
+      expect(
+        await page.getByRole('radio', { name: /My console session \(not for Viewer\)/ }).isDisabled(),
+      ).toBe(true);
+      // An operation that needs no key can be sent and answers.
+      await page.goto(`${service.origin}/playground?op=getHealth`);
+      await page.getByRole('heading', { level: 1, name: 'Playground' }).waitFor();
+      const send = page.getByRole('button', { name: /^Send/ });
+      // A trial click waits until the button is enabled (the operation loads first) without sending.
+      await send.click({ trial: true, timeout: 10_000 });
+      await openPage(page, service.origin, '/playground', 'Playground');
       await screenshot(page, 'playground-viewer');
     });
   });
