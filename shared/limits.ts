@@ -151,6 +151,14 @@ export const LIMITS = {
   'MeasurementUpload.name': { minLength: 1, maxLength: NAME_MAX_LENGTH },
   'MeasurementUpload.notes': { maxLength: 2000 },
   'MeasurementUpload.temperatureC': { ...TEMPERATURE_RANGE_C, default: 20 },
+  'MeasurementUpload.startHz': { minimum: 1, maximum: 20000 },
+  'MeasurementUpload.endHz': { minimum: 10, maximum: 96000 },
+  'MeasurementUpload.durationS': { minimum: 0.1, maximum: 60 },
+  'MeasurementUpload.fadeInS': { minimum: 0, maximum: 5 },
+  'MeasurementUpload.fadeOutS': { minimum: 0, maximum: 5 },
+  'MeasurementUpload.levelDbfs': { minimum: -80, maximum: 0 },
+  'MeasurementUpload.offsetS': { minimum: 0, maximum: 30 },
+  'MeasurementUpload.lengthS': { minimum: 0.1, maximum: 30 },
   referenceFileChannel: { minimum: 0, maximum: 127 },
   timingReferenceMs: { minimum: 0, maximum: 1000 },
   MeasuredTuningVersion: { minimum: 1 },
@@ -294,7 +302,8 @@ export const MAX_UPLOAD_BYTES = 20 * 1024 * 1024;
 export const UPLOAD_LIMITS = {
   fileSize: MAX_UPLOAD_BYTES,
   files: 1,
-  fields: 16,
+  // A stored sweep upload names its channels, labels, tuning and the sweep itself: 22 fields; room to spare.
+  fields: 32,
   fieldSize: 4096,
-  parts: 18,
+  parts: 34,
 } as const;

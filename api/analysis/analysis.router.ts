@@ -1,9 +1,5 @@
 import { Router } from 'express';
-import { speedOfSoundMps } from '../../shared/acoustics/speed-of-sound';
-import { MIN_SMOOTHING_OCTAVES } from '../../shared/analysis/smoothing';
-import { openWav } from '../../shared/analysis/wav-decode';
-import { analyzeSweepRecording } from '../../shared/capture/sweep-analysis';
-import { CalculationInputError } from '../../shared/errors';
+import { analyseSweepWav, playedSweep } from '../../shared/capture/sweep-wav';
 import { requirePermission } from '../auth/permissions';
 import { badRequest } from '../http/problem';
 import { validate, type UploadedFile, type ValidInput } from '../http/validate';
@@ -65,55 +61,19 @@ type SweepForm = ValidInput<'analyzeSweepRecording'>['body'];
 
 /** A recorded sweep's analysis, with what was read from the file. */
 export function analyseSweepUpload(form: SweepForm, file: UploadedFile) {
-  const wav = openWav(file.buffer);
-  const { sampleRateHz: fs } = wav;
-  const measured = wav.channel(form.channel, '/channel');
-  const reference =
-    form.referenceChannel === undefined ? undefined : wav.channel(form.referenceChannel, '/referenceChannel');
-  const from = Math.round(form.offsetS * fs);
-  if (from >= wav.frameCount) {
-    throw new CalculationInputError(
-      `offsetS must lie inside the file (${wav.durationS.toFixed(3)} s); received ${form.offsetS} s`,
-      '/offsetS',
-    );
-  }
-  const to =
-    form.lengthS === undefined
-      ? wav.frameCount
-      : Math.min(wav.frameCount, from + Math.round(form.lengthS * fs));
-  const analysis = analyzeSweepRecording(
-    measured.samples.subarray(from, to),
-    {
-      sampleRateHz: fs,
-      startHz: form.startHz,
-      endHz: form.endHz,
-      durationS: form.durationS,
-      fadeInS: form.fadeInS,
-      fadeOutS: form.fadeOutS,
-      levelDbfs: form.levelDbfs,
-      silenceAfterS: 0,
-    },
-    {
-      method: form.method,
-      reference: reference?.samples.subarray(from, to),
-      smoothingOctaves: Math.max(MIN_SMOOTHING_OCTAVES, form.smoothingOctaves),
-      room: roomOf(form),
-      speedOfSoundMps: speedOfSoundMps(form.temperatureC),
-    },
-  );
-  const { channelCount, encoding, durationS } = wav;
-  return {
-    ...analysis,
-    warnings: [...measured.warnings, ...(reference?.warnings ?? []), ...analysis.warnings],
-    file: {
-      sizeBytes: file.size,
-      sampleRateHz: fs,
-      channelCount,
-      channelIndex: measured.channelIndex,
-      encoding,
-      durationS,
-    },
-  };
+  const { file: read, ...analysis } = analyseSweepWav({
+    bytes: file.buffer,
+    channel: form.channel,
+    referenceChannel: form.referenceChannel,
+    offsetS: form.offsetS,
+    lengthS: form.lengthS,
+    sweep: playedSweep(form),
+    method: form.method,
+    smoothingOctaves: form.smoothingOctaves,
+    room: roomOf(form),
+    temperatureC: form.temperatureC,
+  });
+  return { ...analysis, file: { sizeBytes: file.size, ...read } };
 }
 
 /** The room dimensions, all three or none. */

@@ -5,13 +5,16 @@ function summaryOf(m: Measurement): Record<string, unknown> {
   const r = m.result as Record<string, never>;
   switch (m.kind) {
     case 'impulseResponse': {
-      const { arrival, level, decay } = r as unknown as {
+      const { arrival, level, decay, timingReference } = r as unknown as {
         arrival: { arrivalMs: number };
         level: { peakDbfs: number; energyDb: number };
         decay: { edtS: number | null; t20S: number | null; t30S: number | null };
+        timingReference?: { arrivalMs: number };
       };
       return {
         arrivalMs: arrival.arrivalMs,
+        // What plans use as the loudspeaker's delay: the arrival counted from the timing reference.
+        ...(timingReference && { arrivalFromReferenceMs: arrival.arrivalMs - timingReference.arrivalMs }),
         peakDbfs: level.peakDbfs,
         energyDb: level.energyDb,
         edtS: decay.edtS,

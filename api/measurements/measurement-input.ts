@@ -5,7 +5,10 @@ import {
 } from '../../shared/analysis/frequency-response-text';
 import { detectArrival, signalLevel } from '../../shared/analysis/level';
 import { decodeWav } from '../../shared/analysis/wav-decode';
+import type { DeconvolutionMethod } from '../../shared/capture/deconvolve';
+import type { PlayedSweep } from '../../shared/capture/sweep-wav';
 import { CalculationInputError } from '../../shared/errors';
+import { LIMITS } from '../../shared/limits';
 import type { MeasurementKind, MeasurementSource } from '../db/models/measurement';
 import type { Room } from '../db/models/room';
 import type { HeavyWork } from '../work/heavy-work';
@@ -27,7 +30,33 @@ export interface UploadForm {
   notes?: string;
   referenceFileChannel?: number;
   timingReferenceMs?: number;
+  fileKind?: FileKind;
+  startHz?: number;
+  endHz?: number;
+  durationS?: number;
+  fadeInS?: number;
+  fadeOutS?: number;
+  levelDbfs?: number;
+  method?: DeconvolutionMethod;
+  offsetS?: number;
+  lengthS?: number;
 }
+
+/** What an uploaded file holds. */
+export type FileKind = 'impulseResponse' | 'sweepRecording' | 'frequencyResponse';
+
+/** The fields that describe the sweep of a `sweepRecording`; they mean nothing for other files. */
+const SWEEP_FIELDS = [
+  'startHz',
+  'endHz',
+  'durationS',
+  'fadeInS',
+  'fadeOutS',
+  'levelDbfs',
+  'method',
+  'offsetS',
+  'lengthS',
+] as const;
 
 /** The room must have a loudspeaker with this channel label. */
 export function requireRoomChannel(room: Room, channel: string): void {
@@ -52,11 +81,25 @@ const isWav = (bytes: Buffer, fileName: string, mimeType: string): boolean =>
  */
 export async function contentFromFile(
   work: Pick<HeavyWork, 'run'>,
-  file: { buffer: Buffer; originalname: string; mimetype: string; size: number },
+  file: UploadedFileLike,
   form: UploadForm,
   room: Room,
 ): Promise<MeasurementContent> {
-  if (isWav(file.buffer, file.originalname, file.mimetype)) {
+  const fileKind =
+    form.fileKind ??
+    (isWav(file.buffer, file.originalname, file.mimetype) ? 'impulseResponse' : 'frequencyResponse');
+  if (fileKind !== 'sweepRecording') {
+    // A sweep's parameters on another file are a mistake (fileKind forgotten?), never silently ignored.
+    const stray = SWEEP_FIELDS.find((k) => form[k] !== undefined);
+    if (stray) {
+      throw new CalculationInputError(
+        `${stray} describes a sweep; it applies only with fileKind sweepRecording (this file is read as ${fileKind})`,
+        `/${stray}`,
+      );
+    }
+  }
+  if (fileKind === 'sweepRecording') return sweepContent(work, file, form, room);
+  if (fileKind === 'impulseResponse') {
     const { analysis, file: read } = await work.run('analyseWav', {
       bytes: file.buffer,
       channel: form.fileChannel,
@@ -83,6 +126,76 @@ export async function contentFromFile(
     kind: 'frequencyResponse',
     source: { type: 'text', fileName: file.originalname, sizeBytes: file.size },
     result: { ...response },
+  };
+}
+
+type UploadedFileLike = { buffer: Buffer; originalname: string; mimetype: string; size: number };
+
+const SWEEP_DEFAULT = {
+  startHz: LIMITS['SweepRecordingUpload.startHz'].default,
+  endHz: LIMITS['SweepRecordingUpload.endHz'].default,
+  durationS: LIMITS['SweepRecordingUpload.durationS'].default,
+  fadeInS: LIMITS['SweepRecordingUpload.fadeInS'].default,
+  fadeOutS: LIMITS['SweepRecordingUpload.fadeOutS'].default,
+  levelDbfs: LIMITS['SweepRecordingUpload.levelDbfs'].default,
+};
+
+/**
+ * A recorded sweep as a measurement: deconvolved and analysed on a worker thread (the analysis of
+ * `POST /v1/analysis/sweep`), stored as an impulse-response measurement whose result also carries the
+ * distortion and, with a loopback channel, the timing reference plans and verification read.
+ */
+async function sweepContent(
+  work: Pick<HeavyWork, 'run'>,
+  file: UploadedFileLike,
+  form: UploadForm,
+  room: Room,
+): Promise<MeasurementContent> {
+  if (form.timingReferenceMs !== undefined) {
+    throw new CalculationInputError(
+      'a sweep recording is timed from its loopback channel (referenceFileChannel), not from a given time',
+      '/timingReferenceMs',
+    );
+  }
+  const sweep: PlayedSweep = {
+    startHz: form.startHz ?? SWEEP_DEFAULT.startHz,
+    endHz: form.endHz ?? SWEEP_DEFAULT.endHz,
+    durationS: form.durationS ?? SWEEP_DEFAULT.durationS,
+    fadeInS: form.fadeInS ?? SWEEP_DEFAULT.fadeInS,
+    fadeOutS: form.fadeOutS ?? SWEEP_DEFAULT.fadeOutS,
+    levelDbfs: form.levelDbfs ?? SWEEP_DEFAULT.levelDbfs,
+  };
+  const method = form.method ?? 'regularizedDivision';
+  const offsetS = form.offsetS ?? 0;
+  const { file: read, ...analysis } = await work.run('analyseSweepWav', {
+    bytes: file.buffer,
+    channel: form.fileChannel,
+    referenceChannel: form.referenceFileChannel,
+    offsetS,
+    lengthS: form.lengthS,
+    sweep,
+    method,
+    smoothingOctaves: form.smoothingOctaves ?? LIMITS.smoothingOctaves.default,
+    room: room.dimensions,
+    temperatureC: form.temperatureC ?? 20,
+    fields: { channel: '/fileChannel', referenceChannel: '/referenceFileChannel' },
+  });
+  const timingReference = analysis.timing && {
+    source: 'loopback' as const,
+    arrivalMs: analysis.timing.referenceArrivalMs,
+    fileChannel: form.referenceFileChannel,
+  };
+  return {
+    kind: 'impulseResponse',
+    source: {
+      type: 'wav',
+      fileKind: 'sweepRecording',
+      fileName: file.originalname,
+      sizeBytes: file.size,
+      ...read,
+      sweep: { ...sweep, method, offsetS, ...(form.lengthS !== undefined && { lengthS: form.lengthS }) },
+    },
+    result: timingReference ? { ...analysis, timingReference } : { ...analysis },
   };
 }
 

@@ -3,6 +3,7 @@ import { analyzeImpulseResponse } from '../../shared/analysis/analyze-impulse-re
 import type { RoomDimensions } from '../../shared/analysis/room-modes';
 import { MIN_SMOOTHING_OCTAVES } from '../../shared/analysis/smoothing';
 import { decodeWav } from '../../shared/analysis/wav-decode';
+import { analyseSweepWav } from '../../shared/capture/sweep-wav';
 import { fitParametricEq, type EqFitInput } from '../../shared/eq-fit/fit-parametric-eq';
 import { requirePlanBudget } from '../../shared/plan/plan-budget';
 import { planRoom, type PlanInput } from '../../shared/plan/plan-room';
@@ -42,6 +43,7 @@ function analyseWav(input: WavAnalysisInput) {
  */
 export const tasks = {
   analyseWav,
+  analyseSweepWav,
   fitEq: (input: EqFitInput) => fitParametricEq(input),
   planRoom: (input: PlanInput) => {
     requirePlanBudget(input);

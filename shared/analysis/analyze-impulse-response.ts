@@ -49,9 +49,30 @@ export interface ImpulseResponseAnalysis {
     schroederFrequencyHz: number | null;
     modesUpToHz: number;
     modes: RoomMode[];
+    /** Why the list ends where it does, and how much of it is listed. */
+    modesLimit: ModesLimit;
   };
   warnings: AnalysisWarning[];
 }
+
+/**
+ * Where a mode list ends and why: at the Schroeder frequency (above it modes overlap and the field is
+ * statistical), or at a default when no decay time gave one; and, when more modes lie below that limit
+ * than are listed, the frequency of the last one listed.
+ */
+export interface ModesLimit {
+  reason: 'schroederFrequency' | 'noSchroederFrequency';
+  /** Modes at or below `modesUpToHz`. */
+  found: number;
+  listed: number;
+  /** Frequency of the last mode listed when the list was cut by count, else null. */
+  cutAtHz: number | null;
+  /** The lowest mode of the room (the axial mode of its longest dimension), hertz. */
+  lowestModeHz: number;
+}
+
+/** Most modes listed: more say nothing a plot of the response does not (a 0.5 m cube with T = 20 s has ~26,000). */
+export const MAX_LISTED_MODES = 500;
 
 export const DEFAULT_SMOOTHING_OCTAVES = 1 / 12;
 /** Speed of sound in air at 20 °C, `343.2·sqrt((t + 273.15)/293.15)` at t = 20 (ISO 9613-1 form, as in the pyfar library). */
@@ -215,11 +236,44 @@ function roomSummary(
 ): NonNullable<ImpulseResponseAnalysis['room']> {
   const volumeM3 = roomVolumeM3(room);
   const t60 = broadband.t30S ?? broadband.t20S ?? broadband.edtS;
-  const schroeder = t60 === null ? null : schroederFrequencyHz(t60, volumeM3);
-  const modesUpToHz = Math.min(2000, schroeder ?? DEFAULT_MODES_UP_TO_HZ);
-  const { modes, truncated } = roomModes(room, speedOfSoundMps, modesUpToHz);
-  if (truncated) {
-    warnings.push({ code: 'modesTruncated', message: `Only the lowest ${modes.length} modes are listed.` });
+  // 2000·sqrt(T/V) is defined for decay times 0.01..20 s; outside (a response with no room in it, or a
+  // reading gone wrong) there is no Schroeder frequency to give, which says more than a 422 would.
+  const usable = t60 !== null && t60 >= 0.01 && t60 <= 20;
+  const schroeder = usable ? schroederFrequencyHz(t60, volumeM3) : null;
+  if (t60 !== null && !usable) {
+    warnings.push({
+      code: 'noSchroederFrequency',
+      message: `The measured decay time (${t60.toFixed(3)} s) lies outside 0.01–20 s, where the Schroeder frequency 2000·sqrt(T/V) applies; modes are listed up to ${DEFAULT_MODES_UP_TO_HZ} Hz instead.`,
+    });
   }
-  return { volumeM3, speedOfSoundMps, schroederFrequencyHz: schroeder, modesUpToHz, modes };
+  const modesUpToHz = schroeder ?? DEFAULT_MODES_UP_TO_HZ;
+  const { modes, truncated, found } = roomModes(room, speedOfSoundMps, modesUpToHz, MAX_LISTED_MODES);
+  const lowestModeHz = speedOfSoundMps / (2 * Math.max(room.widthM, room.lengthM, room.heightM));
+  const cutAtHz = truncated ? modes[modes.length - 1].frequencyHz : null;
+  if (cutAtHz !== null) {
+    warnings.push({
+      code: 'modesTruncated',
+      message: `${found} modes lie below ${modesUpToHz.toFixed(1)} Hz; only the lowest ${modes.length} are listed (up to ${cutAtHz.toFixed(1)} Hz), as more would say nothing a response plot does not.`,
+    });
+  }
+  if (found === 0) {
+    warnings.push({
+      code: 'noModesBelowLimit',
+      message: `The room's lowest mode (${lowestModeHz.toFixed(2)} Hz) lies above ${schroeder === null ? 'the default limit' : 'its Schroeder frequency'} (${modesUpToHz.toFixed(2)} Hz): the sound field is statistical over the whole measured band, so no modes are listed.`,
+    });
+  }
+  return {
+    volumeM3,
+    speedOfSoundMps,
+    schroederFrequencyHz: schroeder,
+    modesUpToHz,
+    modes,
+    modesLimit: {
+      reason: schroeder === null ? 'noSchroederFrequency' : 'schroederFrequency',
+      found,
+      listed: modes.length,
+      cutAtHz,
+      lowestModeHz,
+    },
+  };
 }

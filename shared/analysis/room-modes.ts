@@ -24,7 +24,12 @@ export interface RoomModesResult {
   modes: RoomMode[];
   /** True when more modes lay below `maxFrequencyHz` than `maxModes` allowed. */
   truncated: boolean;
+  /** How many modes lie at or below `maxFrequencyHz` (more than listed when truncated). */
+  found: number;
 }
+
+/** Highest frequency a mode list may reach: the Schroeder frequency of a 0.5 m cube with T60 = 20 s is 25.3 kHz. */
+export const MAX_MODE_FREQUENCY_HZ = 30000;
 
 function requireDimensions(room: RoomDimensions): void {
   for (const key of ['widthM', 'lengthM', 'heightM'] as const) {
@@ -39,7 +44,8 @@ function requireDimensions(room: RoomDimensions): void {
  *
  * @param room inside dimensions in metres (0.5..200 m each).
  * @param speedOfSoundMps speed of sound, m/s (300..400).
- * @param maxFrequencyHz highest mode to list, hertz (1..2000).
+ * @param maxFrequencyHz highest mode to list, hertz (above 0, at most 30 kHz; the number of candidates
+ *   grows with (maxFrequencyHz)³·volume, which the Schroeder frequency keeps small: see roomSummary).
  * @param maxModes most modes to return, lowest first (1..5000).
  * @returns modes in ascending frequency (ties by nx, ny, nz).
  */
@@ -51,7 +57,12 @@ export function roomModes(
 ): RoomModesResult {
   requireDimensions(room);
   requireInRange(speedOfSoundMps, { min: 300, max: 400, unit: 'm/s' }, 'speedOfSoundMps', '/speedOfSoundMps');
-  requireInRange(maxFrequencyHz, { min: 1, max: 2000, unit: 'Hz' }, 'maxFrequencyHz', '/maxFrequencyHz');
+  requireInRange(
+    maxFrequencyHz,
+    { min: 0, exclusiveMin: true, max: MAX_MODE_FREQUENCY_HZ, unit: 'Hz' },
+    'maxFrequencyHz',
+    '/maxFrequencyHz',
+  );
   requireInRange(maxModes, { min: 1, max: 5000 }, 'maxModes', '/maxModes');
   const half = speedOfSoundMps / 2;
   const limit = (dimensionM: number) => Math.floor((maxFrequencyHz * dimensionM) / half);
@@ -70,7 +81,7 @@ export function roomModes(
     }
   }
   modes.sort((a, b) => a.frequencyHz - b.frequencyHz || a.nx - b.nx || a.ny - b.ny || a.nz - b.nz);
-  return { modes: modes.slice(0, maxModes), truncated: modes.length > maxModes };
+  return { modes: modes.slice(0, maxModes), truncated: modes.length > maxModes, found: modes.length };
 }
 
 /** Room volume in cubic metres. */

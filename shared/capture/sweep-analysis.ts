@@ -40,6 +40,8 @@ export interface SweepAnalysisOptions extends ImpulseResponseAnalysisOptions {
   method?: DeconvolutionMethod;
   /** The same recording's timing-reference (loopback) channel. */
   reference?: Float64Array;
+  /** The request field naming that channel, for errors (default `/referenceChannel`). */
+  referenceField?: string;
 }
 
 export interface SweepAnalysis extends ImpulseResponseAnalysis {
@@ -118,7 +120,8 @@ export function analyzeSweepRecording(
     warnings: [...warnings, ...analysis.warnings],
   };
   if (options.reference) {
-    result.timing = referenceTiming(options.reference, prepared, before, linearEnd, analysis, fs);
+    const field = options.referenceField ?? '/referenceChannel';
+    result.timing = referenceTiming(options.reference, prepared, before, linearEnd, analysis, fs, field);
   }
   return result;
 }
@@ -146,6 +149,7 @@ function referenceTiming(
   linearEnd: number,
   analysis: ImpulseResponseAnalysis,
   fs: number,
+  field: string,
 ): NonNullable<SweepAnalysis['timing']> {
   const h = circularSlice(deconvolve(reference, prepared), -before, linearEnd);
   const level = signalLevel(h);
@@ -153,7 +157,7 @@ function referenceTiming(
     throw new SignalProblemError(
       'The timing-reference channel is silent; connect the loopback (the output fed straight back to an input).',
       'silent',
-      '/referenceChannel',
+      field,
     );
   }
   const detected = detectArrival(h, fs, level);

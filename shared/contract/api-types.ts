@@ -167,9 +167,12 @@ export type paths = {
          *       truncated where the decay meets the noise (Lundeby's method) with the missing tail added. A time is
          *       `null` when the impulse-to-noise ratio is too small for its range (EDT 20 dB, T20 35 dB, T30 45 dB).
          *     - `room` (when `roomWidthM`, `roomLengthM` and `roomHeightM` are all given): volume, the Schroeder
-         *       frequency `2000·sqrt(T/V)` from the broadband T30 (else T20, else EDT), and the rectangular-room
-         *       modes up to it (axial, tangential, oblique), with the speed of sound at `temperatureC` (default
-         *       20 °C).
+         *       frequency `2000·sqrt(T/V)` from the broadband T30 (else T20, else EDT; null when none was measured
+         *       or it lies outside 0.01–20 s), and the rectangular-room modes up to it (axial, tangential, oblique;
+         *       up to 300 Hz without a Schroeder frequency), with the speed of sound at `temperatureC` (default
+         *       20 °C). `modesLimit` says where and why the list ends: at most 500 modes are listed (`cutAtHz` is
+         *       then the last one, with a `modesTruncated` warning), and a room so large that its lowest mode lies
+         *       above its Schroeder frequency lists none (`noModesBelowLimit` warning).
          *     - `file`: what was read.
          */
         post: operations["analyzeImpulseResponse"];
@@ -803,6 +806,19 @@ export type paths = {
          *       and 30 s). `fileChannel` picks the channel of a multichannel file. The file is analysed on arrival
          *       (arrival, level, smoothed response, decay times, and the room's modes from its stored dimensions)
          *       and the analysis is stored; the audio itself is not kept.
+         *     - **Recorded sweep** — the same multipart upload with `fileKind: sweepRecording`: the recording of an
+         *       exponential sweep (from `POST /v1/test-signals`, or any sweep with known parameters) plus the sweep's
+         *       parameters `startHz`, `endHz`, `durationS`, `fadeInS`, `fadeOutS`, `levelDbfs` (the test-signal
+         *       defaults when left out: 20 Hz, 20 kHz, 10 s, 0.05 s, 0.01 s, −12 dBFS), `method`, and for one slot
+         *       of a sequence `offsetS`/`lengthS`; `referenceFileChannel` names the loopback channel. It is
+         *       deconvolved and analysed on arrival exactly as `POST /v1/analysis/sweep` does, and stored as an
+         *       impulse-response measurement (`kind: impulseResponse`, `source.fileKind: sweepRecording` with the
+         *       sweep in `source.sweep`) whose `result` also holds `deconvolution`, `distortion` and, with a
+         *       loopback, `timing` and `timingReference` (the loopback's arrival, so plans use the arrival counted
+         *       from it and the interface's latency cancels; `summary.arrivalFromReferenceMs` shows it). Sweep
+         *       parameters on any other file are refused (422 naming the field), as is `timingReferenceMs` on a
+         *       sweep. Without `fileKind` a WAV file is an impulse response and anything else a text frequency
+         *       response.
          *     - **Frequency response** — either the same multipart upload with a text file (columns: frequency
          *       in Hz, magnitude in dB, optional phase in degrees; separated by commas, semicolons, tabs or spaces;
          *       lines starting with `#`, `*`, `;`, `//`, `%` or `!` and headings before the data are skipped;
@@ -1958,6 +1974,20 @@ export type components = {
                     ny: number;
                     nz: number;
                 }[];
+                /**
+                 * @description Where the mode list ends and why: at the Schroeder frequency (`schroederFrequency`), or at 300 Hz
+                 *     when no decay time gave one (`noSchroederFrequency`); `found` modes lie below that limit and the
+                 *     lowest `listed` (at most 500) are listed — when fewer, `cutAtHz` is the last one listed. A room
+                 *     whose lowest mode lies above its Schroeder frequency (a very large room) lists none.
+                 */
+                modesLimit: {
+                    cutAtHz: number | null;
+                    found: number;
+                    listed: number;
+                    lowestModeHz: number;
+                    /** @enum {unknown} */
+                    reason: "schroederFrequency" | "noSchroederFrequency";
+                };
                 modesUpToHz: number;
                 schroederFrequencyHz: number | null;
                 speedOfSoundMps: number;
@@ -2130,7 +2160,9 @@ export type components = {
             name: string | null;
             notes: string | null;
             /**
-             * @description Impulse response: the analysis of `POST /v1/analysis/impulse-response` (without `file`). Frequency
+             * @description Impulse response: the analysis of `POST /v1/analysis/impulse-response` (without `file`); from a
+             *     recorded sweep, that of `POST /v1/analysis/sweep` (with `deconvolution`, `distortion`, and with a
+             *     loopback `timing` and `timingReference`). Frequency
              *     response: `frequenciesHz`, `magnitudeDb` and, when given, `phaseDeg`. SPL: `splDb`, `weighting`,
              *     `timeWeighting`. Left out of lists.
              */
@@ -2142,15 +2174,33 @@ export type components = {
                 channelIndex?: number;
                 durationS?: number;
                 encoding?: string;
+                /**
+                 * @description Set when the file was a recorded sweep.
+                 * @constant
+                 */
+                fileKind?: "sweepRecording";
                 fileName?: string;
                 sampleRateHz?: number;
                 sizeBytes?: number;
+                /** @description The sweep that was played and the part of the file analysed (a recorded sweep only). */
+                sweep?: {
+                    durationS: number;
+                    endHz: number;
+                    fadeInS: number;
+                    fadeOutS: number;
+                    lengthS?: number;
+                    levelDbfs: number;
+                    /** @enum {unknown} */
+                    method: "regularizedDivision" | "inverseFilter";
+                    offsetS: number;
+                    startHz: number;
+                };
                 /** @enum {unknown} */
                 type: "wav" | "text" | "json";
             };
             /** @enum {unknown} */
             stage: "before" | "after";
-            /** @description A few numbers for lists: arrival, level and decay times; points and range; or the SPL. */
+            /** @description A few numbers for lists: arrival (and, with a timing reference, arrivalFromReferenceMs), level and decay times; points and range; or the SPL. */
             summary: Record<string, never>;
             tuningId: string | null;
             tuningVersion: number | null;
@@ -2207,14 +2257,40 @@ export type components = {
         MeasurementUpload: {
             /** @description Loudspeaker id in the room, e.g. M+030. */
             channel: string;
+            /** @description Sweep T, fades included, s (sweepRecording; default 10). */
+            durationS?: number;
+            /** @description Sweep f2, Hz (sweepRecording; default 20000). */
+            endHz?: number;
+            /** @description Sweep fade-in, s (sweepRecording; default 0.05). */
+            fadeInS?: number;
+            /** @description Sweep fade-out, s (sweepRecording; default 0.01). */
+            fadeOutS?: number;
             /** @description A WAV impulse response (at most 20 MiB and 30 s) or a text frequency response. */
             file: string;
             /** @description 0-based channel of a multichannel WAV file. */
             fileChannel?: number;
+            /**
+             * @description What `file` holds. Default: a WAV file is an impulse response, anything else a text frequency
+             *     response. `sweepRecording`: the recording of an exponential sweep, deconvolved on arrival with the
+             *     sweep's parameters below.
+             * @enum {unknown}
+             */
+            fileKind?: "impulseResponse" | "sweepRecording" | "frequencyResponse";
+            /** @description Length of the part analysed, s — a sequence's periodS (sweepRecording; default to the end of the file). */
+            lengthS?: number;
+            /** @description Sweep sine peak as played, dBFS (sweepRecording; default −12). */
+            levelDbfs?: number;
+            /**
+             * @description Deconvolution (sweepRecording; default regularizedDivision), as in `POST /v1/analysis/sweep`.
+             * @enum {unknown}
+             */
+            method?: "regularizedDivision" | "inverseFilter";
             /** @default 1 */
             micPosition?: string;
             name?: string;
             notes?: string;
+            /** @description Start of the part analysed, s into the file — a sequence slot's startS (sweepRecording; default 0). */
+            offsetS?: number;
             /**
              * @description 0-based channel of the same WAV file that holds the timing reference (an electrical loopback of
              *     the test signal). Its arrival is stored as `result.timingReference`, and plans then use the
@@ -2224,6 +2300,8 @@ export type components = {
             /** @default 0.08333333333333333 */
             smoothingOctaves?: number;
             stage?: components["schemas"]["MeasurementStage"];
+            /** @description Sweep f1, Hz (sweepRecording; default 20). */
+            startHz?: number;
             /**
              * @description Air temperature for the modes.
              * @default 20

@@ -104,6 +104,65 @@ describe('POST /v1/analysis/impulse-response', () => {
     );
   });
 
+  describe('room modes of any room the contract allows', () => {
+    const decay = (t60S: number) =>
+      noisyDecay({
+        sampleRateHz: 48000,
+        durationS: 1.5,
+        t60S,
+        startSample: 480,
+        startRms: 0.1,
+        noiseDb: -70,
+        seed: 5,
+      });
+    const cube = (sideM: string) => ({ roomWidthM: sideM, roomLengthM: sideM, roomHeightM: sideM });
+
+    it('answers a 200 m cube (Schroeder frequency far below its lowest mode) with no modes and says why', async () => {
+      const res = await upload(wav('24', 48000, [decay(0.4)]), cube('200'));
+      expect(res.status).toBe(200);
+      expectToMatchContract('analyzeImpulseResponse', 200, res.body);
+      // fS = 2000·sqrt(T/V) with V = 8·10⁶ m³ (Kuttruff, Room Acoustics): under 1 Hz; the lowest axial mode is c/(2·200 m).
+      const { room } = res.body;
+      expect(room.schroederFrequencyHz).toBeCloseTo(2000 * Math.sqrt(res.body.decay.t30S / 8e6), 9);
+      expect(room.modesLimit.lowestModeHz).toBeCloseTo(343.2 / 400, 9);
+      expect(room.schroederFrequencyHz).toBeLessThan(room.modesLimit.lowestModeHz);
+      expect(room.modes).toEqual([]);
+      expect(room.modesLimit).toMatchObject({
+        reason: 'schroederFrequency',
+        found: 0,
+        listed: 0,
+        cutAtHz: null,
+      });
+      expect(res.body.warnings.map((w: { code: string }) => w.code)).toContain('noModesBelowLimit');
+    });
+
+    it("lists a small room's modes past 2 kHz up to its Schroeder frequency, cutting the list by count with a word", async () => {
+      const res = await upload(wav('24', 48000, [decay(0.4)]), cube('0.5'));
+      expect(res.status).toBe(200);
+      expectToMatchContract('analyzeImpulseResponse', 200, res.body);
+      const { room } = res.body;
+      // fS = 2000·sqrt(0.4/0.125) ≈ 3.6 kHz: above the old silent 2 kHz cut.
+      expect(room.modesUpToHz).toBeGreaterThan(2000);
+      expect(room.modesUpToHz).toBeCloseTo(room.schroederFrequencyHz, 9);
+      const last = room.modes[room.modes.length - 1].frequencyHz;
+      expect(last).toBeGreaterThan(2000);
+      expect(last).toBeLessThanOrEqual(room.modesUpToHz);
+      // The cube's modes below fS are counted, not guessed: (c/2L)·sqrt(nx²+ny²+nz²) ≤ fS.
+      const unit = 343.2 / 1;
+      let expected = 0;
+      const n = Math.floor(room.modesUpToHz / unit);
+      for (let x = 0; x <= n; x++)
+        for (let y = 0; y <= n; y++)
+          for (let z = 0; z <= n; z++)
+            if (x + y + z > 0 && unit * Math.sqrt(x * x + y * y + z * z) <= room.modesUpToHz) expected++;
+      expect(room.modesLimit.found).toBe(expected);
+      expect(room.modesLimit.listed).toBe(Math.min(expected, 500));
+      expect(expected).toBeGreaterThan(500);
+      expect(room.modesLimit.cutAtHz).toBe(last);
+      expect(res.body.warnings.map((w: { code: string }) => w.code)).toContain('modesTruncated');
+    });
+  });
+
   describe('refuses files that cannot be analysed, saying what is wrong', () => {
     const refused = async (
       file: Buffer,

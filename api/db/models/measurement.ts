@@ -21,6 +21,19 @@ export interface MeasurementSource {
   channelIndex?: number;
   encoding?: string;
   durationS?: number;
+  /** Set for a recorded sweep (the file was deconvolved), with the sweep that was played. */
+  fileKind?: 'sweepRecording';
+  sweep?: {
+    startHz: number;
+    endHz: number;
+    durationS: number;
+    fadeInS: number;
+    fadeOutS: number;
+    levelDbfs: number;
+    method: string;
+    offsetS: number;
+    lengthS?: number;
+  };
 }
 
 /**
