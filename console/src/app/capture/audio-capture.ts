@@ -76,7 +76,7 @@ export class AudioCapture {
     this.meterBuffer = new Float32Array(2048);
     // The output carries every channel as it is: channel N of the sweep goes to output N.
     const destination = context.destination;
-    destination.channelCount = destination.maxChannelCount;
+    if (destination.maxChannelCount > 0) destination.channelCount = destination.maxChannelCount;
     destination.channelCountMode = 'explicit';
     destination.channelInterpretation = 'discrete';
   }
@@ -99,7 +99,7 @@ export class AudioCapture {
 
   /** How many output channels the browser offers (an interface's outputs, when it passes them). */
   get outputChannels(): number {
-    return this.context.destination.maxChannelCount;
+    return Math.max(1, this.context.destination.maxChannelCount);
   }
 
   /** Peak level of each input channel over the last 2048 samples, dBFS. */
