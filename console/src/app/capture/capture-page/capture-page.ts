@@ -292,7 +292,11 @@ export class CapturePage {
     const list = targets.map((r) => `${r.channel} on output ${r.output}`).join(', ');
     const data: ConfirmDialogData = {
       title: 'Play the sweep now?',
-      message: `${description.cautions.map((c) => c.message).join(' ')} It plays ${targets.length === 1 ? 'once' : `${targets.length} times, one channel after another`} (${list}), ${formatQuantity(sweep.durationS, 's', 1)} each.`,
+      message: `${description.cautions.map((c) => c.message).join(' ')} ${
+        targets.length === 1
+          ? `It plays once, ${formatQuantity(sweep.durationS, 's', 1)} long: ${list}.`
+          : `It plays ${targets.length} times, ${formatQuantity(sweep.durationS, 's', 1)} each, one channel after another: ${list}.`
+      }`,
       confirmLabel: 'Play and record',
     };
     const confirmed = await firstValueFrom(
