@@ -200,6 +200,10 @@ it('fits a 390 px phone in the dark theme', async () => {
     await phone.getByTestId('capture-channels').locator('tbody tr').first().waitFor();
     await phone.waitForTimeout(300);
     expect(await horizontalOverflow(phone)).toEqual([]);
+    // The channel table fits, so Measure and Redo are in reach without scrolling sideways.
+    const scroller = phone.getByTestId('capture-pass').locator('.iso-table-scroll');
+    const [scrollWidth, clientWidth] = await scroller.evaluate((e) => [e.scrollWidth, e.clientWidth]);
+    expect(scrollWidth).toBeLessThanOrEqual(clientWidth);
     expect(await contrastProblems(phone)).toEqual([]);
     await screenshot(phone, 'capture-phone-dark');
     expect(dark.faults()).toEqual([]);
