@@ -20,7 +20,8 @@ import { type RunningService, startService } from './support/service';
 // is the sweep through a known filter (a +6 dB peaking band at 1 kHz, Q 1, rendered by
 // node-web-audio-api's BiquadFilterNode, an implementation independent of Isochron's) arriving a known
 // 221 samples (5.011 ms at 44.1 kHz) after input 2, the sweep itself (the loopback). The device loops
-// the file; the page records longer than one period plus the sweep, so one whole sweep is in every take.
+// the file, one sweep every 8 s; the test starts the take just after a sweep has passed (read from the
+// page's own loopback meter) and records 8 s, so the take holds the next sweep whole and nothing else.
 // The stored measurement must show that delay, counted from the loopback, and that response.
 
 /** The rate Chromium's fake capture device runs at, so the file is not resampled. */
@@ -37,7 +38,7 @@ const SWEEP = {
   silenceAfterS: 0,
 };
 const LEAD_S = 0.5;
-const PERIOD_S = 3;
+const PERIOD_S = 8;
 const DELAY_SAMPLES = 221;
 const PEAK = { type: 'peaking' as const, frequency: 1000, Q: 1, gain: 6 };
 
@@ -134,7 +135,7 @@ it('explains what the browser needs, meters the input and measures one channel w
   await page.getByRole('option', { name: 'Input 2' }).click();
   await page.getByTestId('sweep-length').fill('1');
   await page.getByTestId('sweep-length').press('Tab');
-  await page.getByTestId('sweep-tail').fill('3');
+  await page.getByTestId('sweep-tail').fill('7');
   await page.getByTestId('sweep-tail').press('Tab');
   await screenshot(page, 'capture-setup');
 
@@ -149,6 +150,17 @@ it('explains what the browser needs, meters the input and measures one channel w
     (r) => r.request().method() === 'POST' && /\/measurements$|\/analysis\/sweep$/.test(r.url()) && r.ok(),
     { timeout: 60_000 },
   );
+  // Start just after the loopback's sweep has passed: the next one is then about 7 s away, inside the take.
+  const loopbackLevel = async () => Number(await meters.nth(1).getAttribute('aria-valuenow'));
+  const until = async (check: (db: number) => boolean) => {
+    const end = Date.now() + 20_000;
+    while (!check(await loopbackLevel())) {
+      if (Date.now() > end) throw new Error('the loopback meter never changed as the looping file should');
+      await page.waitForTimeout(50);
+    }
+  };
+  await until((db) => db > -30);
+  await until((db) => db < -60);
   await dialog.getByTestId('confirm-action').click();
   const body = (await (await answer).json()) as {
     id?: string;
