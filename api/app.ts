@@ -6,6 +6,7 @@ import { authenticate } from './auth/authenticate';
 import { refuseNulInUrl } from './http/nul-guard';
 import { requestId } from './http/request-id';
 import { notFoundHandler, problemHandler } from './http/problem';
+import { presentNumbersInAnswers } from './http/present';
 import { createRateLimiter } from './rate-limit/rate-limiter';
 import { createUserRateLimiter } from './rate-limit/user-ceiling';
 import { getContract } from './http/validate';
@@ -26,6 +27,7 @@ export function createApp(services: Services): Express {
   app.disable('x-powered-by');
   app.set('trust proxy', config.trustProxyHops);
   app.set('json spaces', 0);
+  presentNumbersInAnswers(app);
 
   app.use(requestId);
   app.use(refuseNulInUrl);

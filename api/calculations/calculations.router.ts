@@ -1,7 +1,7 @@
 import { Router } from 'express';
 import { planBassManagement } from '../../shared/bass-management/bass-management';
 import { alignDelays } from '../../shared/delay/align-delays';
-import type { EqFitResult } from '../../shared/eq-fit/fit-parametric-eq';
+import { eqBoostCaution } from '../../shared/filters/eq-extremes';
 import { planCrossover } from '../../shared/filters/crossover';
 import { designFilterSet } from '../../shared/filters/filter-set';
 import { analyseGeometry } from '../../shared/geometry';
@@ -72,23 +72,9 @@ export function calculationsRouter(services: Services): Router {
       const sampleRateHz = body.sampleRateHz ?? DEFAULT_SAMPLE_RATE_HZ;
       const target = await targetCurves.resolve(callerOf(req), body.target, '/target');
       const result = await work.run('fitEq', { ...body, target, sampleRateHz }, whenClientGone(res));
-      res.json({ sampleRateHz, ...result, cautions: boostCautions(result) });
+      const caution = eqBoostCaution([{ filters: result.bands }], sampleRateHz);
+      res.json({ sampleRateHz, ...result, cautions: caution ? [caution] : [] });
     }),
   );
   return router;
-}
-
-/** The boost caution states what all bands together reach, where the largest boost is. */
-function boostCautions(result: EqFitResult): Array<{ code: string; message: string }> {
-  const boosts = result.bands.filter((b) => b.gainDb > 0);
-  if (boosts.length === 0) return [];
-  const lowest = Math.min(...boosts.map((b) => b.frequencyHz));
-  return [
-    {
-      code: 'eqBoost',
-      message:
-        `This EQ boosts by up to ${result.combined.maxBoostDb.toFixed(1)} dB (all bands together), down to ${lowest} Hz. ` +
-        'Boosts, especially at low frequencies, can overdrive amplifiers and drivers; check headroom and raise the level slowly.',
-    },
-  ];
 }

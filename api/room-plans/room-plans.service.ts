@@ -72,7 +72,7 @@ export class RoomPlansService {
       () => '/body/store',
     );
     const stale = await stalenessOf(this.db.models, room, version.roomRevision);
-    return { ...plan, tuning: tuningDto(tuning, version, room, stale) };
+    return { ...plan, tuning: tuningDto(tuning, version, room, stale, profile?.settings ?? null) };
   }
 }
 

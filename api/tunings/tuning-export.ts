@@ -3,6 +3,7 @@ import { findLayout } from '../../shared/layouts';
 import { tuningCautions } from '../../shared/plan';
 import { findLimitViolations } from '../../shared/plan/tuning-limits';
 import { processorExportToCsv, type ExportHeader } from '../../shared/processor/export-csv';
+import { profileStepRounding } from '../../shared/processor/profile-steps';
 import {
   EXACT_LAYOUT,
   exportForProcessor,
@@ -48,7 +49,8 @@ function refused(violations: ReturnType<typeof findLimitViolations>): ProblemErr
 /**
  * A stored tuning as one processor takes it (exportForProcessor), with its header: the tuning, the
  * room, the sample rate, the profile, when the version was made, this Isochron's version, the stale
- * notice first and the cautions (boosts reach the processor here; what rounding cost).
+ * notice first and the cautions (boosts reach the processor here; what rounding cost; which settings
+ * are not on the profile's steps and what they become).
  */
 export async function exportTuning(
   db: Database,
@@ -97,6 +99,13 @@ export async function exportTuning(
             `${c.id} by ${c.eqRounding.maxDeviationDb.toFixed(2)} dB at ${(c.eqRounding.atHz ?? 0).toFixed(2)} Hz`,
         )
         .join(', ')}; check those channels by measurement after loading, or use a finer profile.`,
+    });
+  }
+  const steps = profile ? profileStepRounding(settings, profile.settings) : [];
+  if (steps.length > 0) {
+    cautions.push({
+      code: 'profileSteps',
+      message: `${steps.length} setting${steps.length === 1 ? ' is' : 's are'} not on the processor's steps and ${steps.length === 1 ? 'is' : 'are'} exported rounded: ${steps.map((s) => s.message).join('; ')}.`,
     });
   }
   const stale = await stalenessOf(db.models, room, version.roomRevision);

@@ -4,6 +4,8 @@ import type { Transaction } from 'sequelize';
 import { findLayout } from '../../shared/layouts';
 import { checkTuningSettings, tuningCautions, type TuningSettings } from '../../shared/plan';
 import { findLimitViolations } from '../../shared/plan/tuning-limits';
+import { profileStepRounding } from '../../shared/processor/profile-steps';
+import type { ProcessorProfileSettings } from '../../shared/processor/profile';
 import type { Database } from '../db/database';
 import { newId } from '../db/ids';
 import type { Room } from '../db/models/room';
@@ -75,12 +77,16 @@ function settingsOf(version: TuningVersion): TuningSettings {
 
 export { settingsOf };
 
-/** The API shape of a tuning at one of its versions; `stale` from stalenessOf. */
+/**
+ * The API shape of a tuning at one of its versions; `stale` from stalenessOf; `profile` the room's
+ * processor profile, whose steps `profileSteps` holds the settings to (what its export will round).
+ */
 export function tuningDto(
   tuning: Tuning,
   version: TuningVersion,
   room: Room | null,
   stale: Staleness | null,
+  profile: ProcessorProfileSettings | null,
 ) {
   const settings = settingsOf(version);
   return {
@@ -100,6 +106,7 @@ export function tuningDto(
     updatedAt: tuning.updatedAt.toISOString(),
     versionCreatedAt: version.createdAt.toISOString(),
     stale,
+    profileSteps: profile ? profileStepRounding(settings, profile) : [],
     cautions: tuningCautions(settings, {
       layout: room ? findLayout(room.layoutId) : undefined,
       limits: room?.limits,

@@ -121,7 +121,8 @@ export class TuningsService {
   /** A tuning version as answered, with whether the room has changed since its settings were made. */
   private async view(tuning: Tuning, version: TuningVersion, room: Room | null): Promise<TuningView> {
     const stale = room ? await stalenessOf(this.db.models, room, version.roomRevision) : null;
-    return tuningDto(tuning, version, room, stale);
+    const profile = room ? await profileOfRoom(this.db.models, room) : null;
+    return tuningDto(tuning, version, room, stale, profile?.settings ?? null);
   }
 
   async compare(

@@ -9,6 +9,7 @@ import {
 import type { Sos } from '../dsp/sos';
 import type { Caution, CalculationWarning } from '../notices';
 import { DEFAULT_SAMPLE_RATE_HZ } from '../units/sample-rate';
+import { presentDb, presentHz } from '../present';
 
 /** Common practice: Linkwitz-Riley 4th order (24 dB/octave) at 80 Hz on both sides. */
 export const DEFAULT_BASS_CROSSOVER: CrossoverSpec = { family: 'linkwitzRiley', order: 4, frequencyHz: 80 };
@@ -168,7 +169,7 @@ export function planBassManagement(input: BassManagementInput): BassManagementPl
       warnings.push({
         code: 'crossoverHigh',
         channel: channel.id,
-        message: `A crossover at ${crossover.frequencyHz} Hz sends content above ${LOCALISATION_WARNING_HZ} Hz to the subwoofer, where it becomes easier to locate.`,
+        message: `A crossover at ${presentHz(crossover.frequencyHz)} Hz sends content above ${LOCALISATION_WARNING_HZ} Hz to the subwoofer, where it becomes easier to locate.`,
       });
     }
   });
@@ -217,7 +218,7 @@ function bassCautions(headroomDb: number, lfeGainDb: number, inputCount: number)
   if (lfeGainDb > DEFAULT_LFE_GAIN_DB) {
     cautions.push({
       code: 'lowFrequencyBoost',
-      message: `An LFE gain of ${lfeGainDb} dB is above the +10 dB in-band convention; low-frequency boosts can overdrive amplifiers and subwoofer drivers.`,
+      message: `An LFE gain of ${presentDb(lfeGainDb)} dB is above the +10 dB in-band convention; low-frequency boosts can overdrive amplifiers and subwoofer drivers.`,
     });
   }
   return cautions;

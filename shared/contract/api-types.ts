@@ -2749,6 +2749,17 @@ export type components = {
             /** @description Null where there is nothing to check (no layout */
             withinTolerance: boolean | null;
         };
+        StepRounding: {
+            message: string;
+            /** @description What the export gives the processor */
+            rounded: number;
+            /** @description JSON pointer into the settings: `/channels/2/delayMs`, `/channels/0/eq/1/q`. */
+            setting: string;
+            /** @enum {string} */
+            unit: "ms" | "samples" | "dB" | "Hz" | "";
+            /** @description The stored value */
+            value: number;
+        };
         StoredCrossover: {
             family: components["schemas"]["CrossoverFamily"];
             frequencyHz: number;
@@ -3068,6 +3079,14 @@ export type components = {
             ownerId: string;
             /** @description Only on a tuning just made from a plan. */
             planWarnings?: components["schemas"]["Warning"][];
+            /**
+             * @description Settings that are not on the steps of the room's processor profile, each with the value
+             *     its export gives the processor and by how much that differs; with a profile that takes
+             *     delay in milliseconds, also delays that are not a whole number of samples at the tuning's
+             *     rate. Empty without a profile or when every setting is on its step. Not a refusal: ranges
+             *     are checked on every write (422 limit-exceeded), steps are rounded at export.
+             */
+            profileSteps: components["schemas"]["StepRounding"][];
             roomId: string;
             stale: components["schemas"]["TuningStale"] | null;
             /** Format: date-time */

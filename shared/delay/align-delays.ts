@@ -4,6 +4,7 @@ import { CalculationInputError, requireInRange } from '../errors';
 import type { CalculationWarning } from '../notices';
 import { parseDistanceM, type DistanceInput } from '../units/distance';
 import { DEFAULT_SAMPLE_RATE_HZ } from '../units/sample-rate';
+import { presentMs } from '../present';
 
 /** Longest measured arrival accepted, in ms (about 340 m of travel). */
 export const ARRIVAL_MAX_MS = 1000;
@@ -94,7 +95,7 @@ export function alignDelays(input: DelayInput): DelayPlan {
         code: 'delayClamped',
         channel: channel.id,
         message:
-          `${channel.id} needs ${round(idealMs, 3)} ms of delay but the processor allows at most ${delayMaxMs} ms; ` +
+          `${channel.id} needs ${round(idealMs, 3)} ms of delay but the processor allows at most ${presentMs(delayMaxMs)} ms; ` +
           `it will arrive ${round(idealMs - delayMs, 3)} ms early (alignment within ${ALIGNMENT_TOLERANCE_US} µs is ` +
           'recommended by ITU-R BS.2051-3).',
       });

@@ -5,6 +5,7 @@ import { responseGrid, type ResponseGridSpec } from '../dsp/grid';
 import { cascadeResponse, parallelResponse, type SosResponse } from '../dsp/response';
 import type { Sos } from '../dsp/sos';
 import { designBiquad, FILTER_LIMITS } from './biquad-design';
+import { presentHz } from '../present';
 
 export type CrossoverFamily = 'linkwitzRiley' | 'butterworth';
 export type Polarity = 'normal' | 'inverted';
@@ -118,7 +119,7 @@ export function designCrossover(spec: CrossoverSpec, sampleRateHz: number): Cros
   if (family === 'butterworth' && order % 2 === 0) {
     warnings.push({
       code: 'sumNotFlat',
-      message: `An order-${order} Butterworth crossover sums to +3.01 dB at ${frequencyHz} Hz with the returned polarity; a Linkwitz-Riley crossover sums flat.`,
+      message: `An order-${order} Butterworth crossover sums to +3.01 dB at ${presentHz(frequencyHz)} Hz with the returned polarity; a Linkwitz-Riley crossover sums flat.`,
     });
   }
   return {

@@ -28,8 +28,12 @@ describe('eqExtremes: the largest boost of the bands together, as designed', () 
     expect(Math.abs(x.maxBoostDb - top)).toBeLessThan(0.01);
     expect(x.maxBoostDb).toBeGreaterThan(14.3);
     expect(Math.abs(Math.log2((x.maxBoostHz ?? 0) / grid[summed.indexOf(top)]))).toBeLessThan(1 / 48);
-    expect(eqBoostCaution(filters, 48000)?.message).toMatch(
-      /^This EQ boosts by up to 14\.3\d dB at 39\.\d+ Hz/,
+    // One wording for every answer: the summed figure, rounded as answers round dB and Hz.
+    expect(eqBoostCaution([{ filters }], 48000)?.message).toMatch(
+      /^Boosts: EQ \+14\.3\d dB at 39\.\d\d? Hz \(EQ figures are the bands together, as designed\)/,
+    );
+    expect(eqBoostCaution([{ channel: 'LFE1', filters, trimDb: 2 }], 48000, true)?.message).toMatch(
+      /^Loading these settings puts boosts into the processor: LFE1 \(EQ \+14\.3\d dB at 39\.\d\d? Hz, trim \+2 dB\)/,
     );
   });
 
@@ -37,6 +41,6 @@ describe('eqExtremes: the largest boost of the bands together, as designed', () 
     const cut = [{ type: 'peaking' as const, frequencyHz: 63, gainDb: -6, q: 4 }];
     expect(eqExtremes(cut, 48000)).toMatchObject({ maxBoostDb: 0, maxBoostHz: null });
     expect(eqExtremes(cut, 48000).maxCutDb).toBeCloseTo(6, 6);
-    expect(eqBoostCaution([{ type: 'notch', frequencyHz: 60, q: 10 }], 48000)).toBeNull();
+    expect(eqBoostCaution([{ filters: [{ type: 'notch', frequencyHz: 60, q: 10 }] }], 48000)).toBeNull();
   });
 });

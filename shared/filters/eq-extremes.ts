@@ -1,3 +1,4 @@
+import { presentDb, presentHz } from '../present';
 import { logFrequencyGrid } from '../dsp/grid';
 import { sosMagnitudeDb, unitCircle } from '../dsp/response';
 import { designBiquads, type FilterSpec } from './biquad-design';
@@ -45,25 +46,43 @@ export function eqExtremes(filters: readonly FilterSpec[], sampleRateHz: number)
   };
 }
 
-const round2 = (value: number): number => Math.round(value * 100) / 100;
+/** One output whose boosts a caution names: its EQ (as designed) and, for stored tunings, its trim. */
+export interface BoostSource {
+  /** The channel's label; absent for a lone EQ (`POST /v1/biquads`, `POST /v1/eq/fit`). */
+  channel?: string;
+  filters: readonly FilterSpec[];
+  trimDb?: number;
+}
 
 /**
- * The boost caution of an EQ, or null when its designed response never rises above 0 dB: the largest
- * boost of the bands together (eqExtremes) and where, not the gain of the largest single band (a +9 dB
- * shelf under a +12 dB peak boosts more than 12 dB). `subject` names what boosts ("This EQ",
- * "M+030's EQ").
+ * The one boost caution of every answer (biquads, EQ fits, plans, tunings, exports), or null when
+ * nothing boosts: per output the largest boost of its EQ bands together as designed (eqExtremes) and
+ * where, not the gain of the largest single band (a +9 dB shelf at 30 Hz under a +12 dB peak at 40 Hz
+ * boosts 14.35 dB at 39.7 Hz), and a positive trim. `forExport`: the settings are about to reach a
+ * processor.
  */
 export function eqBoostCaution(
-  filters: readonly FilterSpec[],
+  sources: readonly BoostSource[],
   sampleRateHz: number,
-  subject = 'This EQ',
+  forExport = false,
 ): { code: 'eqBoost'; message: string } | null {
-  const { maxBoostDb, maxBoostHz } = eqExtremes(filters, sampleRateHz);
-  if (maxBoostDb <= 0 || maxBoostHz === null) return null;
+  const parts = sources.flatMap((source) => {
+    const { maxBoostDb, maxBoostHz } = eqExtremes(source.filters, sampleRateHz);
+    const figures = [
+      ...(maxBoostDb > 0 && maxBoostHz !== null
+        ? [`EQ +${presentDb(maxBoostDb)} dB at ${presentHz(maxBoostHz)} Hz`]
+        : []),
+      ...(source.trimDb !== undefined && source.trimDb > 0 ? [`trim +${presentDb(source.trimDb)} dB`] : []),
+    ];
+    if (figures.length === 0) return [];
+    return [source.channel === undefined ? figures.join(', ') : `${source.channel} (${figures.join(', ')})`];
+  });
+  if (parts.length === 0) return null;
   return {
     code: 'eqBoost',
     message:
-      `${subject} boosts by up to ${round2(maxBoostDb)} dB at ${round2(maxBoostHz)} Hz (its bands together, as designed). ` +
-      'Boosts, especially at low frequencies, can overdrive amplifiers and drivers; prefer cuts and check headroom.',
+      (forExport ? 'Loading these settings puts boosts into the processor: ' : 'Boosts: ') +
+      `${parts.join('; ')} (EQ figures are the bands together, as designed). ` +
+      'Boosts, especially at low frequencies, can overdrive amplifiers and drivers: check headroom, prefer cuts, and raise the level with the system turned down.',
   };
 }

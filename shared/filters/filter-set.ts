@@ -7,6 +7,7 @@ import { cascadeResponse, type FrequencyResponse } from '../dsp/response';
 import type { Sos } from '../dsp/sos';
 import { designBiquads, type FilterSpec } from './biquad-design';
 import { eqBoostCaution } from './eq-extremes';
+import { presentDb } from '../present';
 
 export interface FilterSetInput {
   filters: FilterSpec[];
@@ -75,7 +76,7 @@ function limitWarnings(filters: FilterSpec[], limits: FilterSetInput['limits']):
     for (const { i, gainDb } of gains.filter((g) => g.gainDb > eqMaxBoostDb)) {
       warnings.push({
         code: 'boostLimitExceeded',
-        message: `Filter ${i} boosts ${gainDb} dB, more than the processor's ${eqMaxBoostDb} dB.`,
+        message: `Filter ${i} boosts ${presentDb(gainDb)} dB, more than the processor's ${presentDb(eqMaxBoostDb)} dB.`,
       });
     }
   }
@@ -84,7 +85,7 @@ function limitWarnings(filters: FilterSpec[], limits: FilterSetInput['limits']):
     for (const { i, gainDb } of gains.filter((g) => -g.gainDb > eqMaxCutDb)) {
       warnings.push({
         code: 'cutLimitExceeded',
-        message: `Filter ${i} cuts ${-gainDb} dB, more than the processor's ${eqMaxCutDb} dB.`,
+        message: `Filter ${i} cuts ${presentDb(-gainDb)} dB, more than the processor's ${presentDb(eqMaxCutDb)} dB.`,
       });
     }
   }
@@ -92,6 +93,6 @@ function limitWarnings(filters: FilterSpec[], limits: FilterSetInput['limits']):
 }
 
 function boostCautions(filters: FilterSpec[], sampleRateHz: number): Caution[] {
-  const caution = eqBoostCaution(filters, sampleRateHz);
+  const caution = eqBoostCaution([{ filters }], sampleRateHz);
   return caution ? [caution] : [];
 }

@@ -165,6 +165,8 @@ describe('the "all channels together" figure is the power sum of the levels the 
   it('hearing cautions defer to local occupational limits and name one published figure', () => {
     const plan = computeLevelTrims({ channels: [{ id: 'a', measuredDb: 80 }], targetDb: 79 });
     expect(plan.cautions[0].message).toMatch(/occupational noise limits that apply where you work/);
-    expect(plan.cautions[0].message).toMatch(/NIOSH recommends at most 85 dBA over 8 hours/);
+    expect(plan.cautions[0].message).toMatch(
+      /NIOSH \(Criteria for a Recommended Standard, 1998\) recommends at most 85 dBA over 8 hours/,
+    );
   });
 });

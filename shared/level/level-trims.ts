@@ -3,6 +3,7 @@ import { CalculationInputError, requireInRange } from '../errors';
 import type { Caution, CalculationWarning } from '../notices';
 import { HEARING_CAUTION } from '../plan/hearing';
 import { parseDistanceM, type DistanceInput } from '../units/distance';
+import { presentDb } from '../present';
 
 /** Range of levels, targets and reference levels accepted, in dB. */
 export const LEVEL_LIMIT_DB = 150;
@@ -105,7 +106,7 @@ export function computeLevelTrims(input: LevelInput): LevelPlan {
       warnings.push({
         code: 'trimClamped',
         channel: channel.id,
-        message: `${channel.id} needs a trim of ${round2(idealDb)} dB but the processor allows ${trimMinDb ?? '−∞'} to ${trimMaxDb ?? '+∞'} dB; it will be ${round2(Math.abs(idealDb - trimDb))} dB ${idealDb > trimDb ? 'quiet' : 'loud'}.`,
+        message: `${channel.id} needs a trim of ${round2(idealDb)} dB but the processor allows ${trimMinDb === undefined ? '−∞' : presentDb(trimMinDb)} to ${trimMaxDb === undefined ? '+∞' : presentDb(trimMaxDb)} dB; it will be ${round2(Math.abs(idealDb - trimDb))} dB ${idealDb > trimDb ? 'quiet' : 'loud'}.`,
       });
     }
     return {
@@ -211,7 +212,7 @@ function levelCautions(results: LevelChannelResult[], trimMaxDb: number | undefi
   if (starved.length > 0) {
     cautions.push({
       code: 'trimAtLimit',
-      message: `${starved.map((r) => r.id).join(', ')} ${starved.length === 1 ? 'reads' : 'read'} so low that the trim runs into its limit of +${trimMaxDb} dB. A channel this quiet usually has a fault: check the loudspeaker and its wiring before adding gain.`,
+      message: `${starved.map((r) => r.id).join(', ')} ${starved.length === 1 ? 'reads' : 'read'} so low that the trim runs into its limit of +${presentDb(trimMaxDb ?? 0)} dB. A channel this quiet usually has a fault: check the loudspeaker and its wiring before adding gain.`,
     });
   }
   return cautions;

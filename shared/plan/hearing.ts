@@ -7,5 +7,5 @@ export const NIOSH_REL_DBA = 85;
  */
 export const HEARING_CAUTION =
   'Protect hearing and follow the occupational noise limits that apply where you work; for reference, ' +
-  `NIOSH recommends at most ${NIOSH_REL_DBA} dBA over 8 hours, halving the time for every 3 dB more. ` +
+  `NIOSH (Criteria for a Recommended Standard, 1998) recommends at most ${NIOSH_REL_DBA} dBA over 8 hours, halving the time for every 3 dB more. ` +
   'Calibration levels are usually read C-weighted; exposure limits are A-weighted.';

@@ -310,7 +310,7 @@ export function planRoom(input: PlanInput): RoomPlan {
     channels,
     subwoofer,
     warnings,
-    cautions: planCautions(layout, channels, levels?.cautions ?? [], bass?.cautions ?? []),
+    cautions: planCautions(layout, channels, levels?.cautions ?? [], bass?.cautions ?? [], fs),
   };
 }
 

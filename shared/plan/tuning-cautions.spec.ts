@@ -39,12 +39,12 @@ describe('tuningCautions', () => {
         }),
       ]),
     );
-    expect(byCode(cautions, 'boost')).toMatch(/^Boosts: LFE1 \(EQ \+14\.3\d dB at 39\.\d+ Hz\)/);
+    expect(byCode(cautions, 'eqBoost')).toMatch(/^Boosts: LFE1 \(EQ \+14\.3\d dB at 39\.\d+ Hz\)/);
   });
 
   it('at export says the boosts reach the processor now', () => {
     const cautions = tuningCautions(settings([channel({ trimDb: 2 })]), { forExport: true });
-    expect(byCode(cautions, 'boost')).toMatch(
+    expect(byCode(cautions, 'eqBoost')).toMatch(
       /^Loading these settings puts boosts into the processor: M\+030 \(trim \+2 dB\)/,
     );
   });

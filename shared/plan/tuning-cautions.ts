@@ -1,12 +1,12 @@
-import { eqExtremes } from '../filters/eq-extremes';
+import { eqBoostCaution } from '../filters/eq-extremes';
 import type { Layout } from '../layouts';
 import type { Caution } from '../notices';
+import { presentDb } from '../present';
 import { HEARING_CAUTION } from './hearing';
 import type { TuningSettings } from './tuning';
 import type { RoomLimits } from './tuning-limits';
 
 const LFE_LABEL = /^LFE\d*$/;
-const round2 = (value: number): number => Math.round(value * 100) / 100;
 
 export interface TuningCautionContext {
   layout?: Layout;
@@ -30,41 +30,25 @@ export function tuningCautions(settings: TuningSettings, context: TuningCautionC
       message: `Checking a tuning plays test signals at the reference level. Start with the system turned down and raise it gradually. ${HEARING_CAUTION}`,
     },
   ];
-  const boosts = settings.channels.flatMap((c) => {
-    const eq = eqExtremes(c.eq, settings.sampleRateHz);
-    const parts = [
-      ...(eq.maxBoostDb > 0 ? [`EQ +${round2(eq.maxBoostDb)} dB at ${round2(eq.maxBoostHz ?? 0)} Hz`] : []),
-      ...(c.trimDb > 0 ? [`trim +${round2(c.trimDb)} dB`] : []),
-    ];
-    return parts.length > 0 ? [`${c.id} (${parts.join(', ')})`] : [];
-  });
-  if (boosts.length > 0) {
-    cautions.push({
-      code: 'boost',
-      message:
-        (forExport
-          ? `Loading these settings puts boosts into the processor: ${boosts.join('; ')}. `
-          : `Boosts: ${boosts.join('; ')} (EQ figures are each channel's bands together, as designed). `) +
-        'Boosts, especially at low frequencies, can overdrive amplifiers and drivers. Check headroom, prefer cuts, and load the settings with the system turned down.',
-    });
-  }
+  const boost = eqBoostCaution(
+    settings.channels.map((c) => ({ channel: c.id, filters: c.eq, trimDb: c.trimDb })),
+    settings.sampleRateHz,
+    forExport,
+  );
+  if (boost) cautions.push(boost);
   const subChannel = settings.subwoofer?.channel;
   const fullRange = settings.channels
     .filter((c) => c.highPass === null && c.id !== subChannel && !LFE_LABEL.test(c.id))
     .map((c) => c.id);
-  if (fullRange.length > 0) {
-    cautions.push({
-      code: 'fullRangeNoHighPass',
-      message: `${fullRange.join(', ')} ${fullRange.length === 1 ? 'has' : 'have'} no high-pass and will be fed full range. Make sure each loudspeaker can take the low end at the calibration level (check its specified low-frequency limit), or give it a high-pass and bass-manage it.`,
-    });
-  }
+  const fullRangeCaution = fullRangeNoHighPassCaution(fullRange);
+  if (fullRangeCaution) cautions.push(fullRangeCaution);
   const atLimit = settings.channels.filter(
     (c) => limits?.trimMaxDb !== undefined && limits.trimMaxDb > 0 && c.trimDb >= limits.trimMaxDb,
   );
   if (atLimit.length > 0) {
     cautions.push({
       code: 'trimAtLimit',
-      message: `${atLimit.map((c) => `${c.id} (+${round2(c.trimDb)} dB)`).join(', ')} ${atLimit.length === 1 ? 'is' : 'are'} trimmed up to the room's limit of +${limits?.trimMaxDb} dB: a channel that reads this low usually has a fault. Check the loudspeaker and its wiring before adding gain.`,
+      message: `${atLimit.map((c) => `${c.id} (+${presentDb(c.trimDb)} dB)`).join(', ')} ${atLimit.length === 1 ? 'is' : 'are'} trimmed up to the room's limit of +${presentDb(limits?.trimMaxDb ?? 0)} dB: a channel that reads this low usually has a fault. Check the loudspeaker and its wiring before adding gain.`,
     });
   }
   if (settings.subwoofer?.headroomDb !== undefined && settings.channels.some((c) => c.bassManaged)) {
@@ -81,4 +65,16 @@ export function tuningCautions(settings: TuningSettings, context: TuningCautionC
     });
   }
   return cautions;
+}
+
+/**
+ * The caution for outputs fed full range without a high-pass (plans and tunings say it the same way),
+ * or null when there are none.
+ */
+export function fullRangeNoHighPassCaution(ids: readonly string[]): Caution | null {
+  if (ids.length === 0) return null;
+  return {
+    code: 'fullRangeNoHighPass',
+    message: `${ids.join(', ')} ${ids.length === 1 ? 'has' : 'have'} no high-pass and will be fed full range. Make sure each loudspeaker can take the low end at the calibration level (check its specified low-frequency limit), or give it a high-pass and bass-manage it.`,
+  };
 }

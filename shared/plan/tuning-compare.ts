@@ -1,5 +1,6 @@
 import { responseGrid } from '../dsp/grid';
 import { cascadeResponse } from '../dsp/response';
+import { presentNumbers } from '../present';
 import type { TuningSettings } from './tuning';
 import { designTuning } from './tuning-design';
 
@@ -17,7 +18,8 @@ export interface ChannelDifference {
   eqBands: { left: number; right: number };
   /**
    * Largest |right − left| of the channel's correction (trim, EQ and crossover filters, polarity aside)
-   * over 20 Hz–20 kHz at 1/6 octave, dB; null unless in both.
+   * over 20 Hz–20 kHz at 1/6 octave, where either correction is within PASSBAND_RANGE_DB of its own
+   * passband (its highest level), dB; null unless in both.
    */
   maxResponseDifferenceDb: number | null;
 }
@@ -28,7 +30,30 @@ export interface TuningComparison {
   identical: boolean;
 }
 
-const same = (a: unknown, b: unknown) => JSON.stringify(a) === JSON.stringify(b);
+/**
+ * Differences deeper than this below both corrections' passbands are not reported, dB: there the
+ * loudspeaker is filtered out and two stopbands can differ by hundreds of dB (a high-pass added to a
+ * full-range channel) without anything audible changing.
+ */
+export const PASSBAND_RANGE_DB = 30;
+
+/**
+ * Settings compared as answers show them (shared/present.ts): a tuning entered from an answer differs
+ * from the stored one only below the last shown decimal, and that is no difference.
+ */
+const same = (a: unknown, b: unknown) =>
+  JSON.stringify(presentNumbers(a)) === JSON.stringify(presentNumbers(b));
+
+/** Largest |b − a| where either response lies within PASSBAND_RANGE_DB of its own highest level. */
+function passbandDifferenceDb(a: number[], b: number[]): number {
+  const floorA = Math.max(...a) - PASSBAND_RANGE_DB;
+  const floorB = Math.max(...b) - PASSBAND_RANGE_DB;
+  let largest = 0;
+  a.forEach((v, i) => {
+    if (v >= floorA || b[i] >= floorB) largest = Math.max(largest, Math.abs(b[i] - v));
+  });
+  return largest;
+}
 
 /** Magnitude of each channel's correction on a shared grid, dB (trim + every designed section). */
 function correctionDb(settings: TuningSettings, frequenciesHz: number[]): Map<string, number[]> {
@@ -46,7 +71,9 @@ function correctionDb(settings: TuningSettings, frequenciesHz: number[]): Map<st
 /**
  * Per-channel differences between two tunings (right minus left): settings that changed, and how far
  * apart the two corrections' magnitude responses get (cascadeResponse of the sections each tuning
- * designs at its own sample rate, on a common 1/6-octave grid up to 20 kHz or 0.45·fs).
+ * designs at its own sample rate, on a common 1/6-octave grid up to 20 kHz or 0.45·fs), counted only
+ * where either is within 30 dB of its passband. Settings that differ only below what an answer shows
+ * (4 decimals of a ms, 2 of a dB or Hz) count as the same.
  */
 export function compareTunings(left: TuningSettings, right: TuningSettings): TuningComparison {
   const topHz = Math.min(20000, 0.45 * Math.min(left.sampleRateHz, right.sampleRateHz));
@@ -73,7 +100,7 @@ export function compareTunings(left: TuningSettings, right: TuningSettings): Tun
       highPassChanged: both && !same(r.highPass, l.highPass),
       eqChanged: both && !same(r.eq, l.eq),
       eqBands: { left: l?.eq.length ?? 0, right: r?.eq.length ?? 0 },
-      maxResponseDifferenceDb: a && b ? Math.max(...a.map((v, i) => Math.abs(b[i] - v))) : null,
+      maxResponseDifferenceDb: a && b ? passbandDifferenceDb(a, b) : null,
     };
   });
   const subwoofer = {

@@ -1,5 +1,6 @@
 import { toCsv, type CsvCell } from '../csv';
 import type { ProcessorExport } from './processor-export';
+import { presentationDecimals, roundTo } from '../present';
 
 export interface ExportHeader {
   /** Set when the room changed since the settings were made; written first. */
@@ -65,8 +66,14 @@ export function processorExportToCsv(header: ExportHeader, exported: ProcessorEx
   );
 
   const parameters: CsvCell[][] = [];
+  // Parameters are presented as JSON answers present them (shared/present.ts: ms 4 decimals, dB and Hz
+  // 2, samples 4), so the CSV and the JSON export agree; coefficients keep every digit.
   const row = (cells: Partial<Record<(typeof PARAMETER_COLUMNS)[number], CsvCell>>): CsvCell[] =>
-    PARAMETER_COLUMNS.map((column) => cells[column] ?? null);
+    PARAMETER_COLUMNS.map((column) => {
+      const cell = cells[column] ?? null;
+      const decimals = presentationDecimals(column);
+      return typeof cell === 'number' && decimals !== undefined ? roundTo(cell, decimals) : cell;
+    });
   for (const c of exported.channels) {
     parameters.push(
       row({

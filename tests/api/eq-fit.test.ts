@@ -94,8 +94,10 @@ describe('POST /v1/eq/fit', () => {
     const worst = Math.max(...Array.from({ length: 400 }, (_, k) => total(20 * Math.pow(25, k / 399))));
     expect(worst).toBeLessThanOrEqual(2 + 1e-6);
     expect(res.body.combined.maxBoostDb).toBeCloseTo(worst, 1);
-    expect(res.body.cautions[0].message).toContain(
-      `up to ${res.body.combined.maxBoostDb.toFixed(1)} dB (all bands together)`,
+    expect(res.body.cautions[0].message).toMatch(
+      new RegExp(
+        `^Boosts: EQ \\+${res.body.combined.maxBoostDb} dB at [\\d.]+ Hz \\(EQ figures are the bands together`,
+      ),
     );
   });
 

@@ -5,6 +5,7 @@ import { noisyDecay } from '../../shared/analysis/test-signals';
 import { expectToMatchContract } from '../support/contract';
 import { createTestContext, type TestContext } from '../support/test-context';
 import { expectProblem } from './calculation-helpers';
+import { expectAnswered } from '../support/presentation';
 
 let ctx: TestContext;
 let roomId: string;
@@ -75,7 +76,7 @@ describe('stored measurements', () => {
     // 5 %: the JND of reverberation time, ISO 3382-1 Annex A (from memory).
     expect(Math.abs(res.body.result.decay.t30S / t60 - 1)).toBeLessThan(0.05);
     // Stage 3 is 7.40 m long: first axial mode c/(2L) = 343.2/14.8 Hz at 20 °C.
-    expect(res.body.result.room.modes[0].frequencyHz).toBeCloseTo(343.2 / 14.8, 9);
+    expectAnswered(res.body.result.room.modes[0].frequencyHz, 343.2 / 14.8, 'hz');
     const read = await request(ctx.app).get(`${base()}/${res.body.id}`).set(auth());
     expect(read.status).toBe(200);
     expectToMatchContract('getMeasurement', 200, read.body);

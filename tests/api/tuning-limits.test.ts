@@ -222,6 +222,44 @@ describe('the processor profile’s limits hold when the room has one', () => {
     ]);
   });
 
+  it('values inside the ranges but off the steps are stored as given and listed with what the export gives', async () => {
+    // The demo profile's steps: 0.01 ms delay, 0.1 dB trim and gain, 1 Hz, Q 0.01 (seeds/demo-stage3-room.ts).
+    const res = await dev().post(`/v1/rooms/${roomId}/tunings`, {
+      name: 'Off the steps',
+      channels: [
+        {
+          id: 'M+030',
+          delayMs: 1.5636,
+          trimDb: -1.63,
+          eq: [{ type: 'peaking', frequencyHz: 209.7, gainDb: -3.54, q: 2.304 }],
+        },
+      ],
+    });
+    expect(res.status).toBe(201);
+    expectToMatchContract('createRoomTuning', 201, res.body);
+    expect(res.body.channels[0]).toMatchObject({ delayMs: 1.5636, trimDb: -1.63 });
+    const steps = res.body.profileSteps.map((r: { setting: string; unit: string; rounded: number }) => [
+      r.setting,
+      r.unit,
+      r.rounded,
+    ]);
+    // 1.5636 → 1.56 ms, which is 74.88 samples at 48 kHz (a whole-sample processor gives 75); −1.63 → −1.6 dB;
+    // 209.7 → 210 Hz; −3.54 → −3.5 dB; Q 2.304 → 2.3.
+    expect(steps).toEqual([
+      ['/channels/0/delayMs', 'ms', 1.56],
+      ['/channels/0/delayMs', 'samples', 75],
+      ['/channels/0/trimDb', 'dB', -1.6],
+      ['/channels/0/eq/0/frequencyHz', 'Hz', 210],
+      ['/channels/0/eq/0/gainDb', 'dB', -3.5],
+      ['/channels/0/eq/0/q', '', 2.3],
+    ]);
+    const exported = await dev().get(`/v1/tunings/${res.body.id}/export`);
+    expect(exported.status).toBe(200);
+    const caution = exported.body.header.cautions.find((c: { code: string }) => c.code === 'profileSteps');
+    expect(caution.message).toMatch(/^6 settings are not on the processor's steps/);
+    expect(exported.body.channels[0]).toMatchObject({ delayMs: 1.56, trimDb: -1.6 });
+  });
+
   it('a sample rate the profile does not run at is refused', async () => {
     const res = await dev().post(`/v1/rooms/${roomId}/tunings`, {
       name: 'At 44.1 kHz',

@@ -14,6 +14,7 @@ import {
 } from '../../shared/analysis/wav-test-files';
 import { expectProblem } from '../api/calculation-helpers';
 import { createTestContext, type TestContext } from '../support/test-context';
+import { expectAnswered } from '../support/presentation';
 
 // Hand-made WAV files that once froze the service (a walk over declared counts) or passed absurd values
 // through; each must be refused at once with a problem naming the file, on every route that takes a WAV.
@@ -159,6 +160,6 @@ it('analyses a float file above full scale as it is, with a warning', async () =
     .attach('file', floatFile(4), 'capture.wav');
   expect(res.status).toBe(200);
   // The peak is the sample of 4.0: 20·log10(4) = 12.04 dBFS.
-  expect(res.body.level.peakDbfs).toBeCloseTo(20 * Math.log10(4), 9);
+  expectAnswered(res.body.level.peakDbfs, 20 * Math.log10(4), 'db');
   expect(res.body.warnings).toContainEqual(expect.objectContaining({ code: 'aboveFullScale' }));
 });

@@ -1,6 +1,7 @@
 import Ajv2020, { type ValidateFunction } from 'ajv/dist/2020';
 import addFormats from 'ajv-formats';
 import { listOperations, loadOpenApiDocument, type OpenApiDocument } from '../../api/openapi/document';
+import { expectPresentable } from './presentation';
 
 const DOCUMENT_ID = 'isochron:contract';
 
@@ -54,8 +55,13 @@ export function responseValidator(operationId: string, status: number): Validate
   return ajv.compile({ $ref: `${pointer}/content/${escape(media)}/schema` });
 }
 
-/** Fails with the schema errors when a response body does not match the documented schema. */
+/**
+ * Fails with the schema errors when a response body does not match the documented schema, or when it
+ * breaks the contract's rule for numbers in answers (tests/support/presentation.ts). Refusals are
+ * checked for their schema only: a problem quotes the caller's own value as it was sent.
+ */
 export function expectToMatchContract(operationId: string, status: number, body: unknown): void {
+  if (status < 400) expectPresentable(body);
   const validate = responseValidator(operationId, status);
   if (!validate) return;
   if (!validate(body)) {
