@@ -1,7 +1,8 @@
 /** @type {import('jest').Config} */
 module.exports = {
   testEnvironment: 'node',
-  roots: ['<rootDir>/shared', '<rootDir>/api', '<rootDir>/console/src', '<rootDir>/tests'],
+  // The console's specs run in Angular's unit-test builder (vitest + jsdom): `npm run test:console`.
+  roots: ['<rootDir>/shared', '<rootDir>/api', '<rootDir>/tests'],
   testMatch: ['**/*.spec.ts', '**/*.test.ts'],
   testPathIgnorePatterns: ['/node_modules/', '/dist/', '<rootDir>/tests/browser/', '<rootDir>/tests/scaled/'],
   transform: {

@@ -3,7 +3,9 @@ import path from 'node:path';
 import express, { type Express } from 'express';
 import helmet from 'helmet';
 import { authenticate } from './auth/authenticate';
+import { chain } from './http/chain';
 import { refuseNulInUrl } from './http/nul-guard';
+import { fixedSecurityHeaders } from './http/security-headers';
 import { requestId } from './http/request-id';
 import { notFoundHandler, problemHandler } from './http/problem';
 import { presentNumbersInAnswers } from './http/present';
@@ -29,9 +31,8 @@ export function createApp(services: Services): Express {
   app.set('json spaces', 0);
   presentNumbersInAnswers(app);
 
-  app.use(requestId);
-  app.use(refuseNulInUrl);
-  app.use(
+  // Request id, the NUL guard and the security headers as one layer: every response carries them.
+  const securityHeaders = fixedSecurityHeaders(
     helmet({
       contentSecurityPolicy: {
         directives: {
@@ -47,22 +48,27 @@ export function createApp(services: Services): Express {
       },
     }),
   );
+  app.use(chain(requestId, refuseNulInUrl, securityHeaders));
   app.use(express.json({ limit: JSON_BODY_LIMIT, strict: true }));
+
+  // The API first and as one layer: its requests pass no other router's layers, and its stages run as
+  // plain calls (see `chain`), in this order; `v1Router` picks the resource routers by path segment.
+  app.use(
+    '/v1',
+    chain(
+      authenticate(services.keys, services.sessionPrincipal),
+      // Counted in this process, or in Redis shared by every instance (services.shared).
+      createRateLimiter(services, { store: services.shared.rateLimitStore('key') }),
+      createUserRateLimiter(services, { store: services.shared.rateLimitStore('user') }),
+      services.usage.middleware,
+      v1Router(services),
+      notFoundHandler,
+    ),
+  );
 
   app.use(healthRouter(services));
   app.use(docsRouter(getContract().document));
   app.use('/auth', sessionRouter(services));
-
-  app.use(
-    '/v1',
-    authenticate(services.keys, services.sessionPrincipal),
-    // Counted in this process, or in Redis shared by every instance (services.shared).
-    createRateLimiter(services, { store: services.shared.rateLimitStore('key') }),
-    createUserRateLimiter(services, { store: services.shared.rateLimitStore('user') }),
-    services.usage.middleware,
-    v1Router(services),
-  );
-  app.use('/v1', notFoundHandler);
 
   serveConsole(app, config.consoleDir);
   app.use(notFoundHandler);

@@ -1,6 +1,7 @@
-import { Router } from 'express';
+import type { RequestHandler } from 'express';
 import { analysisRouter } from './analysis/analysis.router';
 import { calculationsRouter } from './calculations/calculations.router';
+import { dispatchByFirstSegment } from './http/segment-dispatch';
 import { keysRouter } from './keys/keys.router';
 import { layoutsRouter } from './layouts/layouts.router';
 import { outboxRouter } from './mail/outbox.router';
@@ -16,24 +17,26 @@ import { usageRouter } from './usage/usage.router';
 import { usersRouter } from './users/users.router';
 
 /**
- * Every `/v1` resource router, mounted after authentication, rate limiting and metering. Each resource
- * has its folder (`api/<resource>/`) with its router; add one line here per resource.
+ * Every `/v1` resource router, run after authentication, rate limiting and metering. Each resource has
+ * its folder (`api/<resource>/`) with its router; add one line here per resource. A request goes only to
+ * the routers that have a route for its first path segment (`dispatchByFirstSegment`), in this order,
+ * as if they were mounted one after another; it calls `next()` when none answers.
  */
-export function v1Router(services: Services): Router {
-  const router = Router();
-  router.use(layoutsRouter());
-  router.use(calculationsRouter(services));
-  router.use(analysisRouter(services));
-  router.use(testSignalsRouter());
-  router.use(usersRouter(services));
-  router.use(outboxRouter(services));
-  router.use(keysRouter(services));
-  router.use(usageRouter(services));
-  router.use(profilesRouter(services));
-  router.use(roomsRouter(services));
-  router.use(measurementsRouter(services));
-  router.use(roomPlansRouter(services));
-  router.use(tuningsRouter(services));
-  router.use(targetCurvesRouter(services));
-  return router;
+export function v1Router(services: Services): RequestHandler {
+  return dispatchByFirstSegment([
+    layoutsRouter(),
+    calculationsRouter(services),
+    analysisRouter(services),
+    testSignalsRouter(),
+    usersRouter(services),
+    outboxRouter(services),
+    keysRouter(services),
+    usageRouter(services),
+    profilesRouter(services),
+    roomsRouter(services),
+    measurementsRouter(services),
+    roomPlansRouter(services),
+    tuningsRouter(services),
+    targetCurvesRouter(services),
+  ]);
 }

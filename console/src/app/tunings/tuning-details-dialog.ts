@@ -10,7 +10,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
-import { NAME_MAX_LENGTH } from '../../../../shared/limits';
+import { LIMITS, NAME_MAX_LENGTH } from '../../../../shared/limits';
 
 /** A name must have something besides spaces: the API trims nothing and would store "   ". */
 export function notBlank(control: AbstractControl<string>): ValidationErrors | null {
@@ -44,10 +44,10 @@ export interface TuningDetails {
             matInput
             formControlName="notes"
             rows="5"
-            maxlength="4000"
+            [maxlength]="maxNotes"
             data-testid="tuning-notes"
           ></textarea>
-          <mat-hint align="end">{{ form.controls.notes.value.length }} / 4000</mat-hint>
+          <mat-hint align="end">{{ form.controls.notes.value.length }} / {{ maxNotes }}</mat-hint>
         </mat-form-field>
       </mat-dialog-content>
       <mat-dialog-actions align="end">
@@ -71,9 +71,10 @@ export class TuningDetailsDialog {
   private readonly data = inject<TuningDetails>(MAT_DIALOG_DATA);
   private readonly dialogRef = inject<MatDialogRef<TuningDetailsDialog, TuningDetails>>(MatDialogRef);
   protected readonly maxName = NAME_MAX_LENGTH;
+  protected readonly maxNotes = LIMITS['TuningUpdate.notes'].maxLength;
   protected readonly form = inject(NonNullableFormBuilder).group({
     name: [this.data.name, [Validators.required, notBlank, Validators.maxLength(NAME_MAX_LENGTH)]],
-    notes: [this.data.notes ?? '', Validators.maxLength(4000)],
+    notes: [this.data.notes ?? '', Validators.maxLength(LIMITS['TuningUpdate.notes'].maxLength)],
   });
 
   protected confirm(): void {

@@ -14,6 +14,9 @@ import { grantableKeyRoles, roleLabel } from '../../auth/roles';
 import { SessionService } from '../../auth/session.service';
 import { PlaygroundCredentials } from '../../playground/playground-credentials.service';
 import { errorMessage } from '../../problem/http-problem';
+import { notBlank } from '../../tunings/tuning-details-dialog';
+import { LIMITS, NAME_MAX_LENGTH } from '../../../../../shared/limits';
+import { formatCount } from '../../format/format';
 import { endOfLocalDay } from '../key-format';
 import { CreatedKey, KeyRole, NewKeyRequest } from '../key.model';
 import { KeysService } from '../keys.service';
@@ -55,12 +58,18 @@ export class KeyCreateDialog {
   protected readonly roleLabel = roleLabel;
   protected readonly canSetRateLimit = this.session.can('keys:setRateLimit');
   protected readonly today = new Date();
+  protected readonly maxName = NAME_MAX_LENGTH;
+  protected readonly rateLimit = LIMITS.KeyRateLimit;
+  protected readonly rateLimitRange = `Between ${formatCount(LIMITS.KeyRateLimit.minimum)} and ${formatCount(LIMITS.KeyRateLimit.maximum)}.`;
 
   protected readonly form = inject(NonNullableFormBuilder).group({
-    name: ['', [Validators.required, Validators.maxLength(100)]],
+    name: ['', [Validators.required, notBlank, Validators.maxLength(NAME_MAX_LENGTH)]],
     role: [this.roles.includes('calculate') ? ('calculate' as KeyRole) : this.roles[0], Validators.required],
     expires: [null as Date | null],
-    rateLimitPerMinute: [null as number | null, [Validators.min(1), Validators.max(100000)]],
+    rateLimitPerMinute: [
+      null as number | null,
+      [Validators.min(LIMITS.KeyRateLimit.minimum), Validators.max(LIMITS.KeyRateLimit.maximum)],
+    ],
   });
 
   protected readonly busy = signal(false);

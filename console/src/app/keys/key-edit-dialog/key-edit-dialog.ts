@@ -8,6 +8,9 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { SessionService } from '../../auth/session.service';
 import { errorMessage } from '../../problem/http-problem';
+import { notBlank } from '../../tunings/tuning-details-dialog';
+import { LIMITS, NAME_MAX_LENGTH } from '../../../../../shared/limits';
+import { formatCount } from '../../format/format';
 import { endOfLocalDay, maskedKey } from '../key-format';
 import { ApiKey, KeyChanges } from '../key.model';
 import { KeysService } from '../keys.service';
@@ -38,7 +41,7 @@ import { KeysService } from '../keys.service';
         }
         <mat-form-field>
           <mat-label>Name</mat-label>
-          <input matInput formControlName="name" maxlength="100" required data-testid="edit-key-name" />
+          <input matInput formControlName="name" [maxlength]="maxName" required data-testid="edit-key-name" />
           @if (form.controls.name.hasError('required')) {
             <mat-error>Give the key a name.</mat-error>
           }
@@ -48,8 +51,8 @@ import { KeysService } from '../keys.service';
           <input
             matInput
             type="number"
-            min="1"
-            max="100000"
+            [min]="rateLimit.minimum"
+            [max]="rateLimit.maximum"
             formControlName="rateLimitPerMinute"
             data-testid="edit-rate-limit"
           />
@@ -57,7 +60,7 @@ import { KeysService } from '../keys.service';
             canSetRateLimit ? 'Empty uses the default.' : 'Only an admin changes rate limits.'
           }}</mat-hint>
           @if (form.controls.rateLimitPerMinute.invalid) {
-            <mat-error>Between 1 and 100 000.</mat-error>
+            <mat-error>{{ rateLimitRange }}</mat-error>
           }
         </mat-form-field>
         <mat-form-field>
@@ -99,6 +102,9 @@ export class KeyEditDialog {
   private readonly dialogRef = inject<MatDialogRef<KeyEditDialog, ApiKey>>(MatDialogRef);
   protected readonly canSetRateLimit = inject(SessionService).can('keys:setRateLimit');
   protected readonly masked = maskedKey(this.key);
+  protected readonly maxName = NAME_MAX_LENGTH;
+  protected readonly rateLimit = LIMITS.KeyRateLimit;
+  protected readonly rateLimitRange = `Between ${formatCount(LIMITS.KeyRateLimit.minimum)} and ${formatCount(LIMITS.KeyRateLimit.maximum)}.`;
   private readonly expired = this.key.status === 'expired';
   /** Only an admin moves an expiry later or removes it; an owner may only bring it nearer. */
   protected readonly latestExpiry =
@@ -114,10 +120,10 @@ export class KeyEditDialog {
   protected readonly error = signal<string | null>(null);
 
   protected readonly form = inject(NonNullableFormBuilder).group({
-    name: [this.key.name, [Validators.required, Validators.maxLength(100)]],
+    name: [this.key.name, [Validators.required, notBlank, Validators.maxLength(NAME_MAX_LENGTH)]],
     rateLimitPerMinute: [
       { value: this.key.rateLimitPerMinute, disabled: !this.canSetRateLimit },
-      [Validators.min(1), Validators.max(100000)],
+      [Validators.min(LIMITS.KeyRateLimit.minimum), Validators.max(LIMITS.KeyRateLimit.maximum)],
     ],
     expires: [
       {

@@ -129,6 +129,7 @@ export interface EqFitRequest {
   maxCutDb: number;
   fromHz?: number;
   toHz?: number;
+  /** The room's volume and measured reverberation time, for the transition frequency the fit starts below. */
   room?: { volumeM3: number; reverberationTimeS?: number };
 }
 

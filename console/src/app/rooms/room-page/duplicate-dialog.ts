@@ -5,6 +5,7 @@ import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/materia
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { notBlank } from '../../tunings/tuning-details-dialog';
+import { NAME_MAX_LENGTH } from '../../../../../shared/limits';
 
 export interface NameDialogData {
   title: string;
@@ -30,7 +31,13 @@ export interface NameDialogData {
         </p>
         <mat-form-field class="full">
           <mat-label>{{ data.action ? 'Name' : 'Name of the copy' }}</mat-label>
-          <input matInput formControlName="name" maxlength="120" required data-testid="duplicate-name" />
+          <input
+            matInput
+            formControlName="name"
+            [maxlength]="maxName"
+            required
+            data-testid="duplicate-name"
+          />
           @if (form.controls.name.invalid) {
             <mat-error>Give it a name.</mat-error>
           }
@@ -58,8 +65,12 @@ export interface NameDialogData {
 export class DuplicateDialog {
   protected readonly data = inject<NameDialogData>(MAT_DIALOG_DATA);
   private readonly dialogRef = inject<MatDialogRef<DuplicateDialog, string>>(MatDialogRef);
+  protected readonly maxName = NAME_MAX_LENGTH;
   protected readonly form = inject(NonNullableFormBuilder).group({
-    name: [this.data.name.slice(0, 120), [Validators.required, notBlank, Validators.maxLength(120)]],
+    name: [
+      this.data.name.slice(0, NAME_MAX_LENGTH),
+      [Validators.required, notBlank, Validators.maxLength(NAME_MAX_LENGTH)],
+    ],
   });
 
   protected confirm(): void {

@@ -8,6 +8,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { UserRole, roleLabel } from '../../auth/roles';
 import { errorMessage } from '../../problem/http-problem';
+import { NAME_MAX_LENGTH } from '../../../../../shared/limits';
 import { InvitationResult } from '../user.model';
 import { UsersService } from '../users.service';
 
@@ -47,7 +48,7 @@ const ROLE_HINTS: Record<UserRole, string> = {
         </mat-form-field>
         <mat-form-field>
           <mat-label>Name (optional)</mat-label>
-          <input matInput formControlName="name" maxlength="120" />
+          <input matInput formControlName="name" [maxlength]="maxName" />
         </mat-form-field>
         <mat-form-field>
           <mat-label>Role</mat-label>
@@ -85,11 +86,12 @@ export class InviteDialog {
   protected readonly roles: UserRole[] = ['viewer', 'developer', 'admin'];
   protected readonly hints = ROLE_HINTS;
   protected readonly roleLabel = roleLabel;
+  protected readonly maxName = NAME_MAX_LENGTH;
   protected readonly busy = signal(false);
   protected readonly error = signal<string | null>(null);
   protected readonly form = inject(NonNullableFormBuilder).group({
     email: ['', [Validators.required, Validators.email, Validators.maxLength(254)]],
-    name: [''],
+    name: ['', Validators.maxLength(NAME_MAX_LENGTH)],
     role: ['developer' as UserRole, Validators.required],
   });
 
