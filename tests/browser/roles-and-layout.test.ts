@@ -72,7 +72,17 @@ describe('the demo viewer', () => {
 
       await openPage(page, service.origin, '/playground', 'Playground');
       expect(await page.getByTestId('playground-key').count()).toBe(1);
-      await page.getByText('Paste an API key, or send with your session.').waitFor();
+      // Not a dead end: the page says what a viewer can do here, and does not offer the session it may not use.
+      await page
+        .getByText('Paste an API key: your role cannot send this with the console session.')
+        .waitFor();
+      expect(await page.getByTestId('playground-role-note').textContent()).toMatch(
+        /What you can do here as Viewer.*a Developer or Admin gives you/s,
+      );
+      expect(
+        await page.getByRole('radio', { name: /My console session \(not for Viewer\)/ }).isDisabled(),
+      ).toBe(true);
+      await openPage(page, service.origin, '/playground', 'Playground');
       await screenshot(page, 'playground-viewer');
     });
   });

@@ -67,18 +67,59 @@ it('duplicates a tuning and compares the copy with its source', async () => {
   await screenshot(page, 'room-compare');
 });
 
-it('exports coefficients and links to the printable report', async () => {
-  await page.getByRole('button', { name: /Export Full range/ }).click();
+it('exports for a chosen processor profile with what rounding cost and the cautions, then links to the report', async () => {
+  // The tuning planned from the demo's measurements has fitted EQ, whose rounding to the demo profile's
+  // steps costs something (the README's worked example: the subwoofer's band moved to whole hertz).
+  await page.getByRole('button', { name: /Export Planned from measurements/ }).click();
+  const dialog = page.getByRole('dialog');
+  const headline = dialog.getByTestId('export-rounding');
+  await headline.waitFor();
+  // The room's profile is the default; the headline names the worst channel and frequency.
+  expect(await headline.textContent()).toMatch(
+    /Rounding to Generic 8-band, 48\/96 kHz.* changes the EQ by at most \d+\.\d\d\s*dB \([A-Z0-9+-]+ at [\d.k]+ Hz\)/,
+  );
+  const table = dialog.getByTestId('export-channels');
+  expect(await table.locator('tbody tr').count()).toBe(12);
+  // The table's worst figure is the headline's.
+  const cells = await table.locator('tbody tr td:last-child').allTextContents();
+  const worst = Math.max(...cells.map((c) => Number(/(\d+\.\d+)\s*dB/.exec(c)?.[1] ?? 0)));
+  expect((await headline.textContent()) ?? '').toContain(worst.toFixed(2));
+  expect(await dialog.getByTestId('export-cautions').textContent()).toMatch(
+    /Start with the system turned down/,
+  );
+  await page.waitForTimeout(200);
+  await screenshot(page, 'export-dialog');
+
   const [download] = await Promise.all([
     page.waitForEvent('download'),
-    page.getByRole('menuitem', { name: 'Coefficients as JSON' }).click(),
+    dialog.getByTestId('export-json').click(),
   ]);
   const exported = JSON.parse(readFileSync((await download.path()) as string, 'utf8')) as {
-    header: { convention: string };
-    channels: Array<{ id: string }>;
+    header: { convention: string; profile: { name: string } | null };
+    channels: Array<{ id: string; eqRounding: { maxDeviationDb: number } }>;
   };
   expect(exported.header.convention).toMatch(/a0 = 1/);
-  expect(exported.channels.map((channel) => channel.id)).toContain('M+030');
+  expect(exported.header.profile?.name).toMatch(/Generic 8-band/);
+  expect(Math.max(...exported.channels.map((c) => c.eqRounding.maxDeviationDb)).toFixed(2)).toBe(
+    worst.toFixed(2),
+  );
+
+  // Exact values: nothing rounded, and the download says no profile.
+  await dialog.getByTestId('export-profile').focus();
+  await dialog.getByTestId('export-profile').press('Enter');
+  await page.getByRole('option', { name: 'Exact values (no profile)' }).click();
+  await headline.filter({ hasText: 'exact values' }).waitFor();
+  expect(await headline.textContent()).toMatch(/changes no channel’s EQ by 0\.01 dB or more/);
+  const [exact] = await Promise.all([
+    page.waitForEvent('download'),
+    dialog.getByTestId('export-json').click(),
+  ]);
+  const exactBody = JSON.parse(readFileSync((await exact.path()) as string, 'utf8')) as {
+    header: { profile: unknown };
+  };
+  expect(exactBody.header.profile).toBeNull();
+  await dialog.getByRole('button', { name: 'Close' }).click();
+  await dialog.waitFor({ state: 'detached' });
 
   // The Report button asks which tuning the report is of.
   await page.getByTestId('room-report').click();
@@ -99,4 +140,11 @@ it('shows the room on a 390 px phone without sideways scrolling', async () => {
   await page.getByTestId('room-top-view').locator('canvas').waitFor();
   expect(await horizontalOverflow(page)).toEqual([]);
   await screenshot(page, 'phone-room');
+  // On a phone the export is on the tuning page.
+  await page.getByRole('link', { name: /Planned from measurements/ }).click();
+  await page.getByTestId('tuning-export').click();
+  await page.getByRole('dialog').getByTestId('export-rounding').waitFor();
+  expect(await horizontalOverflow(page)).toEqual([]);
+  await screenshot(page, 'phone-export-dialog');
+  await page.getByRole('dialog').getByRole('button', { name: 'Close' }).click();
 });

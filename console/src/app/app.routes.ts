@@ -61,6 +61,12 @@ export const routes: Routes = [
         loadComponent: () => import('./rooms/room-page/room-page').then((m) => m.RoomPage),
       },
       {
+        path: 'rooms/:roomId/capture',
+        title: 'Measure from the browser · Isochron',
+        canActivate: [requireCapability('rooms:view')],
+        loadComponent: () => import('./capture/capture-page/capture-page').then((m) => m.CapturePage),
+      },
+      {
         path: 'rooms/:roomId/tunings/:tuningId',
         title: 'Tuning · Isochron',
         canActivate: [requireCapability('rooms:view')],

@@ -43,12 +43,14 @@ export interface ConsoleBrowser {
 export async function launchBrowser(
   origin: string,
   colorScheme: 'light' | 'dark' = 'light',
+  /** More Chromium flags, e.g. the fake capture device of the capture test. */
+  extraArgs: readonly string[] = [],
 ): Promise<ConsoleBrowser> {
   const profile = mkdtempSync(path.join(tmpdir(), 'isochron-chromium-'));
   const context = await chromium.launchPersistentContext(profile, {
     executablePath: '/usr/bin/chromium',
     headless: true,
-    args: CHROMIUM_ARGS,
+    args: [...CHROMIUM_ARGS, ...extraArgs],
     viewport: DESKTOP,
     colorScheme,
     acceptDownloads: true,

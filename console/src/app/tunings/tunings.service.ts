@@ -1,3 +1,4 @@
+import type { TuningExport } from './export-summary';
 import { HttpClient, HttpHeaders, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { EMPTY, Observable, expand, map, reduce } from 'rxjs';
@@ -71,14 +72,45 @@ export class TuningsService {
     return this.http.get<TuningComparison>('/v1/tunings/compare', { params });
   }
 
-  /** Coefficient tables for a processor, designed at the tuning's sample rate. */
-  export(tuningId: string, format: 'json' | 'csv', version?: number): Observable<Blob> {
-    let params = new HttpParams().set('format', format);
-    if (version) params = params.set('version', version);
+  /**
+   * Coefficient tables for a processor. `profile`: a processor profile id, `none` for exact values, or
+   * absent for the room's profile; `sampleRateHz`: absent for the tuning's own rate.
+   */
+  export(
+    tuningId: string,
+    format: 'json' | 'csv',
+    version?: number,
+    options: ExportOptions = {},
+  ): Observable<Blob> {
     return this.http.get(`${path(tuningId)}/export`, {
-      params,
+      params: exportParams(format, version, options),
       headers: new HttpHeaders({ Accept: format === 'csv' ? 'text/csv' : 'application/json' }),
       responseType: 'blob',
     });
   }
+
+  /** The JSON export, read rather than downloaded: what rounding cost and the export's cautions. */
+  exportPreview(tuningId: string, version?: number, options: ExportOptions = {}): Observable<TuningExport> {
+    return this.http.get<TuningExport>(`${path(tuningId)}/export`, {
+      params: exportParams('json', version, options),
+    });
+  }
+}
+
+/** A processor export's choices. */
+export interface ExportOptions {
+  profile?: string;
+  sampleRateHz?: number;
+}
+
+function exportParams(
+  format: 'json' | 'csv',
+  version: number | undefined,
+  options: ExportOptions,
+): HttpParams {
+  let params = new HttpParams().set('format', format);
+  if (version) params = params.set('version', version);
+  if (options.profile) params = params.set('profile', options.profile);
+  if (options.sampleRateHz) params = params.set('sampleRateHz', options.sampleRateHz);
+  return params;
 }

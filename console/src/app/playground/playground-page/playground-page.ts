@@ -19,6 +19,7 @@ import { MatRadioModule } from '@angular/material/radio';
 import { MatSelectModule } from '@angular/material/select';
 import { Router } from '@angular/router';
 import { SessionService } from '../../auth/session.service';
+import { roleLabel } from '../../auth/roles';
 import { errorMessage } from '../../problem/http-problem';
 import { parseJsonText } from '../json-text';
 import { PlaygroundOperation, groupByTag, listOperations } from '../openapi-operations';
@@ -116,6 +117,10 @@ export class PlaygroundPage {
   protected readonly keySecret = signal(this.credentials.keySecret());
   protected readonly keyLabel = this.credentials.keyLabel;
   protected readonly sessionLimited = computed(() => !this.session.can('calculate:session'));
+  /** The signed-in role in words, for the note that says what this role can do here. */
+  protected readonly roleName = computed(() => roleLabel(this.session.role() ?? 'unknown'));
+  /** Whether the role may hold keys of its own (else a key has to come from a colleague). */
+  protected readonly holdsKeys = computed(() => this.session.can('keys:view'));
 
   protected readonly parsed = computed(() => parseJsonText(this.bodyText()));
   protected readonly schemaProblems = computed(() => {
@@ -139,7 +144,11 @@ export class PlaygroundPage {
       if (!(problem.field === 'body' && this.parsed().error)) list.push(problem.message);
     }
     if (this.authKind() === 'key' && !operation?.open && !this.keySecret().trim())
-      list.push('Paste an API key, or send with your session.');
+      list.push(
+        this.sessionLimited()
+          ? 'Paste an API key: your role cannot send this with the console session.'
+          : 'Paste an API key, or send with your session.',
+      );
     return list;
   });
 

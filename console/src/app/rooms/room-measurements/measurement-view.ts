@@ -1,6 +1,8 @@
+import { readWaveLayout } from '../../../../../shared/analysis/riff-wave';
 import {
   LABEL_MAX_LENGTH,
   LIMITS,
+  MAX_EQ_BANDS,
   MAX_FIT_POINTS,
   MAX_FREQUENCY_HZ,
   MAX_UPLOAD_BYTES,
@@ -14,7 +16,9 @@ import type {
   EqFitResult,
   Measurement,
   MeasurementKind,
+  ResponseKind,
   RoomMode,
+  TargetPoint,
 } from './measurement.model';
 
 /** The API's caps on an upload and on a fitted response, from the one limits module the contract is checked against. */
@@ -85,10 +89,16 @@ export interface UploadDraft {
   channel: string;
   micPosition: string;
   file: { name: string; size: number } | null;
+  /** Channels of the chosen WAV, when it is one. */
+  fileChannels?: number;
+  /** The chosen 0-based channel of a multichannel WAV. */
+  fileChannel?: number | null;
+  /** The chosen 0-based loopback channel, if any. */
+  referenceFileChannel?: number | null;
 }
 
 export interface DraftProblem {
-  field: 'channel' | 'micPosition' | 'file';
+  field: 'channel' | 'micPosition' | 'file' | 'fileChannel';
   message: string;
 }
 
@@ -113,6 +123,18 @@ export function uploadProblems(draft: UploadDraft, channels: readonly string[]):
       field: 'file',
       message: `${draft.file.name} is ${(draft.file.size / 1048576).toFixed(1)} MiB; the limit is 20 MiB.`,
     });
+  if ((draft.fileChannels ?? 1) > 1) {
+    if (draft.fileChannel == null)
+      problems.push({
+        field: 'fileChannel',
+        message: `This file has ${draft.fileChannels} channels: choose the one with the loudspeaker.`,
+      });
+    else if (draft.fileChannel === draft.referenceFileChannel)
+      problems.push({
+        field: 'fileChannel',
+        message: 'The loudspeaker and the timing reference cannot be the same channel.',
+      });
+  }
   return problems;
 }
 
@@ -137,6 +159,7 @@ export function eqFitRequest(
   sampleRateHz: number,
   allowBoost: boolean,
   room: { volumeM3: number; reverberationTimeS?: number | null } | null = null,
+  choices: FitChoices = {},
 ): EqFitRequest {
   const points = measured.frequenciesHz.flatMap((f, i) => {
     const db = measured.magnitudeDb[i];
@@ -146,10 +169,12 @@ export function eqFitRequest(
   return {
     sampleRateHz,
     measured: { frequenciesHz: kept.map((p) => p[0]), magnitudeDb: kept.map((p) => p[1]) },
-    target: { kind: 'flat' },
-    maxBands: limits?.eqBandsPerChannel ?? 8,
+    target: choices.targetName ? { kind: 'stored', name: choices.targetName } : { kind: 'flat' },
+    maxBands: choices.maxBands ?? defaultBandCount(limits),
     maxBoostDb: allowBoost ? (limits?.eqMaxBoostDb ?? 0) : 0,
     maxCutDb: limits?.eqMaxCutDb ?? 12,
+    ...(choices.fromHz != null && { fromHz: choices.fromHz }),
+    ...(choices.toHz != null && { toHz: choices.toHz }),
     ...(room && {
       room: {
         volumeM3: room.volumeM3,
@@ -157,6 +182,127 @@ export function eqFitRequest(
       },
     }),
   };
+}
+
+/** What the engineer chose for a fit; anything left out takes the default. */
+export interface FitChoices {
+  /** Lower end of the correction, Hz; the API's default (the response's lowest point) when absent. */
+  fromHz?: number | null;
+  /** Upper end, Hz; the room's transition frequency when absent. */
+  toHz?: number | null;
+  /** A stored target curve by name; flat when absent. */
+  targetName?: string | null;
+  maxBands?: number | null;
+}
+
+/** Band count a fit uses unless told otherwise: the room's bands per channel, else 8 (common practice). */
+export function defaultBandCount(limits: RoomLimits | null): number {
+  return limits?.eqBandsPerChannel ?? 8;
+}
+
+/** Most bands a fit may ask for: the room's bands per channel, capped by the API's own maximum. */
+export function maxBandCount(limits: RoomLimits | null): number {
+  return Math.min(limits?.eqBandsPerChannel ?? MAX_EQ_BANDS, MAX_EQ_BANDS);
+}
+
+export interface FitRangeProblem {
+  field: 'fromHz' | 'toHz' | 'maxBands';
+  message: string;
+}
+
+/** Lowest and highest frequency the fit range fields accept (the audio band). */
+export const FIT_RANGE_MIN_HZ = 10;
+export const FIT_RANGE_MAX_HZ = 20000;
+
+/** Checks the fit fields before a fit is asked for, so a mistyped range shows at once and costs no request. */
+export function fitChoiceProblems(choices: FitChoices, limits: RoomLimits | null): FitRangeProblem[] {
+  const problems: FitRangeProblem[] = [];
+  const inBand = (field: 'fromHz' | 'toHz', value: number | null | undefined) => {
+    if (value == null) return;
+    if (!Number.isFinite(value) || value < FIT_RANGE_MIN_HZ || value > FIT_RANGE_MAX_HZ)
+      problems.push({
+        field,
+        message: `Give a frequency from ${FIT_RANGE_MIN_HZ} Hz to ${formatFrequency(FIT_RANGE_MAX_HZ)} Hz.`,
+      });
+  };
+  inBand('fromHz', choices.fromHz);
+  inBand('toHz', choices.toHz);
+  if (!problems.length && choices.fromHz != null && choices.toHz != null && choices.fromHz >= choices.toHz)
+    problems.push({ field: 'toHz', message: 'The upper end must be above the lower end.' });
+  const most = maxBandCount(limits);
+  if (
+    choices.maxBands != null &&
+    (!Number.isInteger(choices.maxBands) || choices.maxBands < 1 || choices.maxBands > most)
+  )
+    problems.push({ field: 'maxBands', message: `Use 1 to ${most} bands (the room's limit per channel).` });
+  return problems;
+}
+
+/** Smoothing choices for an uploaded impulse response, in octaves; 1/12 octave is the API's default. */
+export const SMOOTHING_CHOICES: ReadonlyArray<{ octaves: number; label: string }> = [
+  { octaves: 1 / 48, label: '1/48 octave (finest)' },
+  { octaves: 1 / 24, label: '1/24 octave' },
+  { octaves: 1 / 12, label: '1/12 octave (default)' },
+  { octaves: 1 / 6, label: '1/6 octave' },
+  { octaves: 1 / 3, label: '1/3 octave' },
+  { octaves: 1, label: '1 octave' },
+];
+export const DEFAULT_SMOOTHING_OCTAVES = 1 / 12;
+
+/** What the browser can tell of a chosen WAV before it is sent: its channel count and rate. */
+export interface WavFacts {
+  channelCount: number;
+  sampleRateHz: number;
+}
+
+/**
+ * Reads a WAV's header with the same RIFF walker the API uses; null for a file that is not a WAV (a text
+ * response) or whose header the walker refuses (the API then names the problem on upload).
+ */
+export function wavFacts(bytes: Uint8Array): WavFacts | null {
+  try {
+    const layout = readWaveLayout(bytes);
+    return { channelCount: layout.format.channelCount, sampleRateHz: layout.format.sampleRateHz };
+  } catch {
+    return null;
+  }
+}
+
+/** The response kinds a channel has among the measurements (SPL readings have none). */
+export function responseKinds(measurements: readonly Measurement[], channel: string): ResponseKind[] {
+  const kinds = new Set(
+    measurements.filter((m) => m.channel === channel && m.kind !== 'spl').map((m) => m.kind as ResponseKind),
+  );
+  return (['impulseResponse', 'frequencyResponse'] as const).filter((k) => kinds.has(k));
+}
+
+/**
+ * The target drawn on the plot across the fit band: the stored curve's points (held beyond its ends,
+ * linear in log frequency between them, as the API interpolates) raised to the fit's level, or a flat line.
+ */
+export function targetLine(
+  points: readonly TargetPoint[] | null,
+  fromHz: number,
+  toHz: number,
+  offsetDb: number,
+): Array<{ x: number; y: number }> {
+  if (!points || points.length < 2)
+    return [
+      { x: fromHz, y: offsetDb },
+      { x: toHz, y: offsetDb },
+    ];
+  const at = (f: number) => {
+    if (f <= points[0].frequencyHz) return points[0].gainDb;
+    const last = points[points.length - 1];
+    if (f >= last.frequencyHz) return last.gainDb;
+    const i = points.findIndex((p) => p.frequencyHz >= f);
+    const a = points[i - 1];
+    const b = points[i];
+    const t = Math.log(f / a.frequencyHz) / Math.log(b.frequencyHz / a.frequencyHz);
+    return a.gainDb + t * (b.gainDb - a.gainDb);
+  };
+  const xs = [fromHz, ...points.map((p) => p.frequencyHz).filter((f) => f > fromHz && f < toHz), toHz];
+  return xs.map((x) => ({ x, y: at(x) + offsetDb }));
 }
 
 /**
@@ -222,6 +368,8 @@ export function modeRows(modes: readonly RoomMode[], count: number): ModeRow[] {
 export interface ResponsePlotInput {
   measured: { label: string; frequenciesHz: readonly number[]; magnitudeDb: readonly number[] };
   fit?: Pick<EqFitResult, 'predicted' | 'targetOffsetDb' | 'fromHz' | 'toHz'> | null;
+  /** A stored target curve the fit aimed at; flat when absent. */
+  target?: { name: string; points: readonly TargetPoint[] } | null;
   modes?: readonly RoomMode[];
   schroederFrequencyHz?: number | null;
 }
@@ -268,18 +416,18 @@ export function responseChart(input: ResponsePlotInput): ChartSpec {
       points: curvePoints(fit.predicted.frequenciesHz, fit.predicted.magnitudeDb),
       colour: 2,
     });
+    const target = input.target ?? null;
     series.push({
-      label: 'Target (flat)',
-      points: [
-        { x: fit.fromHz, y: fit.targetOffsetDb },
-        { x: fit.toHz, y: fit.targetOffsetDb },
-      ],
+      label: target ? `Target (${target.name})` : 'Target (flat)',
+      points: targetLine(target?.points ?? null, fit.fromHz, fit.toHz, fit.targetOffsetDb),
       colour: 0,
       dashed: true,
     });
     parts.push(
       `predicted response after the fitted EQ`,
-      `flat target at ${fit.targetOffsetDb.toFixed(1)} dB from ${formatFrequency(fit.fromHz)} to ${formatFrequency(fit.toHz)} Hz`,
+      target
+        ? `target “${target.name}” at ${fit.targetOffsetDb.toFixed(1)} dB from ${formatFrequency(fit.fromHz)} to ${formatFrequency(fit.toHz)} Hz`
+        : `flat target at ${fit.targetOffsetDb.toFixed(1)} dB from ${formatFrequency(fit.fromHz)} to ${formatFrequency(fit.toHz)} Hz`,
     );
   }
   const lowest = measured.frequenciesHz.find((f) => f > 0) ?? 0;

@@ -89,13 +89,46 @@ export interface AverageResponse {
   magnitudeDb: number[];
 }
 
+/** The two kinds of stored response a channel's average can be made of. */
+export type ResponseKind = 'impulseResponse' | 'frequencyResponse';
+
+/** WAV-only fields of a measurement upload. */
+export interface UploadOptions {
+  /** 0-based channel of a multichannel file. */
+  fileChannel?: number;
+  /** 0-based channel holding the loopback of the test signal (timing reference). */
+  referenceFileChannel?: number;
+  smoothingOctaves?: number;
+  name?: string;
+  notes?: string;
+}
+
+/** A target point: level in dB at a frequency. */
+export interface TargetPoint {
+  frequencyHz: number;
+  gainDb: number;
+}
+
+/** `GET /v1/target-curves` item. */
+export interface StoredTargetCurve {
+  id: string;
+  name: string;
+  notes: string | null;
+  points: TargetPoint[];
+}
+
+/** The fit's target: flat, or one of the caller's stored curves by name. */
+export type FitTarget = { kind: 'flat' } | { kind: 'stored'; name: string };
+
 export interface EqFitRequest {
   sampleRateHz: number;
   measured: { frequenciesHz: number[]; magnitudeDb: number[] };
-  target: { kind: 'flat' };
+  target: FitTarget;
   maxBands: number;
   maxBoostDb: number;
   maxCutDb: number;
+  fromHz?: number;
+  toHz?: number;
   /** The room's volume and measured reverberation time, for the transition frequency the fit starts below. */
   room?: { volumeM3: number; reverberationTimeS?: number };
 }

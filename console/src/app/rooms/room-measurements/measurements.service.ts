@@ -1,8 +1,16 @@
 import { HttpClient, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
-import { EMPTY, Observable, expand, reduce } from 'rxjs';
+import { EMPTY, Observable, expand, map, reduce } from 'rxjs';
 import { ListPage } from '../../keys/key.model';
-import { AverageResponse, EqFitRequest, EqFitResult, Measurement } from './measurement.model';
+import {
+  AverageResponse,
+  EqFitRequest,
+  EqFitResult,
+  Measurement,
+  ResponseKind,
+  StoredTargetCurve,
+  UploadOptions,
+} from './measurement.model';
 
 /** Stored measurements of a room and the EQ fit of a measured response. */
 @Injectable({ providedIn: 'root' })
@@ -36,12 +44,29 @@ export class MeasurementsService {
     return this.http.get<Measurement>(`${this.base(roomId)}/${encodeURIComponent(id)}`);
   }
 
-  /** Multipart upload: the API analyses a WAV on arrival or parses a text response. */
-  upload(roomId: string, channel: string, micPosition: string, file: File): Observable<Measurement> {
+  /**
+   * Multipart upload: the API analyses a WAV on arrival or parses a text response. `options` carry the
+   * WAV-only fields: the 0-based channel of a multichannel file, its loopback (timing reference) channel
+   * and the smoothing of the stored response.
+   */
+  upload(
+    roomId: string,
+    channel: string,
+    micPosition: string,
+    file: Blob & { name?: string },
+    options: UploadOptions = {},
+  ): Observable<Measurement> {
     const form = new FormData();
     form.append('channel', channel);
     form.append('micPosition', micPosition);
-    form.append('file', file, file.name);
+    if (options.fileChannel !== undefined) form.append('fileChannel', String(options.fileChannel));
+    if (options.referenceFileChannel !== undefined)
+      form.append('referenceFileChannel', String(options.referenceFileChannel));
+    if (options.smoothingOctaves !== undefined)
+      form.append('smoothingOctaves', String(options.smoothingOctaves));
+    if (options.name) form.append('name', options.name);
+    if (options.notes) form.append('notes', options.notes);
+    form.append('file', file, file.name ?? 'recording.wav');
     return this.http.post<Measurement>(this.base(roomId), form);
   }
 
@@ -49,11 +74,21 @@ export class MeasurementsService {
     return this.http.delete<null>(`${this.base(roomId)}/${encodeURIComponent(id)}`);
   }
 
-  /** Power average of the channel's responses over its microphone positions. */
-  average(roomId: string, channel: string): Observable<AverageResponse> {
-    return this.http.get<AverageResponse>(`${this.base(roomId)}/average`, {
-      params: new HttpParams().set('channel', channel),
-    });
+  /**
+   * Power average of the channel's responses over its microphone positions; `kind` says which responses
+   * when the channel has both impulse-response analyses and frequency responses (the API never mixes them).
+   */
+  average(roomId: string, channel: string, kind?: ResponseKind): Observable<AverageResponse> {
+    let params = new HttpParams().set('channel', channel);
+    if (kind) params = params.set('kind', kind);
+    return this.http.get<AverageResponse>(`${this.base(roomId)}/average`, { params });
+  }
+
+  /** The caller's stored target curves (first 100, oldest first), for the fit's target choice. */
+  targetCurves(): Observable<StoredTargetCurve[]> {
+    return this.http
+      .get<ListPage<StoredTargetCurve>>('/v1/target-curves', { params: new HttpParams().set('limit', 100) })
+      .pipe(map((page) => page.data));
   }
 
   fitEq(body: EqFitRequest): Observable<EqFitResult> {

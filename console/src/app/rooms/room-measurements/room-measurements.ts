@@ -1,6 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
+import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatDialog } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -20,10 +21,19 @@ import { formatFrequency } from '../../ui/chart/frequency-ticks';
 import { ConfirmDialog, ConfirmDialogData } from '../../ui/confirm-dialog/confirm-dialog';
 import { Room } from '../room.model';
 import {
+  DEFAULT_SMOOTHING_OCTAVES,
   DraftProblem,
+  FitChoices,
+  SMOOTHING_CHOICES,
+  WavFacts,
   decayRows,
+  defaultBandCount,
   defaultSelection,
   eqFitRequest,
+  fitChoiceProblems,
+  maxBandCount,
+  responseKinds,
+  wavFacts,
   measuredLabel,
   measurementRows,
   modeRows,
@@ -31,7 +41,7 @@ import {
   uploadFieldErrors,
   uploadProblems,
 } from './measurement-view';
-import { ImpulseResponseAnalysis, Measurement } from './measurement.model';
+import { ImpulseResponseAnalysis, Measurement, ResponseKind } from './measurement.model';
 import { MeasurementsService } from './measurements.service';
 import { ApplyFitChoice, ApplyFitData, ApplyFitDialog } from './apply-fit-dialog';
 import { RoomsService } from '../rooms.service';
@@ -39,6 +49,26 @@ import { TuningsService } from '../../tunings/tunings.service';
 
 /** How many of the lowest room modes the table lists. */
 const MODE_TABLE_ROWS = 10;
+
+/** Where the kind chosen for a channel's average is remembered, per room and channel. */
+const KIND_STORAGE_PREFIX = 'isochron.averageKind';
+
+function rememberedKind(roomId: string, channel: string): ResponseKind | null {
+  try {
+    const value = localStorage.getItem(`${KIND_STORAGE_PREFIX}.${roomId}.${channel}`);
+    return value === 'impulseResponse' || value === 'frequencyResponse' ? value : null;
+  } catch {
+    return null;
+  }
+}
+
+function rememberKind(roomId: string, channel: string, kind: ResponseKind): void {
+  try {
+    localStorage.setItem(`${KIND_STORAGE_PREFIX}.${roomId}.${channel}`, kind);
+  } catch {
+    // Storage refused (private mode, quota): the choice then lasts for this page only.
+  }
+}
 
 /**
  * A room's measurements: the list with delete, an upload form, the measured (or spatially averaged)
@@ -50,6 +80,7 @@ const MODE_TABLE_ROWS = 10;
   imports: [
     ChartView,
     MatButtonModule,
+    MatButtonToggleModule,
     MatCheckboxModule,
     MatFormFieldModule,
     MatIconModule,
@@ -113,19 +144,50 @@ export class RoomMeasurements {
       : null;
   });
 
+  /** Response kinds the selected channel has; with both, the panel asks which to average. */
+  protected readonly channelKinds = computed(() => {
+    const selected = this.selected();
+    return selected ? responseKinds(this.measurements(), selected.channel) : [];
+  });
+  /** Choices made on this page, per channel; they are also remembered in the browser for next time. */
+  private readonly kindChoices = signal<Record<string, ResponseKind>>({});
+  /** The kind averaged for the selected channel: only one it has, else the choice made, else the selected row's. */
+  protected readonly averageKind = computed((): ResponseKind | null => {
+    const selected = this.selected();
+    const kinds = this.channelKinds();
+    if (!selected || !kinds.length) return null;
+    if (kinds.length === 1) return kinds[0];
+    const chosen = this.kindChoices()[selected.channel] ?? rememberedKind(this.room().id, selected.channel);
+    if (chosen && kinds.includes(chosen)) return chosen;
+    return selected.kind === 'spl' ? kinds[0] : (selected.kind as ResponseKind);
+  });
+
+  protected chooseKind(kind: ResponseKind): void {
+    const selected = this.selected();
+    if (!selected) return;
+    this.kindChoices.update((choices) => ({ ...choices, [selected.channel]: kind }));
+    rememberKind(this.room().id, selected.channel, kind);
+  }
+
   /** The response the plot shows: the power average of the selected channel over its positions. */
   private readonly averageResource = rxResource({
     params: () => {
       const selected = this.selected();
       if (!selected || selected.kind === 'spl') return undefined;
+      const kind = this.averageKind();
       // The ids make the average follow uploads and deletions of this channel.
       const ids = this.measurements()
         .filter((m) => m.channel === selected.channel && m.kind !== 'spl')
         .map((m) => m.id)
         .join();
-      return { roomId: this.room().id, channel: selected.channel, ids };
+      return {
+        roomId: this.room().id,
+        channel: selected.channel,
+        ids,
+        kind: this.channelKinds().length > 1 ? kind : null,
+      };
     },
-    stream: ({ params }) => this.service.average(params.roomId, params.channel),
+    stream: ({ params }) => this.service.average(params.roomId, params.channel, params.kind ?? undefined),
   });
   protected readonly average = computed(() =>
     this.averageResource.hasValue() ? (this.averageResource.value() ?? null) : null,
@@ -133,17 +195,71 @@ export class RoomMeasurements {
 
   protected readonly allowBoost = signal(false);
   protected readonly maxBoostDb = computed(() => this.room().limits?.['eqMaxBoostDb'] ?? 0);
+
+  // Fit controls: empty range fields leave the ends to the API (the response's lowest point and the
+  // room's transition frequency); the band count starts at the room's bands per channel.
+  protected readonly fitFromHz = signal<number | null>(null);
+  protected readonly fitToHz = signal<number | null>(null);
+  protected readonly fitTargetName = signal<string | null>(null);
+  protected readonly fitBands = signal<number | null>(null);
+  protected readonly defaultBands = computed(() => defaultBandCount(this.room().limits));
+  protected readonly mostBands = computed(() => maxBandCount(this.room().limits));
+  private readonly fitChoices = computed((): FitChoices => ({
+    fromHz: this.fitFromHz(),
+    toHz: this.fitToHz(),
+    targetName: this.fitTargetName(),
+    maxBands: this.fitBands(),
+  }));
+  protected readonly fitProblems = computed(() => fitChoiceProblems(this.fitChoices(), this.room().limits));
+  protected fitProblemFor(field: 'fromHz' | 'toHz' | 'maxBands'): string | null {
+    return this.fitProblems().find((p) => p.field === field)?.message ?? null;
+  }
+  protected readonly fitIsDefault = computed(
+    () =>
+      this.fitFromHz() === null &&
+      this.fitToHz() === null &&
+      this.fitTargetName() === null &&
+      this.fitBands() === null &&
+      !this.allowBoost(),
+  );
+
+  private readonly targetCurvesResource = rxResource({
+    stream: () => this.service.targetCurves(),
+  });
+  /** Stored target curves; none (only flat) when the list cannot be read. */
+  protected readonly targetCurves = computed(() =>
+    this.targetCurvesResource.hasValue() ? (this.targetCurvesResource.value() ?? []) : [],
+  );
+
+  /** A number field's value, or null when it is empty (the default applies). */
+  protected numberOrNull(event: Event): number | null {
+    const text = (event.target as HTMLInputElement).value.trim();
+    return text === '' ? null : Number(text);
+  }
+
+  protected resetFit(): void {
+    this.fitFromHz.set(null);
+    this.fitToHz.set(null);
+    this.fitTargetName.set(null);
+    this.fitBands.set(null);
+    this.allowBoost.set(false);
+  }
+
   private readonly fitResource = rxResource({
     params: () => {
       const average = this.average();
-      if (!average) return undefined;
+      if (!average || this.fitProblems().length) return undefined;
       const { widthM, lengthM, heightM } = this.room().dimensions;
       // The selected impulse response's T30 (else T20) sets the transition frequency; 0.3 s is assumed without one.
       const decay = this.selected()?.channel === average.channel ? this.analysis()?.decay : undefined;
-      return eqFitRequest(average, this.room().limits, this.room().sampleRateHz, this.allowBoost(), {
-        volumeM3: widthM * lengthM * heightM,
-        reverberationTimeS: decay?.t30S ?? decay?.t20S ?? null,
-      });
+      return eqFitRequest(
+        average,
+        this.room().limits,
+        this.room().sampleRateHz,
+        this.allowBoost(),
+        { volumeM3: widthM * lengthM * heightM, reverberationTimeS: decay?.t30S ?? decay?.t20S ?? null },
+        this.fitChoices(),
+      );
     },
     stream: ({ params }) => this.service.fitEq(params),
   });
@@ -163,9 +279,12 @@ export class RoomMeasurements {
     if (!average) return null;
     const analysis = this.analysis();
     const sameChannel = this.selected()?.channel === average.channel;
+    const targetName = this.fitTargetName();
+    const target = targetName ? (this.targetCurves().find((c) => c.name === targetName) ?? null) : null;
     return responseChart({
       measured: { label: measuredLabel(average.channel, average.micPositions), ...average },
       fit: this.fit(),
+      target,
       modes: sameChannel ? analysis?.room?.modes : undefined,
       schroederFrequencyHz: sameChannel ? analysis?.room?.schroederFrequencyHz : undefined,
     });
@@ -182,6 +301,15 @@ export class RoomMeasurements {
   protected readonly channel = signal('');
   protected readonly micPosition = signal('MLP');
   protected readonly file = signal<File | null>(null);
+  /** The chosen WAV's channel count and rate (read in the browser), null for a text file. */
+  protected readonly fileFacts = signal<WavFacts | null>(null);
+  protected readonly fileChannel = signal<number | null>(null);
+  protected readonly referenceFileChannel = signal<number | null>(null);
+  protected readonly smoothingOctaves = signal(DEFAULT_SMOOTHING_OCTAVES);
+  protected readonly smoothingChoices = SMOOTHING_CHOICES;
+  protected readonly fileChannelNumbers = computed(() =>
+    Array.from({ length: this.fileFacts()?.channelCount ?? 0 }, (_, i) => i),
+  );
   protected readonly submitted = signal(false);
   protected readonly uploading = signal(false);
   protected readonly uploadProblem = signal<ReadableProblem | null>(null);
@@ -191,7 +319,14 @@ export class RoomMeasurements {
   });
   protected readonly draftProblems = computed(() =>
     uploadProblems(
-      { channel: this.channel(), micPosition: this.micPosition(), file: this.file() },
+      {
+        channel: this.channel(),
+        micPosition: this.micPosition(),
+        file: this.file(),
+        fileChannels: this.fileFacts()?.channelCount,
+        fileChannel: this.fileChannel(),
+        referenceFileChannel: this.referenceFileChannel(),
+      },
       this.room().loudspeakers.map((l) => l.id),
     ),
   );
@@ -203,14 +338,30 @@ export class RoomMeasurements {
   protected readonly formatQuantity = formatQuantity;
   protected readonly formatFrequency = formatFrequency;
 
+  /** Shows a measurement's channel; with both kinds stored, the row's kind becomes the one averaged. */
   protected select(id: string): void {
     this.chosenId.set(id);
+    const chosen = this.measurements().find((m) => m.id === id);
+    if (chosen && chosen.kind !== 'spl' && responseKinds(this.measurements(), chosen.channel).length > 1)
+      this.chooseKind(chosen.kind);
   }
 
   protected onFile(event: Event): void {
     const files = (event.target as HTMLInputElement).files;
-    this.file.set(files && files.length ? files[0] : null);
+    const file = files && files.length ? files[0] : null;
+    this.file.set(file);
+    this.fileFacts.set(null);
+    this.fileChannel.set(null);
+    this.referenceFileChannel.set(null);
     this.uploadProblem.set(null);
+    if (!file) return;
+    // The whole file (at most 20 MiB) is read: the RIFF walker checks every chunk size against it.
+    void file.arrayBuffer().then((buffer) => {
+      if (this.file() !== file) return;
+      const facts = wavFacts(new Uint8Array(buffer));
+      this.fileFacts.set(facts);
+      if (facts && facts.channelCount === 1) this.fileChannel.set(null);
+    });
   }
 
   protected upload(fileInput: HTMLInputElement): void {
@@ -219,11 +370,26 @@ export class RoomMeasurements {
     const file = this.file();
     if (this.draftProblems().length || !file) return;
     this.uploading.set(true);
-    this.service.upload(this.room().id, this.channel(), this.micPosition().trim(), file).subscribe({
+    const facts = this.fileFacts();
+    const multichannel = (facts?.channelCount ?? 1) > 1;
+    const options = facts
+      ? {
+          smoothingOctaves: this.smoothingOctaves(),
+          ...(multichannel && { fileChannel: this.fileChannel() ?? 0 }),
+          ...(multichannel &&
+            this.referenceFileChannel() !== null && {
+              referenceFileChannel: this.referenceFileChannel() ?? 0,
+            }),
+        }
+      : {};
+    this.service.upload(this.room().id, this.channel(), this.micPosition().trim(), file, options).subscribe({
       next: (stored) => {
         this.uploading.set(false);
         this.submitted.set(false);
         this.file.set(null);
+        this.fileFacts.set(null);
+        this.fileChannel.set(null);
+        this.referenceFileChannel.set(null);
         fileInput.value = '';
         this.chosenId.set(stored.id);
         this.listResource.reload();

@@ -21,6 +21,7 @@ import { topViewChart } from '../top-view';
 import { DuplicateDialog } from './duplicate-dialog';
 import { ComparisonView } from '../../tunings/comparison/comparison-view';
 import { TuningsService } from '../../tunings/tunings.service';
+import { ExportDialog, ExportDialogData } from '../../tunings/export-dialog/export-dialog';
 
 @Component({
   selector: 'iso-room-page',
@@ -165,17 +166,12 @@ export class RoomPage {
       });
   }
 
-  protected export(tuning: Tuning, format: 'json' | 'csv'): void {
-    this.tuningsApi.export(tuning.id, format).subscribe({
-      next: (blob) => {
-        const url = URL.createObjectURL(blob);
-        const link = document.createElement('a');
-        link.href = url;
-        link.download = `${tuning.name.replace(/[^\w.-]+/g, '-').replace(/^-+|-+$/g, '') || 'tuning'}-v${tuning.version}.${format}`;
-        link.click();
-        setTimeout(() => URL.revokeObjectURL(url), 1000);
-      },
-      error: (error: unknown) => this.snackBar.open(errorMessage(error), 'Dismiss', { duration: 10000 }),
+  /** Export for a processor: profile, rate, what rounding cost, then the download. */
+  protected openExport(tuning: Tuning): void {
+    this.dialog.open<ExportDialog, ExportDialogData>(ExportDialog, {
+      data: { tuning, roomProfileId: this.room()?.profileId ?? null },
+      width: '760px',
+      maxWidth: '96vw',
     });
   }
 

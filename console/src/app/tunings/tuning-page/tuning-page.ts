@@ -24,7 +24,7 @@ import { TuningDetails, TuningDetailsDialog } from '../tuning-details-dialog';
 import type { Tuning, TuningChannelInput, TuningComparison, TuningVersion } from '../tuning.model';
 import { channelFieldOf, channelRows, versionAuthor, versionOrigin, versionsPhrase } from '../tuning-view';
 import { TuningsService } from '../tunings.service';
-import { downloadBlob, downloadName } from '../download';
+import { ExportDialog, ExportDialogData } from '../export-dialog/export-dialog';
 
 /**
  * One tuning: its channels in a table with an editor beside it, its versions with their differences,
@@ -357,12 +357,14 @@ export class TuningPage {
       });
   }
 
-  protected export(format: 'json' | 'csv'): void {
+  /** Export for a processor: profile, rate, what rounding cost, then the download. */
+  protected openExport(): void {
     const tuning = this.tuning();
     if (!tuning) return;
-    this.tuningsApi.export(tuning.id, format, tuning.version).subscribe({
-      next: (blob) => downloadBlob(blob, downloadName(tuning.name, tuning.version, format)),
-      error: (error: unknown) => this.snackBar.open(errorMessage(error), 'Dismiss', { duration: 10000 }),
+    this.dialog.open<ExportDialog, ExportDialogData>(ExportDialog, {
+      data: { tuning, roomProfileId: this.room()?.profileId ?? null },
+      width: '760px',
+      maxWidth: '96vw',
     });
   }
 

@@ -3,6 +3,7 @@ import {
   Component,
   DestroyRef,
   ElementRef,
+  computed,
   effect,
   inject,
   input,
@@ -13,6 +14,7 @@ import { ThemeService } from '../../theme/theme.service';
 import { Chart } from './chart-registry';
 import { ChartSpec } from './chart-spec';
 import { frequencyTickLabel } from './frequency-ticks';
+import { wrapLabel } from './wrap-label';
 
 interface Palette {
   series: string[];
@@ -54,7 +56,7 @@ function withAlpha(colour: string, alpha: number): string {
   return match ? `rgba(${match[1]}, ${match[2]}, ${match[3]}, ${alpha})` : colour;
 }
 
-function toConfig(spec: ChartSpec, palette: Palette): ChartConfiguration {
+function toConfig(spec: ChartSpec, palette: Palette, labelChars = 32): ChartConfiguration {
   const datasets = spec.series.map((series) => {
     // Colour 0 is the muted outline colour (room walls, reference lines); 1-6 are the series colours.
     const colour =
@@ -159,14 +161,28 @@ function toConfig(spec: ChartSpec, palette: Palette): ChartConfiguration {
         legend: { position: 'bottom', labels: { color: palette.text, boxWidth: 14, boxHeight: 3 } },
         tooltip: {
           enabled: true,
-          callbacks: scatter ? { label: scatterTooltip } : {},
+          callbacks: scatter
+            ? { label: scatterTooltip }
+            : spec.horizontal
+              ? { title: (items: TooltipItem<'bar'>[]) => spec.labels?.[items[0]?.dataIndex ?? 0] ?? '' }
+              : {},
         },
       },
       indexAxis: spec.horizontal ? 'y' : 'x',
       scales: {
         x: spec.horizontal ? { ...valueAxis, title: axisTitle(spec.xTitle) } : x,
         y: spec.horizontal
-          ? { ...x, title: axisTitle(spec.yTitle), ticks: { color: palette.text, autoSkip: false } }
+          ? {
+              ...x,
+              title: axisTitle(spec.yTitle),
+              ticks: {
+                color: palette.text,
+                autoSkip: false,
+                // Long categories (routes) on a few short lines, never cut at the canvas edge.
+                callback: (value: string | number) =>
+                  wrapLabel(spec.labels?.[Number(value)] ?? String(value), labelChars),
+              },
+            }
           : { ...valueAxis, title: axisTitle(spec.yTitle) },
         ...(hasRight
           ? {
@@ -224,7 +240,10 @@ function pointLabels(palette: Palette): Plugin {
 @Component({
   selector: 'iso-chart',
   template: `<canvas #canvas role="img" [attr.aria-label]="spec().summary"></canvas>`,
-  host: { '[class.keeps-shape]': 'spec().aspectRatio !== undefined' },
+  host: {
+    '[class.keeps-shape]': 'spec().aspectRatio !== undefined',
+    '[style.height.px]': 'barsHeightPx()',
+  },
   styles: `
     :host {
       display: block;
@@ -244,6 +263,16 @@ function pointLabels(palette: Palette): Plugin {
 export class ChartView {
   readonly spec = input.required<ChartSpec>();
 
+  /**
+   * Horizontal bars get height for their categories (wrapped labels take up to three lines), so many
+   * routes are not squeezed into the default 280 px; other charts keep the stylesheet's height.
+   */
+  protected readonly barsHeightPx = computed(() => {
+    const spec = this.spec();
+    if (!spec.horizontal || spec.aspectRatio !== undefined) return null;
+    return Math.max(280, 90 + (spec.labels?.length ?? 0) * 46);
+  });
+
   private readonly host = inject<ElementRef<HTMLElement>>(ElementRef);
   private readonly canvas = viewChild.required<ElementRef<HTMLCanvasElement>>('canvas');
   private readonly theme = inject(ThemeService);
@@ -255,7 +284,9 @@ export class ChartView {
       this.theme.revision();
       const canvas = this.canvas().nativeElement;
       // Colours resolve after the theme class changes, so read them at draw time.
-      const config = toConfig(spec, readPalette(this.host.nativeElement));
+      // On a narrow screen long category labels wrap shorter, leaving the bars room.
+      const labelChars = this.host.nativeElement.clientWidth < 560 ? 18 : 32;
+      const config = toConfig(spec, readPalette(this.host.nativeElement), labelChars);
       this.chart?.destroy();
       this.chart = new Chart(canvas, config);
     });
