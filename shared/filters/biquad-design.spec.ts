@@ -1,5 +1,6 @@
 import { designBiquad, designBiquads, FILTER_TYPES, FilterSpec, FilterType } from './biquad-design';
 import { isStable } from '../dsp/sos';
+import { CalculationInputError } from '../errors';
 import {
   catchInputError,
   expectWithin,
@@ -398,3 +399,34 @@ function filiStage(
   const IirCoeffs = require('fili/src/iirCoeffs');
   return new IirCoeffs()[name]({ ...params });
 }
+
+describe('designBiquad — bandwidth near Nyquist', () => {
+  // Audio EQ Cookbook (W3C Note, 2021): alpha = sin(w0)·sinh(ln2/2·BW·w0/sin(w0)) grows without bound as
+  // w0 → π. A design either comes out stable (poles inside the unit circle) or is refused on the field.
+  it.each(['notch', 'bandPass', 'peaking'] as const)(
+    '%s: stable or refused naming /bandwidthOctaves',
+    (type) => {
+      const fs = 328405;
+      let refused = 0;
+      for (const ratio of [0.3, 0.4, 0.45, 0.47, 0.4705, 0.49, 0.499]) {
+        for (const bw of [1, 2, 4, 6, 7.16, 8]) {
+          const spec: FilterSpec = {
+            type,
+            frequencyHz: ratio * fs,
+            bandwidthOctaves: bw,
+            gainDb: type === 'peaking' ? 6 : undefined,
+          };
+          try {
+            expect(isStable(designBiquad(spec, fs))).toBe(true);
+          } catch (error) {
+            if (!(error instanceof CalculationInputError)) throw error;
+            expect(error.field).toBe('/bandwidthOctaves');
+            refused += 1;
+          }
+        }
+      }
+      // The case found by the property test (154,508 Hz, 7.16 octaves at 328,405 Hz) is among the refused.
+      expect(refused).toBeGreaterThan(0);
+    },
+  );
+});

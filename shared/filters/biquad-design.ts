@@ -156,7 +156,9 @@ function readAlpha(spec: FilterSpec, A: number, w0: number, sinW0: number): numb
       '/bandwidthOctaves',
     );
     const alpha = sinW0 * Math.sinh(((Math.LN2 / 2) * bw * w0) / sinW0);
-    if (!Number.isFinite(alpha)) {
+    // Past about 1e16, a2 = (1 − alpha)/(1 + alpha) rounds to −1: a pole on the unit circle, whose
+    // response at 0 Hz is 0/0. Same cause as an infinite alpha, same answer.
+    if (!Number.isFinite(alpha) || (1 - alpha) / (1 + alpha) <= -1) {
       throw new CalculationInputError(
         `bandwidthOctaves ${bw} is too wide this close to Nyquist; give a smaller bandwidth or a q`,
         '/bandwidthOctaves',
