@@ -13,7 +13,9 @@ const RULE: Array<[RegExp, number]> = [
   [/Samples(?=[A-Z]|$)/, 4],
 ];
 const TEXT_KEYS = new Set(['message', 'detail', 'title', 'reasons', 'notice', 'note']);
-const LONG_FIGURE = /\d\.\d{5,}|\d(?:\.\d+)?e[-+]?\d/;
+// A number printed by JavaScript in exponent form always carries the exponent's sign ("2.25e-13",
+// "1e+21"); without the sign, "0e0" is a caller's channel label quoted in a warning, not a figure.
+const LONG_FIGURE = /\d\.\d{5,}|(?<![\w-])\d(?:\.\d+)?e[-+]\d/;
 
 function decimalsOf(value: number): number {
   const text = String(value);
