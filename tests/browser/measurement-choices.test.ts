@@ -1,5 +1,4 @@
 import type { Locator, Page } from 'playwright-core';
-import { WaveFile } from 'wavefile';
 import {
   type ConsoleBrowser,
   PHONE,
@@ -9,6 +8,7 @@ import {
   screenshot,
 } from './support/browser';
 import { signIn } from './support/console-pages';
+import { decayingBurst, pcm24Wav, seededNoise } from './support/synthetic-wav';
 import { type RunningService, startService } from './support/service';
 
 // The measurement form's choices in the demo room (Stage 3): a two-channel WAV with the loudspeaker on
@@ -27,30 +27,16 @@ const LOOPBACK_ONSET = 96;
 
 /** Channel 1: a lone spike (the loopback); channel 2: a spike and a decaying noise tail (T60 0.4 s). */
 function twoChannelWav(): Buffer {
-  let state = 777;
-  const random = () => {
-    state = (Math.imul(state, 1103515245) + 12345) >>> 0;
-    return state / 2 ** 32 - 0.5;
-  };
-  const n = Math.round(1.2 * SAMPLE_RATE_HZ);
-  const perSample = Math.pow(10, -3 / (0.4 * SAMPLE_RATE_HZ));
-  const fullScale = 2 ** 23 - 1;
-  const loopback: number[] = [];
-  const speaker: number[] = [];
-  let envelope = 0.3;
-  for (let i = 0; i < n; i++) {
-    loopback.push(Math.round(((i === LOOPBACK_ONSET ? 0.8 : 0) + 1e-4 * random()) * fullScale));
-    let value = 1e-4 * random();
-    if (i === SPEAKER_ONSET) value += 0.9;
-    if (i >= SPEAKER_ONSET) {
-      value += envelope * random();
-      envelope *= perSample;
-    }
-    speaker.push(Math.round(value * fullScale));
-  }
-  const wav = new WaveFile();
-  wav.fromScratch(2, SAMPLE_RATE_HZ, '24', [loopback, speaker]);
-  return Buffer.from(wav.toBuffer());
+  const noise = seededNoise(777);
+  const speaker = decayingBurst({
+    sampleRateHz: SAMPLE_RATE_HZ,
+    durationS: 1.2,
+    onsetSample: SPEAKER_ONSET,
+    t60S: 0.4,
+    noise,
+  });
+  const loopback = speaker.map((_, i) => (i === LOOPBACK_ONSET ? 0.8 : 0) + 1e-4 * noise());
+  return pcm24Wav([loopback, speaker], SAMPLE_RATE_HZ);
 }
 
 async function eventually<T>(read: () => Promise<T>, check: (value: T) => void): Promise<void> {

@@ -1,5 +1,4 @@
 import type { Page } from 'playwright-core';
-import { WaveFile } from 'wavefile';
 import path from 'node:path';
 import {
   type ConsoleBrowser,
@@ -11,6 +10,7 @@ import {
   screenshot,
 } from './support/browser';
 import { signIn } from './support/console-pages';
+import { decayingBurst, pcm24Wav, seededNoise } from './support/synthetic-wav';
 import { type RunningService, startService } from './support/service';
 
 // Measurements in the stored demo room (Stage 3, seeded with invented SPL readings, responses at two
@@ -31,28 +31,14 @@ const T60_S = 0.4;
  * 10^(−3t/T60), over a steady background 80 dB down, 1.2 s long, as 24-bit PCM.
  */
 function decayingBurstWav(): Buffer {
-  let state = 12345;
-  const random = () => {
-    state = (Math.imul(state, 1103515245) + 12345) >>> 0;
-    return state / 2 ** 32 - 0.5;
-  };
-  const n = Math.round(1.2 * SAMPLE_RATE_HZ);
-  const perSample = Math.pow(10, -3 / (T60_S * SAMPLE_RATE_HZ));
-  const fullScale = 2 ** 23 - 1;
-  const samples: number[] = [];
-  let envelope = 0.3;
-  for (let i = 0; i < n; i++) {
-    let value = 1e-4 * random();
-    if (i === ONSET_SAMPLE) value += 0.9;
-    if (i >= ONSET_SAMPLE) {
-      value += envelope * random();
-      envelope *= perSample;
-    }
-    samples.push(Math.round(value * fullScale));
-  }
-  const wav = new WaveFile();
-  wav.fromScratch(1, SAMPLE_RATE_HZ, '24', samples);
-  return Buffer.from(wav.toBuffer());
+  const samples = decayingBurst({
+    sampleRateHz: SAMPLE_RATE_HZ,
+    durationS: 1.2,
+    onsetSample: ONSET_SAMPLE,
+    t60S: T60_S,
+    noise: seededNoise(12345),
+  });
+  return pcm24Wav([samples], SAMPLE_RATE_HZ);
 }
 
 /** The first number in a text such as "14.58 ms" or "0.40 s". */
