@@ -5,6 +5,12 @@ import { ThemeService } from './theme.service';
 describe('ThemeService', () => {
   let prefersDark = false;
   const listeners: Array<() => void> = [];
+  // Spec files share one module graph per worker: the stub must not outlive this file, or a later
+  // component's breakpoint observer meets a media query list without the older listener methods.
+  const originalMatchMedia = window.matchMedia;
+  afterEach(() => {
+    window.matchMedia = originalMatchMedia;
+  });
 
   beforeEach(() => {
     localStorage.clear();
@@ -17,6 +23,8 @@ describe('ThemeService', () => {
       media: query,
       addEventListener: (_: string, listener: () => void) => listeners.push(listener),
       removeEventListener: () => undefined,
+      addListener: (listener: () => void) => listeners.push(listener),
+      removeListener: () => undefined,
     })) as unknown as typeof window.matchMedia;
     document.documentElement.className = '';
   });
