@@ -93,6 +93,74 @@ function evaluateSection(s: Sos, at: UnitCircle, i: number, t: Float64Array): vo
   t[DK_IM] = -(s.a1 * s1 + 2 * s.a2 * s2);
 }
 
+/** Where a cascade's magnitude is largest and smallest on a grid, and those magnitudes in dB. */
+export interface MagnitudeExtremes {
+  /** Index of the largest magnitude (the first of equals, in grid order; see EXTREMES_EQUAL_DB). */
+  maxIndex: number;
+  maxDb: number;
+  /** Index of the smallest magnitude (the first of equals, in grid order). */
+  minIndex: number;
+  minDb: number;
+}
+
+/** ±300 dB as power ratios: the clamp of sosMagnitudeDb, applied before the one logarithm. */
+const POWER_LIMIT_HIGH = 10 ** (MAGNITUDE_LIMIT_DB / 10);
+const POWER_LIMIT_LOW = 1 / POWER_LIMIT_HIGH;
+/**
+ * Magnitudes closer than this count as equal when looking for extremes (as a power ratio, 1 + 1e-12:
+ * about 4e-12 dB). On a plateau — a shelf's flat side, a pass band — the points differ only by rounding,
+ * which differs with the order of the arithmetic; so the first point of the plateau is named, not the one
+ * rounding happens to favour.
+ */
+export const EXTREMES_EQUAL_DB = 10 * Math.log10(1 + 1e-12);
+const EQUAL_POWER = 1 + 1e-12;
+
+/**
+ * The largest and smallest magnitude of a cascade over a grid, as `sosMagnitudeDb` would give them and
+ * at the same points, without an array of dB: each point's power ratio Π |N|²/|D|² is multiplied through
+ * the sections (N and D evaluated as evaluateSection does, |N|² floored at 1e-300 as there) and clamped
+ * to ±300 dB, and only the two extremes are turned into dB. A logarithm per point and section is most of
+ * the cost of the dB array, and finding extremes needs none (log is monotonic). Of magnitudes equal
+ * within EXTREMES_EQUAL_DB the first is named. An empty grid gives index −1.
+ */
+export function sosMagnitudeExtremes(sections: readonly Sos[], at: UnitCircle): MagnitudeExtremes {
+  const n = at.cos1.length;
+  let maxIndex = -1;
+  let minIndex = -1;
+  let maxPower = 0;
+  let minPower = 0;
+  for (let i = 0; i < n; i++) {
+    const c1 = at.cos1[i];
+    const s1 = at.sin1[i];
+    const c2 = at.cos2[i];
+    const s2 = at.sin2[i];
+    let power = 1;
+    for (let k = 0; k < sections.length; k++) {
+      const s = sections[k];
+      const nRe = s.b0 + s.b1 * c1 + s.b2 * c2;
+      const nIm = -(s.b1 * s1 + s.b2 * s2);
+      const dRe = 1 + s.a1 * c1 + s.a2 * c2;
+      const dIm = -(s.a1 * s1 + s.a2 * s2);
+      power *= Math.max(nRe * nRe + nIm * nIm, 1e-300) / (dRe * dRe + dIm * dIm);
+    }
+    power = Math.min(POWER_LIMIT_HIGH, Math.max(POWER_LIMIT_LOW, power));
+    if (i === 0 || power > maxPower * EQUAL_POWER) {
+      maxPower = power;
+      maxIndex = i;
+    }
+    if (i === 0 || power * EQUAL_POWER < minPower) {
+      minPower = power;
+      minIndex = i;
+    }
+  }
+  return {
+    maxIndex,
+    maxDb: n === 0 ? 0 : 10 * Math.log10(maxPower),
+    minIndex,
+    minDb: n === 0 ? 0 : 10 * Math.log10(minPower),
+  };
+}
+
 /**
  * Magnitude in dB of a cascade at every point of the grid, without phase or group delay (the fast path for
  * fitting): `Σ 10·log10(|N|²/|D|²)`, clamped to ±300 dB.

@@ -1,6 +1,6 @@
 import { presentDb, presentHz } from '../present';
 import { logFrequencyGrid } from '../dsp/grid';
-import { sosMagnitudeDb, unitCircle } from '../dsp/response';
+import { EXTREMES_EQUAL_DB, sosMagnitudeExtremes, unitCircle, type UnitCircle } from '../dsp/response';
 import { designBiquads, type FilterSpec } from './biquad-design';
 
 /** Grid density for finding the largest boost and cut: 1/48 octave, plus every filter's own frequency. */
@@ -17,32 +17,70 @@ export interface EqExtremes {
 }
 
 /**
+ * The 1/48-octave grid from 10 Hz to just below Nyquist and its points on the unit circle, worked out once
+ * per sample rate: it depends on nothing else, and building it (≈540 points, four sines and cosines each)
+ * cost more than evaluating a few filters on it. Bounded: a caller cycling through many sample rates
+ * starts the cache afresh.
+ */
+const GRIDS = new Map<number, UnitCircle>();
+const MAX_CACHED_GRIDS = 16;
+
+function extremesGrid(sampleRateHz: number): UnitCircle {
+  let grid = GRIDS.get(sampleRateHz);
+  if (grid === undefined) {
+    if (GRIDS.size >= MAX_CACHED_GRIDS) GRIDS.clear();
+    const nyquist = sampleRateHz / 2;
+    grid = unitCircle(logFrequencyGrid(LOWEST_HZ, nyquist * 0.999, POINTS_PER_OCTAVE), sampleRateHz);
+    GRIDS.set(sampleRateHz, grid);
+  }
+  return grid;
+}
+
+/**
  * The largest boost and the largest cut of an EQ as designed: the magnitude of the cascade of all its
  * filters (a resonant high-pass boosts too; a notch next to a peak lowers it), evaluated on a 1/48-octave grid from 10 Hz to Nyquist and at each filter's own frequency. Bands
  * that overlap add up: a +9 dB low shelf and a +12 dB peak together boost more than either.
  * Accuracy: the grid can miss the top of a peak that is narrower than 1/48 octave between two points
  * only when it is not at a filter's frequency; the summed maximum of overlapping bands lies between them.
+ * Of extremes equal within rounding (a plateau: a shelf's flat side) the lowest frequency is named; a
+ * boost or cut an answer would show as 0 dB counts as none. The grid is shared per sample rate and only the
+ * extremes are turned into dB (sosMagnitudeExtremes), so this costs a few microseconds per filter.
  */
 export function eqExtremes(filters: readonly FilterSpec[], sampleRateHz: number): EqExtremes {
   if (filters.length === 0) return { maxBoostDb: 0, maxBoostHz: null, maxCutDb: 0, maxCutHz: null };
   const nyquist = sampleRateHz / 2;
-  const grid = [
-    ...logFrequencyGrid(LOWEST_HZ, nyquist * 0.999, POINTS_PER_OCTAVE),
-    ...filters.map((f) => f.frequencyHz).filter((f) => f < nyquist),
-  ].sort((a, b) => a - b);
   const sections = designBiquads([...filters], sampleRateHz);
-  const db = sosMagnitudeDb(sections, unitCircle(grid, sampleRateHz));
-  let hi = 0;
-  let lo = 0;
-  for (let i = 1; i < db.length; i++) {
-    if (db[i] > db[hi]) hi = i;
-    if (db[i] < db[lo]) lo = i;
-  }
+  const grid = extremesGrid(sampleRateHz);
+  const own = filters
+    .map((f) => f.frequencyHz)
+    .filter((f) => f < nyquist)
+    .sort((a, b) => a - b);
+  const onGrid = sosMagnitudeExtremes(sections, grid);
+  const atOwn = sosMagnitudeExtremes(sections, unitCircle(own, sampleRateHz));
+  // The grid is never empty; a filter's own frequency wins when higher, or equal and lower in frequency.
+  const ownFirst = (ownDb: number, gridDb: number, ownHz: number, gridHz: number, sign: 1 | -1) =>
+    sign * (ownDb - gridDb) > EXTREMES_EQUAL_DB ||
+    (Math.abs(ownDb - gridDb) <= EXTREMES_EQUAL_DB && ownHz < gridHz);
+  const gridHz = grid.frequenciesHz;
+  const [maxDb, maxHz] =
+    atOwn.maxIndex >= 0 &&
+    ownFirst(atOwn.maxDb, onGrid.maxDb, own[atOwn.maxIndex], gridHz[onGrid.maxIndex], 1)
+      ? [atOwn.maxDb, own[atOwn.maxIndex]]
+      : [onGrid.maxDb, gridHz[onGrid.maxIndex]];
+  const [minDb, minHz] =
+    atOwn.minIndex >= 0 &&
+    ownFirst(atOwn.minDb, onGrid.minDb, own[atOwn.minIndex], gridHz[onGrid.minIndex], -1)
+      ? [atOwn.minDb, own[atOwn.minIndex]]
+      : [onGrid.minDb, gridHz[onGrid.minIndex]];
+  // What an answer would show as 0 dB (an all-pass, whose 0 dB the arithmetic rounds to ±1e-11) is
+  // neither a boost nor a cut: it would otherwise be named "a boost of +0 dB".
+  const boosts = presentDb(maxDb) > 0;
+  const cuts = presentDb(minDb) < 0;
   return {
-    maxBoostDb: Math.max(0, db[hi]),
-    maxBoostHz: db[hi] > 0 ? grid[hi] : null,
-    maxCutDb: Math.max(0, -db[lo]),
-    maxCutHz: db[lo] < 0 ? grid[lo] : null,
+    maxBoostDb: boosts ? maxDb : 0,
+    maxBoostHz: boosts ? maxHz : null,
+    maxCutDb: cuts ? -minDb : 0,
+    maxCutHz: cuts ? minHz : null,
   };
 }
 
