@@ -6,12 +6,14 @@
  * builtin, counts for the Express response code that called it). Prints CPU-µs per request per stage.
  *
  * BENCH_PROFILE_S (default 10) sets the measured window; BENCH_PROFILE_TARGET another target script;
- * BENCH_PROFILE_KEEP a file to keep the raw .cpuprofile in (for Chrome DevTools).
+ * BENCH_PROFILE_KEEP a file to keep the raw .cpuprofile in (for Chrome DevTools). The target runs built, as
+ * in `npm run bench` (BENCH_FROM_SOURCE=1: through tsx).
  */
 import { fork } from 'node:child_process';
 import { copyFileSync, mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
+import { prepareTargets } from './targets-build';
 import type { CpuMessage, ReadyMessage, TargetMessage } from './targets/protocol';
 
 // eslint-disable-next-line @typescript-eslint/no-require-imports
@@ -83,8 +85,9 @@ function stageOf(node: ProfileNode, parents: Map<number, ProfileNode>): string {
 
 async function main(): Promise<void> {
   const dir = mkdtempSync(path.join(tmpdir(), 'isochron-profile-'));
-  const child = fork(path.join(__dirname, 'targets', TARGET), [], {
-    execArgv: ['--import', 'tsx', '--cpu-prof', '--cpu-prof-dir', dir],
+  const launcher = prepareTargets();
+  const child = fork(launcher.file(TARGET), [], {
+    execArgv: [...launcher.execArgv, '--cpu-prof', '--cpu-prof-dir', dir],
     stdio: ['ignore', 'inherit', 'inherit', 'ipc'],
   });
   const next = <T extends TargetMessage>(type: T['type']) =>

@@ -10,9 +10,11 @@
  * runs the measurement-analysis benchmark when present, and writes bench/results/latest.json.
  *
  * BENCH_ROUNDS (default 5) and BENCH_ROUND_S (seconds per target per round, default 4) set the length.
+ * The targets run built (tsc, as `npm start` runs the service); BENCH_FROM_SOURCE=1 runs them through tsx.
  */
 import { fork, type ChildProcess } from 'node:child_process';
 import { runCaptureBench } from './capture.bench';
+import { prepareTargets, type TargetLauncher } from './targets-build';
 import { existsSync, mkdirSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
@@ -149,13 +151,12 @@ function load(target: Target, seconds: number, latencies: number[] | null): Prom
   return instance;
 }
 
-async function start(scenario: Scenario): Promise<Target> {
+async function start(scenario: Scenario, launcher: TargetLauncher): Promise<Target> {
   // BENCH_CPU_PROF_DIR: V8 CPU profiles of the full chain's threads (event loop and workers), written there on exit.
   const profileDir = process.env.BENCH_CPU_PROF_DIR;
-  const child = fork(path.join(__dirname, 'targets', scenario.script), [], {
+  const child = fork(launcher.file(scenario.script), [], {
     execArgv: [
-      '--import',
-      'tsx',
+      ...launcher.execArgv,
       ...(profileDir && scenario.key === 'C' ? ['--cpu-prof', '--cpu-prof-dir', profileDir] : []),
     ],
     stdio: ['ignore', 'inherit', 'inherit', 'ipc'],
@@ -399,6 +400,8 @@ async function runAnalysis(): Promise<unknown[] | null> {
 }
 
 const ms = (value: number) => `${value.toFixed(2)} ms`;
+/** What the target servers ran from (the build or the sources), for the report. */
+let targetsFrom = '';
 
 async function main(): Promise<void> {
   console.log(
@@ -408,7 +411,10 @@ async function main(): Promise<void> {
   );
   const targets: Target[] = [];
   try {
-    for (const scenario of SCENARIOS) targets.push(await start(scenario));
+    const launcher = prepareTargets();
+    targetsFrom = launcher.from;
+    console.log(`Targets run from ${launcher.from}.\n`);
+    for (const scenario of SCENARIOS) targets.push(await start(scenario, launcher));
     for (const target of targets)
       target.warmupCompleted = (await load(target, WARMUP_S, null)).requests.total;
     const ratios: number[] = [];
@@ -531,6 +537,7 @@ async function report(results: ScenarioResult[], ratioSet: Ratios, heavy: LoadWi
     rounds: ROUNDS,
     secondsPerRound: ROUND_S,
     requestBody: JSON.parse(BODY),
+    targetsFrom,
     results,
     ratioChainToExpress: ratio,
     ratioChainToExpressByRound: ratios,
