@@ -181,7 +181,11 @@ describe('decay plots of a stored measurement', () => {
       422,
       '/body/decaySpanMs',
     );
-    expectProblem(await postFile(wav([tone]), { channel: 'M+000', decaySlices: 129 }), 400, '/body/decaySlices');
+    expectProblem(
+      await postFile(wav([tone]), { channel: 'M+000', decaySlices: 129 }),
+      400,
+      '/body/decaySlices',
+    );
     expect((await request(ctx.app).get(`${base()}?limit=100`).set(auth())).body.data.length).toBe(before);
   });
 });
