@@ -44,6 +44,8 @@ describe('requireStoredPlanBudget', () => {
     }
     expect(thrown).toBeInstanceOf(CalculationInputError);
     expect((thrown as CalculationInputError).field).toBe('/measurements/exclude');
-    expect((thrown as Error).message).toContain(`over the budget: C${MAX_PLAN_FITS + 1}, C${MAX_PLAN_FITS + 2})`);
+    expect((thrown as Error).message).toContain(
+      `over the budget: C${MAX_PLAN_FITS + 1}, C${MAX_PLAN_FITS + 2})`,
+    );
   });
 });
