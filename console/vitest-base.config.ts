@@ -6,6 +6,10 @@ export default defineConfig({
     // The property-based specs (fast-check against ajv, a real HTTP server for the snippets) take
     // seconds on a busy two-core machine; the same ceiling the root jest config uses.
     testTimeout: 30000,
+    // Spec files share one module graph per worker (no isolation), so a global stubbed or a spy left
+    // in one file would reach the next: both are undone after every test.
+    unstubGlobals: true,
+    restoreMocks: true,
     // jsdom lays nothing out, so the CDK finds no element focusable and warns for every dialog's
     // cdkFocusInitial; that says nothing about the console.
     // Nor does it draw: chart.js says it has no canvas context, and the chart specs check the
