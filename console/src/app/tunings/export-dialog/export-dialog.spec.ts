@@ -72,6 +72,8 @@ describe('ExportDialog', () => {
   const revoked = globalThis.URL.revokeObjectURL;
 
   beforeEach(() => {
+    // Left from the last test, whose application is gone: nothing to run change detection on yet.
+    opened = undefined as unknown as OpenDialog<ExportDialog, unknown>;
     TestBed.configureTestingModule({ providers: [provideHttpClient(), provideHttpClientTesting()] });
     http = TestBed.inject(HttpTestingController);
   });
