@@ -164,6 +164,15 @@ export const LIMITS = {
   decaySpanMs: { minimum: 1, maximum: 2000, default: 300 },
   waterfallWindowMs: { minimum: 2, maximum: 3000, default: 500 },
   spectrogramWindowMs: { minimum: 1, maximum: 1000, default: 50 },
+  // The same plots on a stored measurement: no defaults in the contract, so a decay field sent with a
+  // text response (which has no time axis) can be told from one left out; the defaults above apply.
+  'MeasurementUpload.decaySlices': { minimum: 2, maximum: 128 },
+  'MeasurementUpload.decayBins': { minimum: 16, maximum: 256 },
+  'MeasurementUpload.decayFromHz': { minimum: 1, maximum: 96000 },
+  'MeasurementUpload.decayToHz': { minimum: 10, maximum: 96000 },
+  'MeasurementUpload.decaySpanMs': { minimum: 1, maximum: 2000 },
+  'MeasurementUpload.waterfallWindowMs': { minimum: 2, maximum: 3000 },
+  'MeasurementUpload.spectrogramWindowMs': { minimum: 1, maximum: 1000 },
   'MicrophoneCreate.name': { minLength: 1, maxLength: NAME_MAX_LENGTH },
   'MicrophoneCreate.serial': { minLength: 1, maxLength: 64 },
   'MicrophoneCreate.notes': { maxLength: 4000 },

@@ -3,6 +3,7 @@ import {
   requireFrequencyResponse,
   type ParsedFrequencyResponse,
 } from '../../shared/analysis/frequency-response-text';
+import { decayPlotsOf, type DecayPlotOptions } from '../../shared/analysis/decay-plots';
 import type { DeconvolutionMethod } from '../../shared/capture/deconvolve';
 import type { PlayedSweep } from '../../shared/capture/sweep-wav';
 import { CalculationInputError } from '../../shared/errors';
@@ -38,6 +39,15 @@ export interface UploadForm {
   method?: DeconvolutionMethod;
   offsetS?: number;
   lengthS?: number;
+  waterfall?: boolean;
+  spectrogram?: boolean;
+  decaySlices?: number;
+  decayBins?: number;
+  decayFromHz?: number;
+  decayToHz?: number;
+  decaySpanMs?: number;
+  waterfallWindowMs?: number;
+  spectrogramWindowMs?: number;
 }
 
 /** What an uploaded file holds. */
@@ -55,6 +65,37 @@ const SWEEP_FIELDS = [
   'offsetS',
   'lengthS',
 ] as const;
+
+/** The fields that ask for decay plots; a text frequency response has no time axis to plot them on. */
+const DECAY_FIELDS = [
+  'waterfall',
+  'spectrogram',
+  'decaySlices',
+  'decayBins',
+  'decayFromHz',
+  'decayToHz',
+  'decaySpanMs',
+  'waterfallWindowMs',
+  'spectrogramWindowMs',
+] as const;
+
+/**
+ * The decay plots an upload asks for, with the analysis routes' defaults (`shared/limits.ts`) for what it
+ * leaves out; undefined when it asks for none.
+ */
+function decayPlotsOfUpload(form: UploadForm): DecayPlotOptions | undefined {
+  return decayPlotsOf({
+    waterfall: form.waterfall,
+    spectrogram: form.spectrogram,
+    decaySlices: form.decaySlices ?? LIMITS.decaySlices.default,
+    decayBins: form.decayBins ?? LIMITS.decayBins.default,
+    decayFromHz: form.decayFromHz ?? LIMITS.decayFromHz.default,
+    decayToHz: form.decayToHz ?? LIMITS.decayToHz.default,
+    decaySpanMs: form.decaySpanMs ?? LIMITS.decaySpanMs.default,
+    waterfallWindowMs: form.waterfallWindowMs ?? LIMITS.waterfallWindowMs.default,
+    spectrogramWindowMs: form.spectrogramWindowMs ?? LIMITS.spectrogramWindowMs.default,
+  });
+}
 
 /** The room must have a loudspeaker with this channel label. */
 export function requireRoomChannel(room: Room, channel: string): void {
@@ -96,6 +137,16 @@ export async function contentFromFile(
       );
     }
   }
+  if (fileKind === 'frequencyResponse') {
+    // Decay plots need the response over time; a text response has only its spectrum.
+    const stray = DECAY_FIELDS.find((k) => form[k] !== undefined);
+    if (stray) {
+      throw new CalculationInputError(
+        `${stray} asks for a decay plot, which needs a WAV impulse response or recorded sweep (this file is read as a text frequency response)`,
+        `/${stray}`,
+      );
+    }
+  }
   if (fileKind === 'sweepRecording') return sweepContent(work, file, form, room);
   if (fileKind === 'impulseResponse') {
     const given = timingReferenceGiven(form);
@@ -116,6 +167,7 @@ export async function contentFromFile(
         smoothingOctaves: form.smoothingOctaves ?? 1 / 12,
         room: room.dimensions,
         temperatureC: form.temperatureC ?? 20,
+        decayPlots: decayPlotsOfUpload(form),
       },
       undefined,
       [file.buffer],
@@ -200,6 +252,7 @@ async function sweepContent(
       room: room.dimensions,
       temperatureC: form.temperatureC ?? 20,
       fields: { channel: '/fileChannel', referenceChannel: '/referenceFileChannel' },
+      decayPlots: decayPlotsOfUpload(form),
     },
     undefined,
     [file.buffer],

@@ -2361,7 +2361,8 @@ export type components = {
             /**
              * @description Impulse response: the analysis of `POST /v1/analysis/impulse-response` (without `file`); from a
              *     recorded sweep, that of `POST /v1/analysis/sweep` (with `deconvolution`, `distortion`, and with a
-             *     loopback `timing` and `timingReference`). Frequency
+             *     loopback `timing` and `timingReference`); with `waterfall`/`spectrogram` asked for at upload, those
+             *     decay plots too (up to 128 × 256 levels each). Frequency
              *     response: `frequenciesHz`, `magnitudeDb` and, when given, `phaseDeg`. SPL: `splDb`, `weighting`,
              *     `timeWeighting`. Left out of lists.
              */
@@ -2458,6 +2459,16 @@ export type components = {
         MeasurementUpload: {
             /** @description Loudspeaker id in the room, e.g. M+030. */
             channel: string;
+            /** @description Frequency points, log-spaced (default 96). */
+            decayBins?: number;
+            /** @description Lowest plotted frequency, Hz (default 20). */
+            decayFromHz?: number;
+            /** @description Time slices of the plots (default 32). */
+            decaySlices?: number;
+            /** @description Arrival to the last slice, ms (default 300). */
+            decaySpanMs?: number;
+            /** @description Highest plotted frequency, Hz (default 20000, at most Nyquist). */
+            decayToHz?: number;
             /** @description Sweep T, fades included, s (sweepRecording; default 10). */
             durationS?: number;
             /** @description Sweep f2, Hz (sweepRecording; default 20000). */
@@ -2502,6 +2513,10 @@ export type components = {
             referenceFileChannel?: number;
             /** @default 0.08333333333333333 */
             smoothingOctaves?: number;
+            /** @description Also store a spectrogram (`result.spectrogram`), as the analysis routes answer it. Default false. */
+            spectrogram?: boolean;
+            /** @description Spectrogram window length, ms (default 50). */
+            spectrogramWindowMs?: number;
             stage?: components["schemas"]["MeasurementStage"];
             /** @description Sweep f1, Hz (sweepRecording; default 20). */
             startHz?: number;
@@ -2514,6 +2529,14 @@ export type components = {
             timingReferenceMs?: number;
             tuningId?: components["schemas"]["TuningId"];
             tuningVersion?: components["schemas"]["MeasuredTuningVersion"];
+            /**
+             * @description Also store a cumulative spectral decay (`result.waterfall`) of a WAV impulse response or recorded
+             *     sweep, as `POST /v1/analysis/impulse-response` answers it. The audio is not kept, so decay plots
+             *     can only be asked for with the upload. Default false.
+             */
+            waterfall?: boolean;
+            /** @description Fixed end of the waterfall after the arrival, ms (default 500; longer than decaySpanMs). */
+            waterfallWindowMs?: number;
         };
         Microphone: {
             /** @description The parsed calibration (the microphone's deviation, subtracted from measured responses), or null. */
