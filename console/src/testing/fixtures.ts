@@ -1,6 +1,8 @@
 import type { ProcessorProfile, Room } from '../app/rooms/room.model';
 import type { Tuning, TuningChannel, TuningVersion } from '../app/tunings/tuning.model';
 import { STAGE3_PROFILE, STAGE3_ROOM } from '../../../seeds/demo-stage3-room';
+import { roomGeometry } from '../../../shared/geometry';
+import { findLayout } from '../../../shared/layouts';
 
 /**
  * Answers of the API for the console's specs, built from the invented demo room (seeds/) and typed
@@ -10,14 +12,22 @@ import { STAGE3_PROFILE, STAGE3_ROOM } from '../../../seeds/demo-stage3-room';
 export const ROOM_ID = 'room_stage3';
 export const PROFILE_ID = 'prof_generic8';
 
-/** Stage 3 as `GET /v1/rooms/{roomId}` answers it (geometry left empty: no page here reads it). */
+/** Stage 3 as `GET /v1/rooms/{roomId}` answers it, its geometry worked out as the API does (roomGeometry). */
 export function demoRoom(overrides: Partial<Room> = {}): Room {
+  const layout = findLayout(STAGE3_ROOM.layout);
+  if (!layout) throw new Error(`no layout ${STAGE3_ROOM.layout}`);
+  const geometry = roomGeometry({
+    layout: layout.id,
+    dimensions: STAGE3_ROOM.dimensions,
+    listener: STAGE3_ROOM.listener,
+    loudspeakers: STAGE3_ROOM.loudspeakers,
+  });
   return {
     id: ROOM_ID,
     ownerId: 'usr_1',
     name: STAGE3_ROOM.name,
-    layout: 'bs2051-j',
-    layoutName: '7+4+0',
+    layout: layout.id,
+    layoutName: layout.name,
     dimensions: STAGE3_ROOM.dimensions,
     listener: STAGE3_ROOM.listener,
     loudspeakers: STAGE3_ROOM.loudspeakers,
@@ -25,7 +35,14 @@ export function demoRoom(overrides: Partial<Room> = {}): Room {
     sampleRateHz: STAGE3_ROOM.sampleRateHz,
     notes: null,
     profileId: null,
-    geometry: { angleToleranceDeg: 2, speakers: [], warnings: [] },
+    // As it reaches the console: JSON (the computed ranges are read-only tuples in TypeScript).
+    geometry: JSON.parse(
+      JSON.stringify({
+        angleToleranceDeg: geometry.angleToleranceDeg,
+        speakers: geometry.speakers,
+        warnings: geometry.warnings,
+      }),
+    ) as Room['geometry'],
     createdAt: '2026-03-02T09:00:00.000Z',
     updatedAt: '2026-03-02T09:00:00.000Z',
     ...overrides,
