@@ -215,4 +215,35 @@ describe('ChannelEditor', () => {
       await loader.getAllHarnesses(MatButtonHarness.with({ selector: '[data-testid="save-channel"]' })),
     ).toEqual([]);
   });
+
+  it('names a crossover order the family cannot have on the order field, and draws nothing', async () => {
+    const family = await loader.getHarness(
+      MatSelectHarness.with({ selector: '[data-testid="field-highPassFamily"]' }),
+    );
+    await family.clickOptions({ text: 'Linkwitz-Riley' });
+    const order = await loader.getHarness(
+      MatInputHarness.with({ selector: '[formControlName="highPassOrder"]' }),
+    );
+    await order.setValue('3');
+    const orderField = await loader.getHarness(
+      MatFormFieldHarness.with({ selector: ':has([formControlName="highPassOrder"])' }),
+    );
+    expect((await orderField.getTextErrors()).join(' ')).toContain('2, 4, 8');
+    expect(fixture.nativeElement.querySelector('[data-testid="channel-response"]')).toBeNull();
+    expect(await (await saveButton()).isDisabled()).toBe(true);
+    await order.setValue('4');
+    expect(await orderField.getTextErrors()).toEqual([]);
+    expect(await (await saveButton()).isDisabled()).toBe(false);
+    // The response is drawn again once every value can be used.
+    expect(fixture.nativeElement.querySelector('[data-testid="channel-response"]')).not.toBeNull();
+  });
+
+  it('names a band at or above Nyquist of the tuning’s rate on its frequency', async () => {
+    fixture.componentInstance.sampleRateHz.set(44100);
+    await settle();
+    await (await input('band-frequencyHz')).setValue('23000');
+    expect((await (await field('band-frequencyHz')).getTextErrors()).join(' ')).toContain('below 22050 Hz');
+    expect(fixture.nativeElement.querySelector('[data-testid="channel-response"]')).toBeNull();
+    expect(await (await saveButton()).isDisabled()).toBe(true);
+  });
 });

@@ -155,11 +155,17 @@ export class ChannelEditor {
 
   /** The response of the draft, or the field that cannot be designed at this rate. */
   private readonly designed = computed(() => {
+    // Read the draft first, in every branch: a computed depends only on the signals its last run read,
+    // and the validity check below reads none, so returning before it would freeze the result until
+    // the channel is reloaded (the plot stayed empty and no physics error showed after one bad value).
+    const draft = this.draft();
+    const subwoofer = this.subwoofer() ?? null;
+    const sampleRateHz = this.sampleRateHz();
     if (this.form.invalid && this.hasBoundErrors()) return { error: null, correction: null };
     try {
       return {
         error: null,
-        correction: channelCorrection(this.draft(), this.subwoofer() ?? null, this.sampleRateHz()),
+        correction: channelCorrection(draft, subwoofer, sampleRateHz),
       };
     } catch (error) {
       if (error instanceof CalculationInputError) return { error, correction: null };
