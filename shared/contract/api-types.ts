@@ -2407,35 +2407,7 @@ export type components = {
             /** @enum {unknown} */
             stage: "before" | "after";
             /** @description A few numbers for lists: arrival (and, with a timing reference, arrivalFromReferenceMs), level and decay times; points and range; or the SPL. */
-            summary: {
-                /** @description Impulse response with a timing reference: arrival counted from it, ms. */
-                arrivalFromReferenceMs?: number;
-                /** @description Impulse response: arrival, ms. */
-                arrivalMs?: number;
-                /** @description Impulse response: early decay time. */
-                edtS?: number | null;
-                /** @description Impulse response: energy. */
-                energyDb?: number;
-                /** @description Frequency response: lowest frequency. */
-                fromHz?: number;
-                /** @description Impulse response: peak level. */
-                peakDbfs?: number;
-                /** @description Frequency response: number of points. */
-                points?: number;
-                /** @description SPL reading, dB re 20 µPa. */
-                splDb?: number;
-                /** @description Impulse response: T20. */
-                t20S?: number | null;
-                /** @description Impulse response: T30. */
-                t30S?: number | null;
-                /** @description Frequency response: highest frequency. */
-                toHz?: number;
-                /**
-                 * @description SPL reading: frequency weighting.
-                 * @enum {unknown}
-                 */
-                weighting?: "A" | "C" | "Z";
-            };
+            summary: Record<string, never>;
             tuningId: string | null;
             tuningVersion: number | null;
         };

@@ -9,7 +9,7 @@ import {
 } from './usage-series';
 
 function row(route: string, bucket: string, count: number, errorCount = 0, keyId = 'key_a'): UsageRow {
-  return { keyId, keyName: null, route, bucket, count, errorCount, userId: null };
+  return { keyId, route, bucket, count, errorCount };
 }
 
 const rows: UsageRow[] = [

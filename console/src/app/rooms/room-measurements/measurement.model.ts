@@ -1,46 +1,146 @@
-import type { components, operations } from '../../../../../shared/contract/api-types';
-
-type Schemas = components['schemas'];
-
 /** The kinds of stored measurement the API knows. */
-export type MeasurementKind = Schemas['Measurement']['kind'];
+export type MeasurementKind = 'impulseResponse' | 'frequencyResponse' | 'spl';
 
 /** A few numbers per measurement for lists; which ones depends on the kind. */
-export type MeasurementSummary = Schemas['Measurement']['summary'];
+export interface MeasurementSummary {
+  arrivalMs?: number;
+  peakDbfs?: number;
+  energyDb?: number;
+  edtS?: number | null;
+  t20S?: number | null;
+  t30S?: number | null;
+  points?: number;
+  fromHz?: number;
+  toHz?: number;
+  splDb?: number;
+  weighting?: string;
+}
+
+export interface MagnitudeResponse {
+  frequenciesHz: number[];
+  magnitudeDb: number[];
+  phaseDeg?: number[];
+}
+
+export interface DecayTimes {
+  edtS: number | null;
+  t20S: number | null;
+  t30S: number | null;
+}
+
+export interface BandDecay extends DecayTimes {
+  centreHz: number;
+  nominalHz: number;
+}
+
+export interface RoomMode {
+  nx: number;
+  ny: number;
+  nz: number;
+  frequencyHz: number;
+  kind: 'axial' | 'tangential' | 'oblique';
+}
+
+/** The analysis the API stores for an uploaded impulse response. */
+export interface ImpulseResponseAnalysis {
+  sampleRateHz: number;
+  durationS: number;
+  arrival: { arrivalMs: number; peakMs: number; thresholdDb: number };
+  level: {
+    peakDbfs: number;
+    rmsDbfs: number;
+    energyDb: number;
+    noiseFloorDbfs: number;
+    peakToNoiseDb: number;
+  };
+  frequencyResponse: MagnitudeResponse & { smoothingOctaves: number };
+  decay: DecayTimes & { impulseToNoiseDb: number; truncationMs: number; bands: BandDecay[] };
+  room?: {
+    volumeM3: number;
+    speedOfSoundMps: number;
+    schroederFrequencyHz: number | null;
+    modesUpToHz: number;
+    modes: RoomMode[];
+  };
+  warnings: Array<{ code: string; message: string }>;
+}
 
 /** A stored measurement as the API returns it; lists leave out `result`. */
-export type Measurement = Schemas['Measurement'];
-
-/** The analysis the API stores for an uploaded impulse response (without the uploaded file's details). */
-export type ImpulseResponseAnalysis = Omit<Schemas['ImpulseResponseAnalysis'], 'file'>;
-
-export type DecayTimes = Schemas['DecayTimes'];
-
-/** Decay times in one octave band. */
-export type BandDecay = ImpulseResponseAnalysis['decay']['bands'][number];
-
-export type RoomMode = NonNullable<ImpulseResponseAnalysis['room']>['modes'][number];
+export interface Measurement {
+  id: string;
+  roomId: string;
+  channel: string;
+  micPosition: string;
+  kind: MeasurementKind;
+  name: string | null;
+  notes: string | null;
+  source: { type: 'wav' | 'text' | 'json'; fileName?: string; sampleRateHz?: number; durationS?: number };
+  summary: MeasurementSummary;
+  result?: Record<string, unknown>;
+  createdAt: string;
+}
 
 /** `GET /v1/rooms/{roomId}/measurements/average?channel=`. */
-export type AverageResponse =
-  operations['averageMeasurements']['responses'][200]['content']['application/json'];
+export interface AverageResponse {
+  channel: string;
+  measurementIds: string[];
+  micPositions: string[];
+  frequenciesHz: number[];
+  magnitudeDb: number[];
+}
 
 /** The two kinds of stored response a channel's average can be made of. */
-export type ResponseKind = NonNullable<operations['averageMeasurements']['parameters']['query']['kind']>;
+export type ResponseKind = 'impulseResponse' | 'frequencyResponse';
 
-/** WAV-only fields of a measurement upload the room page offers. */
-export type UploadOptions = Pick<
-  Schemas['MeasurementUpload'],
-  'fileChannel' | 'referenceFileChannel' | 'smoothingOctaves' | 'name' | 'notes'
->;
+/** WAV-only fields of a measurement upload. */
+export interface UploadOptions {
+  /** 0-based channel of a multichannel file. */
+  fileChannel?: number;
+  /** 0-based channel holding the loopback of the test signal (timing reference). */
+  referenceFileChannel?: number;
+  smoothingOctaves?: number;
+  name?: string;
+  notes?: string;
+}
 
 /** A target point: level in dB at a frequency. */
-export type TargetPoint = Schemas['TargetPoint'];
+export interface TargetPoint {
+  frequencyHz: number;
+  gainDb: number;
+}
 
 /** `GET /v1/target-curves` item. */
-export type StoredTargetCurve = Schemas['StoredTargetCurve'];
+export interface StoredTargetCurve {
+  id: string;
+  name: string;
+  notes: string | null;
+  points: TargetPoint[];
+}
 
-/** A fit of one measured response (the room page does not send `positions`). */
-export type EqFitRequest = Schemas['EqFitRequest'] & Required<Pick<Schemas['EqFitRequest'], 'measured'>>;
+/** The fit's target: flat, or one of the caller's stored curves by name. */
+export type FitTarget = { kind: 'flat' } | { kind: 'stored'; name: string };
 
-export type EqFitResult = Schemas['EqFitResult'];
+export interface EqFitRequest {
+  sampleRateHz: number;
+  measured: { frequenciesHz: number[]; magnitudeDb: number[] };
+  target: FitTarget;
+  maxBands: number;
+  maxBoostDb: number;
+  maxCutDb: number;
+  fromHz?: number;
+  toHz?: number;
+  /** The room's volume and measured reverberation time, for the transition frequency the fit starts below. */
+  room?: { volumeM3: number; reverberationTimeS?: number };
+}
+
+export interface EqFitResult {
+  sampleRateHz: number;
+  bands: Array<{ type: 'peaking'; frequencyHz: number; gainDb: number; q: number }>;
+  predicted: { frequenciesHz: number[]; magnitudeDb: number[] };
+  residualRmsDb: { before: number; after: number };
+  targetOffsetDb: number;
+  fromHz: number;
+  toHz: number;
+  warnings: Array<{ code: string; message: string; channel?: string }>;
+  cautions: Array<{ code: string; message: string }>;
+}
