@@ -234,8 +234,12 @@ export class DecayPlotView {
       y2,
       first: `${Math.round(plot.timesMs[0])} ms`,
       last: `${Math.round(plot.timesMs[n - 1])} ms`,
-      // The title runs along the diagonal, its baseline 16 px out on the lower-right side, clear of the line.
-      title: `translate(${((x1 + x2) / 2 + 16 * normal.x).toFixed(1)} ${((y1 + y2) / 2 + 16 * normal.y).toFixed(1)}) rotate(${angle.toFixed(1)})`,
+      // The title runs along the diagonal, its baseline 16 px out on the lower-right side, clear of the line;
+      // a diagonal too short for it (a phone) keeps only the labelled ends, which carry the unit.
+      title:
+        length < 90
+          ? null
+          : `translate(${((x1 + x2) / 2 + 16 * normal.x).toFixed(1)} ${((y1 + y2) / 2 + 16 * normal.y).toFixed(1)}) rotate(${angle.toFixed(1)})`,
     };
   });
 
