@@ -30,7 +30,9 @@ describe('compileRequestCost (the contract)', () => {
     ['POST', '/biquads', 1],
     ['POST', '/%70lans', 1],
     ['POST', '//plans', 1],
-    ['POST', '/rooms/room_1/plans', 1],
+    // A stored room's plan runs the same engine and fits as POST /plans.
+    ['POST', '/rooms/room_1/plans', 20],
+    ['GET', '/rooms/room_1/plans', 1],
   ])('%s %s costs %d', (method, url, expected) => {
     expect(cost(req(method, url))).toBe(expected);
   });

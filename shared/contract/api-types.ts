@@ -1016,6 +1016,12 @@ export type paths = {
          *     and are left out unless listed in `measurements.include`. `measurements.used` and `.ignored` (with
          *     the reason) account for every measurement of the room.
          *
+         *     **Budget.** Like `POST /v1/plans`, one plan fits EQ to at most 24 channels' responses (the channels
+         *     of the largest ITU-R BS.2051 layout); a room whose measurements give more is refused with a 422
+         *     naming `/body/measurements/exclude` and the channels over the budget. Leave out the responses of
+         *     channels that need no EQ there, or plan the room in parts. The plan counts as 20 requests against
+         *     the rate limits, as `POST /v1/plans` does.
+         *
          *     `store: true` saves the plan as a new tuning (version 1, origin `plan`) in the same call, with what
          *     it promises (reference level, expected levels, corrected ranges) for `GET
          *     /v1/tunings/{tuningId}/verification`; the stored tuning is in `tuning`.
@@ -5574,6 +5580,7 @@ export interface operations {
             404: components["responses"]["NotFound"];
             422: components["responses"]["Unprocessable"];
             429: components["responses"]["TooManyRequests"];
+            503: components["responses"]["Busy"];
         };
     };
     getRoomReport: {

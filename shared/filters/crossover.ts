@@ -86,7 +86,7 @@ export function linkwitzRileySections(
   const f = requireCrossoverFrequency(frequencyHz, fs);
   if (!(LINKWITZ_RILEY_ORDERS as readonly number[]).includes(order)) {
     throw new CalculationInputError(
-      `order must be ${LINKWITZ_RILEY_ORDERS.join(', ')} for a Linkwitz-Riley crossover; received ${order}`,
+      `order must be ${LINKWITZ_RILEY_ORDERS.slice(0, -1).join(', ')} or ${LINKWITZ_RILEY_ORDERS.at(-1)} for a Linkwitz-Riley crossover; received ${order}`,
       '/order',
     );
   }

@@ -12,6 +12,7 @@ import {
   type PlanSubwoofer,
   type RoomPlan,
 } from './plan-room';
+import { requireStoredPlanBudget } from './plan-budget';
 import { integrateSubwoofer, type ComplexResponse, type SubwooferIntegration } from './subwoofer-integration';
 
 /** A stored measurement as the plan reads it (the API's row, without I/O). */
@@ -367,6 +368,7 @@ export function planStoredRoom(
       bassManaged: managed.has(s.id),
     };
   });
+  requireStoredPlanBudget(channels.filter((c) => c.measuredResponse !== undefined).map((c) => c.id));
   const input: PlanInput = {
     layout: room.layoutId,
     room: room.dimensions,

@@ -40,6 +40,7 @@ describe('rate limits weighted by cost', () => {
       readMicrophoneCalibrator: [10, undefined],
       createMeasurement: [10, 'multipart/form-data'],
       createPlan: [20, undefined],
+      planStoredRoom: [20, undefined],
       createRoomTuning: [20, 'plan'],
       fitEq: [10, undefined],
     });

@@ -3,6 +3,7 @@ import { WaveFile } from 'wavefile';
 import { STAGE3_ROOM, STAGE3_SPL_DB } from '../../seeds/demo-stage3-room';
 import { stage3MeasuredResponses } from '../../seeds/demo-stage3-measurements';
 import { logFrequencyGrid } from '../../shared/dsp/grid';
+import { MAX_PLAN_FITS } from '../../shared/limits';
 import { expectToMatchContract } from '../support/contract';
 import { createTestContext, type TestContext } from '../support/test-context';
 import { expectProblem } from './calculation-helpers';
@@ -348,5 +349,57 @@ describe('subwoofer integration from measured complex responses', () => {
     const lfe = stored.body.tuning.channels.find((ch: { id: string }) => ch.id === 'LFE1');
     expect(lfe.polarity).toBe('inverted');
     expectAnswered(lfe.delayMs, (integration.chosen.delaySamples / fs) * 1000, 'ms');
+  }, 180_000);
+});
+
+describe('EQ-fit budget of a stored room’s plan', () => {
+  // The same budget as POST /v1/plans (MAX_PLAN_FITS fits per plan), here counted over the channels
+  // whose stored measurements give a response: a room of up to MAX_CHANNELS loudspeakers could
+  // otherwise ask one request for MAX_CHANNELS fits.
+  const count = MAX_PLAN_FITS + 2;
+  const labels = Array.from({ length: count }, (_, i) => `X${String(i + 1).padStart(2, '0')}`);
+  let roomId: string;
+  const responseIds: Record<string, string> = {};
+  beforeAll(async () => {
+    roomId = await newRoom({
+      name: 'Budget check',
+      layout: 'bs2051-h',
+      dimensions: { widthM: 12, lengthM: 14, heightM: 5 },
+      listener: { x: 6, y: 7, z: 1.2 },
+      limits: { eqBandsPerChannel: 1 },
+      // A ring of loudspeakers 3 m from the listener; the labels are not the layout's (a warning only).
+      loudspeakers: labels.map((id, i) => ({
+        id,
+        x: 6 + 3 * Math.sin((2 * Math.PI * i) / count),
+        y: 7 - 3 * Math.cos((2 * Math.PI * i) / count),
+        z: 1.2,
+      })),
+    });
+    for (const id of labels) {
+      responseIds[id] = await measure(roomId, {
+        kind: 'frequencyResponse',
+        channel: id,
+        micPosition: 'MLP',
+        response: { frequenciesHz: [20, 100, 1000, 20000], magnitudeDb: [80, 86, 80, 80] },
+      });
+    }
+  });
+
+  it('refuses more fits than the budget with a problem naming measurements.exclude and the channels over it', async () => {
+    const res = await plan(roomId, { targets: { referenceDb: 79 } });
+    expectProblem(res, 422, '/body/measurements/exclude');
+    const message: string = res.body.errors[0].message;
+    expect(message).toContain(`at most ${MAX_PLAN_FITS}`);
+    expect(message).toContain(`responses for ${count} channels`);
+    expect(message).toContain(labels.slice(MAX_PLAN_FITS).join(', '));
+  });
+
+  it('plans once the responses of channels over the budget are left out', async () => {
+    const left = labels.slice(MAX_PLAN_FITS).map((id) => responseIds[id]);
+    const res = await plan(roomId, { targets: { referenceDb: 79 }, measurements: { exclude: left } });
+    expect(res.status).toBe(200);
+    const fitted = (res.body.channels as Channel[]).filter((ch) => ch.sources.response.source !== 'none');
+    expect(fitted).toHaveLength(MAX_PLAN_FITS);
+    expect(res.body.measurements.ignored.map((i: { id: string }) => i.id).sort()).toEqual([...left].sort());
   }, 180_000);
 });

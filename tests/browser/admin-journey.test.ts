@@ -215,13 +215,40 @@ it('invites a colleague, shows the e-mail in the outbox, and the link lets them 
   const link = message.getByRole('link', { name: /accept-invitation\?token=/ });
   await link.waitFor();
   await screenshot(page, 'users-outbox');
-  const href = (await link.textContent()) ?? '';
+  const firstHref = (await link.textContent()) ?? '';
+  expect(firstHref.startsWith(`${service.origin}/accept-invitation?token=`)).toBe(true);
+
+  // The first e-mail went astray: a new link, after a confirmation, replaces it.
+  const row = page.getByRole('row', { name: /mix\.engineer@kestrel\.example/ });
+  await row.getByRole('button', { name: 'Send mix.engineer@kestrel.example a new invitation link' }).click();
+  const confirm = page.getByRole('dialog');
+  await confirm.getByText('The link sent before stops working').waitFor();
+  await confirm.getByRole('button', { name: 'Send new link' }).click();
+  await page.getByText(/A new invitation sent to mix\.engineer@kestrel\.example, valid until/).waitFor();
+  await page.getByTestId('outbox-message').nth(1).waitFor();
+  const newest = page.getByTestId('outbox-message').first();
+  await newest.click();
+  const newLink = newest.getByRole('link', { name: /accept-invitation\?token=/ });
+  await newLink.waitFor();
+  await screenshot(page, 'users-new-link');
+  const href = (await newLink.textContent()) ?? '';
   expect(href.startsWith(`${service.origin}/accept-invitation?token=`)).toBe(true);
+  expect(href).not.toBe(firstHref);
 
   const newcomer = await launchBrowser(service.origin);
   try {
     newcomer.allowFailure('/auth/session', 401);
+    newcomer.allowFailure('/auth/invitations/accept', 400);
     const invited = await newcomer.newPage();
+    // The first link no longer works.
+    await invited.goto(firstHref);
+    await invited.getByLabel('New password').fill('a long mixing-desk passphrase');
+    await invited.getByLabel('Repeat the password').fill('a long mixing-desk passphrase');
+    await invited.getByRole('button', { name: 'Set password' }).click();
+    await invited
+      .getByText(/This invitation link (is not valid|has already been used)/)
+      .first()
+      .waitFor();
     await invited.goto(href);
     await invited.getByRole('heading', { name: 'Set your password' }).waitFor();
     await invited.getByLabel('New password').fill('short');

@@ -29,6 +29,26 @@ function withBrowser(
 }
 
 const editor = (page: Page) => page.getByTestId('room-editor');
+const plan = (page: Page) => page.getByTestId('plan-editor');
+const marker = (page: Page, id: string) => page.getByRole('slider', { name: id, exact: true });
+
+/**
+ * Drags a loudspeaker's mark with the mouse to a room point: the plan's viewBox is the floor with a
+ * 0.4 m margin, scaled evenly into the drawing's box (read from the page, as a user aims by eye).
+ */
+async function dragOnPlan(page: Page, id: string, to: { x: number; y: number }): Promise<void> {
+  const box = await plan(page).boundingBox();
+  const viewBox = ((await plan(page).getAttribute('viewBox')) ?? '').split(' ').map(Number);
+  const from = await marker(page, id).locator('.mark').boundingBox();
+  if (!box || !from || viewBox.length !== 4) throw new Error('the plan is not drawn');
+  const scale = Math.min(box.width / viewBox[2], box.height / viewBox[3]);
+  const left = box.x + (box.width - viewBox[2] * scale) / 2;
+  const top = box.y + (box.height - viewBox[3] * scale) / 2;
+  await page.mouse.move(from.x + from.width / 2, from.y + from.height / 2);
+  await page.mouse.down();
+  await page.mouse.move(left + (to.x - viewBox[0]) * scale, top + (to.y - viewBox[1]) * scale, { steps: 8 });
+  await page.mouse.up();
+}
 
 it('creates a 5.1 room from its layout, adjusts one loudspeaker and starts a tuning', async () => {
   await withBrowser('light', async (page, browser) => {
@@ -50,13 +70,34 @@ it('creates a 5.1 room from its layout, adjusts one loudspeaker and starts a tun
     // Placed at the nominal +30° at 1.8 m: x = 2.1 − 1.8·sin 30° = 1.2 m (hand-computed).
     expect(await left.getByTestId('coord-x').inputValue()).toBe('1.2');
     await left.getByText('Within range').waitFor();
-    // Moved to 15° off the front: outside BS.2051's permitted 30° for system B, ringed on the plan.
-    await left.getByTestId('coord-x').fill('1.65');
+    // Dragged on the plan to x 1.65 m, 16° off the front: outside BS.2051's permitted 30° for system B,
+    // ringed on the plan; the table shows where it was dropped.
+    await dragOnPlan(page, 'M+030', { x: 1.65, y: 1.04 });
     await left.getByText('Out of range').waitFor();
-    expect(
-      await editor(page).getByTestId('editor-top-view').locator('canvas').getAttribute('aria-label'),
-    ).toMatch(/Outside the layout's permitted range: M\+030/);
-    await left.getByTestId('coord-x').fill('1.2');
+    expect(Number(await left.getByTestId('coord-x').inputValue())).toBeCloseTo(1.65, 1);
+    expect(Number(await left.getByTestId('coord-y').inputValue())).toBeCloseTo(1.04, 1);
+    expect(await plan(page).getAttribute('aria-label')).toMatch(
+      /Outside the layout's permitted range: M\+030/,
+    );
+    expect(await marker(page, 'M+030').locator('.ring').count()).toBe(1);
+    await screenshot(page, 'room-editor-dragged');
+    // Back by keyboard: the table's value to the millimetre, 5 cm a press, 1 cm with Shift.
+    await left.getByTestId('coord-x').fill('1.5');
+    await marker(page, 'M+030').focus();
+    for (let i = 0; i < 5; i++) await page.keyboard.press('ArrowLeft');
+    await page.keyboard.press('Shift+ArrowLeft');
+    await page.keyboard.press('Shift+ArrowLeft');
+    await page.keyboard.press('Shift+ArrowLeft');
+    expect(await left.getByTestId('coord-x').inputValue()).toBe('1.22');
+    await page.keyboard.press('Shift+ArrowLeft');
+    await page.keyboard.press('Shift+ArrowLeft');
+    expect(await left.getByTestId('coord-x').inputValue()).toBe('1.2');
+    await left.getByText('Within range').waitFor();
+    await page
+      .getByTestId('plan-announcement')
+      .getByText(/M\+030: azimuth .*within the permitted range/)
+      .waitFor();
+    await left.getByTestId('coord-y').fill('1.04');
     await editor(page).getByTestId('limit-delayMaxMs').fill('50');
     await screenshot(page, 'room-editor-new');
 
@@ -117,8 +158,27 @@ it('edits the demo room, keyboard only, and fits a phone in the dark scheme', as
     await page.setViewportSize(PHONE);
     await page.getByTestId('edit-room').click();
     await page.getByRole('heading', { level: 1, name: 'Edit Stage 3' }).waitFor();
-    await editor(page).getByTestId('editor-top-view').locator('canvas').waitFor();
+    await plan(page).waitFor();
     expect(await horizontalOverflow(page)).toEqual([]);
     await screenshot(page, 'phone-dark-room-editor');
+
+    // On the phone: drag the rear-left loudspeaker 40 cm toward the back wall, then nudge it by keyboard.
+    const rear = editor(page).getByTestId('speaker-M+135');
+    const x = Number(await rear.getByTestId('coord-x').inputValue());
+    const y = Number(await rear.getByTestId('coord-y').inputValue());
+    await marker(page, 'M+135').scrollIntoViewIfNeeded();
+    await dragOnPlan(page, 'M+135', { x, y: y + 0.4 });
+    expect(Number(await rear.getByTestId('coord-y').inputValue())).toBeCloseTo(y + 0.4, 1);
+    await marker(page, 'M+135').focus();
+    const dragged = Number(await rear.getByTestId('coord-x').inputValue());
+    await page.keyboard.press('ArrowRight');
+    expect(Number(await rear.getByTestId('coord-x').inputValue())).toBeCloseTo(dragged + 0.05, 6);
+    await page
+      .getByTestId('plan-announcement')
+      .getByText(/^M\+135: azimuth /)
+      .waitFor();
+    expect(await contrastProblems(page)).toEqual([]);
+    expect(await horizontalOverflow(page)).toEqual([]);
+    await screenshot(page, 'phone-dark-room-editor-plan-moved');
   });
 });

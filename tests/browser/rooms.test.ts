@@ -130,6 +130,10 @@ it('exports for a chosen processor profile with what rounding cost and the cauti
   await report.waitForLoadState();
   expect(report.url()).toBe(`${service.origin}${href}`);
   expect(await report.title()).toMatch(/Stage 3/);
+  // The report is of the tuning chosen, and reads as printed (print styles, as the browser prints it).
+  await report.getByText('Full range (demo)').first().waitFor();
+  await report.emulateMedia({ media: 'print' });
+  await screenshot(report, 'report-print');
   await report.close();
 });
 

@@ -113,6 +113,7 @@ it('edits a channel: limits refused as typed, a new version saved, its changes s
       .getByRole('row', { name: /v3/ })
       .getByText('Restored from v1')
       .waitFor();
+    await screenshot(page, 'tuning-restored');
     expect(
       await page
         .getByTestId('tuning-channels')

@@ -84,10 +84,20 @@ export function topViewChart(
     xTitle: 'x (m), left wall to right wall',
     yTitle: 'y (m), front wall to back wall',
     series: [outline, ...speakers, ...outOfRange, listener],
-    summary:
-      `Floor plan of ${room.name} seen from above, front wall at the top: ${metres(widthM)} wide and ` +
-      `${metres(lengthM)} long, ${room.loudspeakers.length} loudspeakers, listening position at x ` +
-      `${metres(room.listener.x)}, y ${metres(room.listener.y)}.` +
-      (outside.size ? ` Outside the layout's permitted range: ${[...outside].join(', ')}.` : ''),
+    summary: topViewSummary(room, outside),
   };
+}
+
+/** What a screen reader hears in place of the plan: size, loudspeaker count, listener, those out of range. */
+export function topViewSummary(
+  room: Pick<Room, 'dimensions' | 'listener' | 'loudspeakers' | 'name'>,
+  outside: ReadonlySet<string>,
+): string {
+  const { widthM, lengthM } = room.dimensions;
+  return (
+    `Floor plan of ${room.name} seen from above, front wall at the top: ${metres(widthM)} wide and ` +
+    `${metres(lengthM)} long, ${room.loudspeakers.length} loudspeakers, listening position at x ` +
+    `${metres(room.listener.x)}, y ${metres(room.listener.y)}.` +
+    (outside.size ? ` Outside the layout's permitted range: ${[...outside].join(', ')}.` : '')
+  );
 }

@@ -27,12 +27,12 @@ export class UsersService {
     return this.http.post<InvitationResult>('/v1/users', request);
   }
 
-  /** A fresh one-time link for someone who has not accepted yet; the old link stops working. */
-  reissueInvitation(id: string): Observable<InvitationResult['invitation']> {
-    return this.http.post<InvitationResult['invitation']>(
-      `/v1/users/${encodeURIComponent(id)}/invitations`,
-      {},
-    );
+  /**
+   * A fresh one-time link for someone who has not accepted yet; the old link stops working. Answered
+   * like an invitation: the user and the new link.
+   */
+  reissueInvitation(id: string): Observable<InvitationResult> {
+    return this.http.post<InvitationResult>(`/v1/users/${encodeURIComponent(id)}/invitations`, {});
   }
 
   update(id: string, changes: UserChanges): Observable<ConsoleUser> {

@@ -37,11 +37,10 @@ import {
 import { notBlank } from '../../tunings/tuning-details-dialog';
 import { formatQuantity } from '../../format/format';
 import { errorMessage, toProblem } from '../../problem/http-problem';
-import { ChartView } from '../../ui/chart/chart';
 import type { Layout, Room, RoomCreate } from '../room.model';
 import { formPathOf, layoutLabel, limitsOf, mm } from '../room-form';
 import { RoomsService } from '../rooms.service';
-import { topViewChart } from '../top-view';
+import { PlanEditor, type PlanMove } from './plan-editor';
 
 type SpeakerForm = FormGroup<{
   id: FormControl<string>;
@@ -63,13 +62,13 @@ const roomSide = [Validators.required, Validators.min(0.5), Validators.max(100)]
 @Component({
   selector: 'iso-room-editor-page',
   imports: [
-    ChartView,
     MatButtonModule,
     MatFormFieldModule,
     MatIconModule,
     MatInputModule,
     MatProgressBarModule,
     MatSelectModule,
+    PlanEditor,
     ReactiveFormsModule,
     RouterLink,
   ],
@@ -160,11 +159,10 @@ export class RoomEditorPage {
       return null;
     }
   });
-  protected readonly topView = computed(() => {
+  /** What the plan draws: the draft while every position is a number. */
+  protected readonly plan = computed(() => {
     this.value();
-    const room = this.roomDraft();
-    const geometry = this.geometry();
-    return room ? topViewChart({ ...room, name: room.name || 'New room' }, geometry?.speakers) : null;
+    return this.roomDraft();
   });
   protected readonly missingChannels = computed(() => {
     const layout = this.layout();
@@ -231,6 +229,15 @@ export class RoomEditorPage {
         z: listener.z,
       }),
     );
+  }
+
+  /** A loudspeaker dragged or moved by keyboard on the plan: the same x and y the table edits. */
+  protected moveSpeaker(move: PlanMove): void {
+    const speaker = this.speakers.at(move.index);
+    if (!speaker) return;
+    speaker.patchValue({ x: move.x, y: move.y });
+    speaker.controls.x.markAsDirty();
+    speaker.controls.y.markAsDirty();
   }
 
   protected removeSpeaker(index: number): void {

@@ -215,4 +215,79 @@ describe('ChannelEditor', () => {
       await loader.getAllHarnesses(MatButtonHarness.with({ selector: '[data-testid="save-channel"]' })),
     ).toEqual([]);
   });
+  describe('crossover combinations the design refuses (shared/filters/crossover.ts)', () => {
+    const highPassField = (name: 'highPassOrder' | 'highPassHz') =>
+      loader.getHarness(MatFormFieldHarness.with({ selector: `:has([formControlName="${name}"])` }));
+    const highPassInput = (name: 'highPassOrder' | 'highPassHz') =>
+      loader.getHarness(MatInputHarness.with({ selector: `[formControlName="${name}"]` }));
+    async function choose(familyText: 'Linkwitz-Riley' | 'Butterworth') {
+      const family = await loader.getHarness(
+        MatSelectHarness.with({ selector: '[data-testid="field-highPassFamily"]' }),
+      );
+      await family.clickOptions({ text: familyText });
+    }
+
+    // Linkwitz-Riley filters are squared Butterworths (S. H. Linkwitz, JAES 24(1), 1976): orders 2, 4, 8 here.
+    it.each(['3', '1', '6', '5'])(
+      'shows a Linkwitz-Riley of order %s refused on the order field',
+      async (order) => {
+        await choose('Linkwitz-Riley');
+        // setValue clears the field first: an empty order on the way must not stop later checks.
+        await (await highPassInput('highPassOrder')).setValue(order);
+        expect(await (await highPassField('highPassOrder')).getTextErrors()).toEqual([
+          `Order must be 2, 4 or 8 for a Linkwitz-Riley crossover; received ${order}.`,
+        ]);
+        expect(await (await saveButton()).isDisabled()).toBe(true);
+        expect(fixture.nativeElement.querySelector('iso-chart')).toBeNull();
+      },
+    );
+
+    it('takes the same order 3 as a Butterworth, and clears the refusal when the order is fixed', async () => {
+      await choose('Linkwitz-Riley');
+      await (await highPassInput('highPassOrder')).setValue('3');
+      expect(await (await highPassField('highPassOrder')).getTextErrors()).toHaveLength(1);
+      await choose('Butterworth');
+      await settle();
+      expect(await (await highPassField('highPassOrder')).getTextErrors()).toEqual([]);
+      expect(await (await saveButton()).isDisabled()).toBe(false);
+      await choose('Linkwitz-Riley');
+      await (await highPassInput('highPassOrder')).setValue('8');
+      expect(await (await highPassField('highPassOrder')).getTextErrors()).toEqual([]);
+      expect(fixture.nativeElement.querySelector('iso-chart')).not.toBeNull();
+    });
+
+    it('refuses a non-whole order and one past the contract’s bound', async () => {
+      await choose('Butterworth');
+      await (await highPassInput('highPassOrder')).setValue('2.5');
+      expect(await (await highPassField('highPassOrder')).getTextErrors()).toEqual([
+        'Order must be an integer; received 2.5.',
+      ]);
+      await (await highPassInput('highPassOrder')).setValue('9');
+      expect(await (await highPassField('highPassOrder')).getTextErrors()).toEqual(['At most 8.']);
+      expect(await (await saveButton()).isDisabled()).toBe(true);
+    });
+
+    it('refuses a corner at or above Nyquist for the tuning’s rate on the corner field', async () => {
+      fixture.componentInstance.sampleRateHz.set(44100);
+      await settle();
+      await choose('Linkwitz-Riley');
+      await (await highPassInput('highPassHz')).setValue('22050');
+      expect(await (await highPassField('highPassHz')).getTextErrors()).toEqual([
+        'FrequencyHz must be at least 1 Hz and below 22050 Hz; received 22050 Hz.',
+      ]);
+      await (await highPassInput('highPassHz')).setValue('120');
+      expect(await (await highPassField('highPassHz')).getTextErrors()).toEqual([]);
+    });
+
+    it('shows the API’s refusal of the order on the order field', async () => {
+      await choose('Linkwitz-Riley');
+      fixture.componentInstance.serverErrors.set([
+        { pointer: '/highPass/order', message: 'The processor takes orders 2 and 4.' },
+      ]);
+      await settle();
+      expect(await (await highPassField('highPassOrder')).getTextErrors()).toEqual([
+        'The processor takes orders 2 and 4.',
+      ]);
+    });
+  });
 });

@@ -153,13 +153,21 @@ export class ChannelEditor {
   );
   protected readonly limitText = computed(() => limitsSummary(this.limits(), this.profile()?.name));
 
-  /** The response of the draft, or the field that cannot be designed at this rate. */
+  /**
+   * The response of the draft, or the field that cannot be designed at this rate. The signals are read
+   * before anything else: a computed that returned early without reading them (while a field was empty)
+   * would never run again, and every later physics refusal (a Linkwitz-Riley of odd order, a band above
+   * Nyquist) would go unshown. The form's own errors are not signals; the draft changes with every edit.
+   */
   private readonly designed = computed(() => {
-    if (this.form.invalid && this.hasBoundErrors()) return { error: null, correction: null };
+    const draft = this.draft();
+    const subwoofer = this.subwoofer() ?? null;
+    const sampleRateHz = this.sampleRateHz();
+    if (this.hasBoundErrors()) return { error: null, correction: null };
     try {
       return {
         error: null,
-        correction: channelCorrection(this.draft(), this.subwoofer() ?? null, this.sampleRateHz()),
+        correction: channelCorrection(draft, subwoofer, sampleRateHz),
       };
     } catch (error) {
       if (error instanceof CalculationInputError) return { error, correction: null };

@@ -31,6 +31,7 @@ function user(id: string, email: string, overrides: Partial<ConsoleUser> = {}): 
 
 const me = user('usr_1', 'admin@example.test', { role: 'admin', name: 'Ada Admin' });
 const dev = user('usr_2', 'dev@example.test');
+const guest = user('usr_4', 'guest@example.test', { status: 'invited', role: 'viewer' });
 
 describe('UsersPage', () => {
   let http: HttpTestingController;
@@ -44,7 +45,7 @@ describe('UsersPage', () => {
     await fixture.whenStable();
   }
 
-  async function render(outbox: 'none' | 'empty' | 'messages' = 'none') {
+  async function render(outbox: 'none' | 'empty' | 'messages' = 'none', users: ConsoleUser[] = [me, dev]) {
     TestBed.configureTestingModule({
       providers: [
         provideHttpClient(),
@@ -58,7 +59,7 @@ describe('UsersPage', () => {
     fixture = TestBed.createComponent(UsersPage);
     // Not whenStable(): the page's resources count as pending until these answers come.
     fixture.detectChanges();
-    http.expectOne('/v1/users?limit=100').flush({ data: [me, dev], hasMore: false });
+    http.expectOne('/v1/users?limit=100').flush({ data: users, hasMore: false });
     const outboxRequest = http.expectOne('/v1/outbox');
     if (outbox === 'none')
       outboxRequest.flush({ title: 'Not found' }, { status: 404, statusText: 'Not Found' });
@@ -211,5 +212,138 @@ describe('UsersPage', () => {
     http.expectOne('/v1/outbox').flush({ data: [] });
     await settle();
     expect(fixture.nativeElement.querySelector('[role="alert"]')).toBeNull();
+  });
+  describe('a new invitation link', () => {
+    const reissueButton = () =>
+      loader.getHarness(MatButtonHarness.with({ selector: '[data-testid="reissue-invitation"]' }));
+    /**
+     * A native click on the dialog's confirm button: a harness would wait for the page to be stable,
+     * which it is not while the request it starts is unanswered.
+     */
+    /** Change detection without waiting for stability (a reload keeps the page busy until answered). */
+    async function tick() {
+      fixture.detectChanges();
+      await new Promise((resolve) => setTimeout(resolve));
+      fixture.detectChanges();
+    }
+    async function confirmNewLink() {
+      await root.getHarness(MatDialogHarness);
+      const button = [...document.querySelectorAll('mat-dialog-container button')].find((b) =>
+        b.textContent?.includes('Send new link'),
+      ) as HTMLButtonElement;
+      button.click();
+      fixture.detectChanges();
+      await new Promise((resolve) => setTimeout(resolve));
+    }
+
+    it('is offered only for users who have not accepted yet', async () => {
+      await render('none', [me, dev, guest, user('usr_5', 'off@example.test', { status: 'disabled' })]);
+      const buttons = await loader.getAllHarnesses(
+        MatButtonHarness.with({ selector: '[data-testid="reissue-invitation"]' }),
+      );
+      expect(buttons).toHaveLength(1);
+      expect(await (await buttons[0].host()).getAttribute('aria-label')).toBe(
+        'Send guest@example.test a new invitation link',
+      );
+    });
+
+    it('asks first; cancelling sends nothing', async () => {
+      await render('empty', [me, guest]);
+      await (await reissueButton()).click();
+      const confirm = await root.getHarness(MatDialogHarness);
+      expect(await confirm.getTitleText()).toBe('Send guest@example.test a new invitation?');
+      expect(await confirm.getContentText()).toContain('The link sent before stops working');
+      await (await confirm.getHarness(MatButtonHarness.with({ text: 'Cancel' }))).click();
+      await settle();
+      http.expectNone('/v1/users/usr_4/invitations');
+    });
+
+    it('sends the new link once confirmed, says until when it is valid and shows the new mail', async () => {
+      await render('empty', [me, guest]);
+      await (await reissueButton()).click();
+      await confirmNewLink();
+      const request = http.expectOne('/v1/users/usr_4/invitations');
+      expect(request.request.method).toBe('POST');
+      expect(request.request.body).toEqual({});
+      fixture.detectChanges();
+      // Waiting for the answer, the button cannot be pressed twice.
+      const pending = fixture.nativeElement.querySelector('[data-testid="reissue-invitation"]');
+      expect(pending.disabled).toBe(true);
+      expect(pending.textContent).toContain('Sending…');
+      request.flush({
+        user: { ...guest, updatedAt: '2026-03-02T10:00:00Z' },
+        invitation: {
+          url: 'http://localhost/accept-invitation?token=t2',
+          emailSent: true,
+          expiresAt: '2026-03-16T10:00:00Z',
+        },
+      });
+      await tick();
+      http.expectOne('/v1/outbox').flush({
+        data: [
+          {
+            id: 'msg_2',
+            subject: 'Your new invitation',
+            to: ['guest@example.test'],
+            sentAt: '2026-03-02T10:00:00Z',
+            text: 'Set your password: http://localhost/accept-invitation?token=t2',
+          },
+        ],
+      });
+      await settle();
+      const message = await (await root.getHarness(MatSnackBarHarness)).getMessage();
+      expect(message).toContain('A new invitation sent to guest@example.test, valid until');
+      expect(message).toContain('2026');
+      expect(fixture.nativeElement.textContent).not.toContain('could not be sent');
+      expect(await (await loader.getHarness(MatExpansionPanelHarness)).getTitle()).toBe(
+        'Your new invitation',
+      );
+      expect(await (await reissueButton()).isDisabled()).toBe(false);
+    });
+
+    it('hands over the new link when the e-mail could not go out', async () => {
+      await render('empty', [me, guest]);
+      await (await reissueButton()).click();
+      await confirmNewLink();
+      http.expectOne('/v1/users/usr_4/invitations').flush({
+        user: guest,
+        invitation: {
+          url: 'http://localhost/accept-invitation?token=t3',
+          emailSent: false,
+          expiresAt: '2026-03-16T10:00:00Z',
+        },
+      });
+      await tick();
+      http.expectOne('/v1/outbox').flush({ data: [] });
+      await settle();
+      expect(fixture.nativeElement.textContent).toContain('http://localhost/accept-invitation?token=t3');
+      expect(await (await root.getHarness(MatSnackBarHarness)).getMessage()).toBe(
+        'The e-mail to guest@example.test could not be sent; copy the link below.',
+      );
+    });
+
+    it('shows the refusal when they accepted meanwhile, and reloads the list', async () => {
+      await render('none', [me, guest]);
+      await (await reissueButton()).click();
+      await confirmNewLink();
+      http
+        .expectOne('/v1/users/usr_4/invitations')
+        .flush(
+          { title: 'Already accepted', detail: 'guest@example.test has already accepted the invitation.' },
+          { status: 409, statusText: 'Conflict' },
+        );
+      await tick();
+      http
+        .expectOne('/v1/users?limit=100')
+        .flush({ data: [me, { ...guest, status: 'active' }], hasMore: false });
+      http.expectOne('/v1/outbox').flush({ title: 'Not found' }, { status: 404, statusText: 'Not Found' });
+      await settle();
+      expect(await (await root.getHarness(MatSnackBarHarness)).getMessage()).toContain('Already accepted');
+      expect(
+        await loader.getAllHarnesses(
+          MatButtonHarness.with({ selector: '[data-testid="reissue-invitation"]' }),
+        ),
+      ).toHaveLength(0);
+    });
   });
 });

@@ -97,10 +97,47 @@ export class UsersPage {
       .subscribe((result) => this.invited(result.user, result.invitation));
   }
 
+  /** Users whose new invitation link is being made (the button waits for the answer). */
+  protected readonly reissuing = signal<ReadonlySet<string>>(new Set());
+
+  /**
+   * A new one-time link for someone who has not accepted yet, after confirmation: the earlier link
+   * stops working, so the admin should know before the person finds it dead.
+   */
   protected reissue(user: ConsoleUser): void {
-    this.users.reissueInvitation(user.id).subscribe({
-      next: (invitation) => this.invited(user, invitation),
-      error: (error: unknown) => this.snackBar.open(errorMessage(error), 'Dismiss', { duration: 10000 }),
+    const data: ConfirmDialogData = {
+      title: `Send ${user.email} a new invitation?`,
+      message:
+        'They get a new one-time link to set their password. The link sent before stops working, so an e-mail they already have is of no use.',
+      confirmLabel: 'Send new link',
+    };
+    this.dialog
+      .open(ConfirmDialog, { data, maxWidth: '94vw' })
+      .afterClosed()
+      .pipe(filter((confirmed) => confirmed === true))
+      .subscribe(() => {
+        this.setReissuing(user.id, true);
+        this.users.reissueInvitation(user.id).subscribe({
+          next: (result) => {
+            this.setReissuing(user.id, false);
+            this.invited(result.user, result.invitation, 'A new invitation');
+          },
+          error: (error: unknown) => {
+            this.setReissuing(user.id, false);
+            this.snackBar.open(errorMessage(error), 'Dismiss', { duration: 10000 });
+            // A 409 means they accepted or were disabled meanwhile: show what the server holds now.
+            this.reload();
+          },
+        });
+      });
+  }
+
+  private setReissuing(id: string, busy: boolean): void {
+    this.reissuing.update((ids) => {
+      const next = new Set(ids);
+      if (busy) next.add(id);
+      else next.delete(id);
+      return next;
     });
   }
 
@@ -108,12 +145,12 @@ export class UsersPage {
     if (this.clipboard.copy(url)) this.snackBar.open('Link copied.', undefined, { duration: 2500 });
   }
 
-  private invited(user: ConsoleUser, invitation: InvitationResult['invitation']): void {
+  private invited(user: ConsoleUser, invitation: InvitationResult['invitation'], what = 'Invitation'): void {
     this.replace(user, true);
     // When the mail could not go out, the admin hands the link over another way.
     this.unsentLink.set(invitation.emailSent ? null : { email: user.email, url: invitation.url });
     const text = invitation.emailSent
-      ? `Invitation sent to ${user.email}.`
+      ? `${what} sent to ${user.email}, valid until ${formatDateTime(invitation.expiresAt)}.`
       : `The e-mail to ${user.email} could not be sent; copy the link below.`;
     this.snackBar.open(text, undefined, { duration: 5000 });
     this.outboxResource.reload();
