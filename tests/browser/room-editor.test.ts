@@ -182,3 +182,34 @@ it('edits the demo room, keyboard only, and fits a phone in the dark scheme', as
     await screenshot(page, 'phone-dark-room-editor-plan-moved');
   });
 });
+
+it('reaches the plan with Tab alone on a phone and moves a loudspeaker with the arrow keys', async () => {
+  await withBrowser('light', async (page) => {
+    await page.setViewportSize(PHONE);
+    await openPage(page, service.origin, '/rooms', 'Rooms');
+    await page.getByRole('link', { name: /Stage 3/ }).click();
+    await page.getByTestId('edit-room').click();
+    await page.getByRole('heading', { level: 1, name: 'Edit Stage 3' }).waitFor();
+    // From the notes, the last field before the plan, Tab reaches the first loudspeaker's mark.
+    await editor(page).locator('textarea[formcontrolname="notes"]').focus();
+    await page.keyboard.press('Tab');
+    const focused = (await page.evaluate('document.activeElement?.getAttribute("aria-label")')) as string;
+    expect(focused).toBe('M+030');
+    const row = editor(page).getByTestId('speaker-M+030');
+    const y = Number(await row.getByTestId('coord-y').inputValue());
+    await page.keyboard.press('Shift+ArrowDown');
+    await page.keyboard.press('Shift+ArrowDown');
+    await page.keyboard.press('ArrowDown');
+    expect(Number(await row.getByTestId('coord-y').inputValue())).toBeCloseTo(y + 0.07, 6);
+    await page
+      .getByTestId('plan-announcement')
+      .getByText(/^M\+030: azimuth /)
+      .waitFor();
+    // The next Tab goes to the next mark, not into the page behind it.
+    await page.keyboard.press('Tab');
+    expect(await page.evaluate('document.activeElement?.getAttribute("aria-label")')).toBe('M-030');
+    expect(await contrastProblems(page)).toEqual([]);
+    expect(await horizontalOverflow(page)).toEqual([]);
+    await screenshot(page, 'phone-room-editor-plan-keyboard');
+  });
+});

@@ -290,4 +290,13 @@ describe('ChannelEditor', () => {
       ]);
     });
   });
+
+  it('names an EQ band at or above Nyquist of the tuning’s rate on its frequency, and draws nothing', async () => {
+    fixture.componentInstance.sampleRateHz.set(44100);
+    await settle();
+    await (await input('band-frequencyHz')).setValue('23000');
+    expect((await (await field('band-frequencyHz')).getTextErrors()).join(' ')).toContain('below 22050 Hz');
+    expect(fixture.nativeElement.querySelector('[data-testid="channel-response"]')).toBeNull();
+    expect(await (await saveButton()).isDisabled()).toBe(true);
+  });
 });

@@ -1,7 +1,11 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { inlineMarkdown } from '../../format/inline-markdown';
 
-/** Text from the API description with its inline markup shown as elements, never as raw HTML. */
+/**
+ * Text from the API description with its inline markup shown as elements, never as raw HTML. A plain run
+ * sits in an ng-container so the template's own line breaks do not become spaces around it ("`x`." must
+ * not read "x .").
+ */
 @Component({
   selector: 'iso-rich-text',
   template: `@for (run of runs(); track $index) {
@@ -19,7 +23,7 @@ import { inlineMarkdown } from '../../format/inline-markdown';
         <a [href]="run.href">{{ run.text }}</a>
       }
       @default {
-        {{ run.text }}
+        <ng-container>{{ run.text }}</ng-container>
       }
     }
   }`,
