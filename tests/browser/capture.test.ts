@@ -8,6 +8,7 @@ import { webAudioRender } from '../reference/web-audio';
 import {
   type ConsoleBrowser,
   PHONE,
+  SCREENSHOT_DIR,
   contrastProblems,
   horizontalOverflow,
   launchBrowser,
@@ -137,6 +138,9 @@ it('explains what the browser needs, meters the input and measures one channel w
   await page.getByTestId('sweep-length').press('Tab');
   await page.getByTestId('sweep-tail').fill('7');
   await page.getByTestId('sweep-tail').press('Tab');
+  // Decay plots are asked for with the take (the recording is not kept).
+  await page.getByTestId('decay-request').getByText('Waterfall').click();
+  await page.getByTestId('decay-slices-count').fill('24');
   await screenshot(page, 'capture-setup');
 
   const row = page.getByTestId('capture-channels').locator('tr[data-channel="M+030"]');
@@ -181,7 +185,7 @@ it('explains what the browser needs, meters the input and measures one channel w
   expect(levelAt(analysis.frequencyResponse, 1000) - flat).toBeLessThan(6.6);
 
   await row.getByText('Measured').waitFor();
-  const shown = (await page.getByTestId('capture-from-reference').textContent())?.trim();
+  const shown = (await page.getByTestId('capture-facts').getByTestId('from-reference').textContent())?.trim();
   expect(shown).toBe(`${analysis.timing.arrivalFromReferenceMs.toFixed(2)}\u00a0ms`);
   expect(Math.abs(Number.parseFloat(shown ?? '') - (DELAY_SAMPLES / RATE_HZ) * 1000)).toBeLessThan(0.03);
   expect(await page.getByTestId('capture-progress').textContent()).toMatch(/1 of 12 measured/);
@@ -195,9 +199,17 @@ it('explains what the browser needs, meters the input and measures one channel w
     expect(stored).toMatchObject({ channel: 'M+030', kind: 'impulseResponse' });
   }
   await page.getByTestId('capture-chart').locator('canvas').waitFor();
+  // The take's waterfall: the slices asked for, drawn as a heat map under the response.
+  expect((analysis as unknown as { waterfall: { timesMs: number[] } }).waterfall.timesMs).toHaveLength(24);
+  const decay = page.getByTestId('capture-decay');
+  await decay.getByTestId('decay-heat-map').waitFor();
+  expect(await decay.locator('svg title').textContent()).toBe(
+    'Cumulative spectral decay (waterfall) of M+030 at MLP, heat map',
+  );
   await page.waitForTimeout(300);
   expect(await contrastProblems(page)).toEqual([]);
   await screenshot(page, 'capture-measured');
+  await decay.screenshot({ path: path.join(SCREENSHOT_DIR, 'capture-decay.png') });
   // Redo is offered for the measured channel.
   await row.getByRole('button', { name: 'Redo M+030' }).waitFor();
 });

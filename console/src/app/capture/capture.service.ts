@@ -63,6 +63,7 @@ export class CaptureService {
     wav: Blob,
     sweep: SweepSettings,
     referenceChannel: number | null,
+    decayFields: Array<[string, string]> = [],
   ): Observable<TakeResult> {
     const form = new FormData();
     form.append('channel', channel);
@@ -71,13 +72,16 @@ export class CaptureService {
     form.append('fileChannel', '0');
     if (referenceChannel !== null) form.append('referenceFileChannel', String(referenceChannel));
     sweepFields(form, sweep);
+    for (const [field, value] of decayFields) form.append(field, value);
     form.append('name', `${channel} swept from the browser`);
     form.append('file', wav, `${channel}-sweep.wav`);
     return this.http.post<Measurement>(`/v1/rooms/${encodeURIComponent(roomId)}/measurements`, form).pipe(
       map((stored) => ({ stored, analysis: stored.result ?? {} })),
       catchError((error: unknown) =>
         refusesSweepUploads(error)
-          ? this.analyse(wav, sweep, referenceChannel).pipe(map((analysis) => ({ stored: null, analysis })))
+          ? this.analyse(wav, sweep, referenceChannel, decayFields).pipe(
+              map((analysis) => ({ stored: null, analysis })),
+            )
           : throwError(() => error),
       ),
     );
@@ -88,11 +92,13 @@ export class CaptureService {
     wav: Blob,
     sweep: SweepSettings,
     referenceChannel: number | null,
+    decayFields: Array<[string, string]> = [],
   ): Observable<Record<string, unknown>> {
     const form = new FormData();
     form.append('channel', '0');
     if (referenceChannel !== null) form.append('referenceChannel', String(referenceChannel));
     sweepFields(form, sweep);
+    for (const [field, value] of decayFields) form.append(field, value);
     form.append('file', wav, 'take.wav');
     return this.http.post<Record<string, unknown>>('/v1/analysis/sweep', form);
   }

@@ -26,6 +26,14 @@ import { RoomsService } from '../../rooms/rooms.service';
 import { responseChart } from '../../rooms/room-measurements/measurement-view';
 import type { ImpulseResponseAnalysis } from '../../rooms/room-measurements/measurement.model';
 import { ChartView } from '../../ui/chart/chart';
+import { DecayPlotView } from '../../ui/decay-plot/decay-plot';
+import { DecayRequestControl } from '../../ui/decay-plot/decay-request';
+import {
+  DEFAULT_DECAY_REQUEST,
+  decayFormFields,
+  decayRequestProblems,
+} from '../../ui/decay-plot/decay-scale';
+import { ImpulseResponseFacts } from '../../ui/ir-facts/ir-facts';
 import { ConfirmDialog, ConfirmDialogData } from '../../ui/confirm-dialog/confirm-dialog';
 import { AudioCapture, inputRefusal } from '../audio-capture';
 import { CaptureService, SweepSettings } from '../capture.service';
@@ -67,6 +75,9 @@ const METER_FLOOR_DB = -90;
   selector: 'iso-capture-page',
   imports: [
     ChartView,
+    DecayPlotView,
+    DecayRequestControl,
+    ImpulseResponseFacts,
     MatButtonModule,
     MatCheckboxModule,
     MatFormFieldModule,
@@ -125,6 +136,7 @@ export class CapturePage {
   protected readonly durationS = signal(5);
   protected readonly tailS = signal(2);
   protected readonly micPosition = signal('MLP');
+  protected readonly decayRequest = signal({ ...DEFAULT_DECAY_REQUEST });
 
   protected readonly rows = signal<CaptureRow[]>([]);
   protected readonly running = signal(false);
@@ -151,6 +163,8 @@ export class CapturePage {
     const tail = this.tailS();
     if (!Number.isFinite(tail) || tail < 0.5 || tail > 10) return 'Give a decay time from 0.5 to 10 s.';
     if (!this.micPosition().trim()) return 'Name the microphone position (e.g. MLP).';
+    const decay = decayRequestProblems(this.decayRequest());
+    if (decay.slices || decay.bins) return `Decay plots: ${decay.slices ?? decay.bins}`;
     if (this.sampleRateHz() < 44100)
       return `The browser's audio runs at ${this.sampleRateHz()} Hz; measuring needs 44.1 kHz or more. Set the interface to 48 kHz.`;
     return null;
@@ -329,6 +343,7 @@ export class CapturePage {
               file,
               sweep,
               loopback !== null ? 1 : null,
+              decayFormFields(this.decayRequest()),
             ),
           );
           this.updateRow(target.channel, {

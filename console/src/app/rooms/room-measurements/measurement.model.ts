@@ -1,3 +1,5 @@
+import type { DecayPlotData } from '../../ui/decay-plot/decay-scale';
+
 /** The kinds of stored measurement the API knows. */
 export type MeasurementKind = 'impulseResponse' | 'frequencyResponse' | 'spl';
 
@@ -63,6 +65,8 @@ export interface ImpulseResponseAnalysis {
     modes: RoomMode[];
   };
   warnings: Array<{ code: string; message: string }>;
+  waterfall?: DecayPlotData;
+  spectrogram?: DecayPlotData;
 }
 
 /** A stored measurement as the API returns it; lists leave out `result`. */
@@ -99,6 +103,8 @@ export interface UploadOptions {
   /** 0-based channel holding the loopback of the test signal (timing reference). */
   referenceFileChannel?: number;
   smoothingOctaves?: number;
+  /** Multipart fields asking for decay plots (`decayFormFields`). */
+  decayFields?: Array<[string, string]>;
   name?: string;
   notes?: string;
 }

@@ -64,6 +64,7 @@ export class MeasurementsService {
       form.append('referenceFileChannel', String(options.referenceFileChannel));
     if (options.smoothingOctaves !== undefined)
       form.append('smoothingOctaves', String(options.smoothingOctaves));
+    for (const [field, value] of options.decayFields ?? []) form.append(field, value);
     if (options.name) form.append('name', options.name);
     if (options.notes) form.append('notes', options.notes);
     form.append('file', file, file.name ?? 'recording.wav');

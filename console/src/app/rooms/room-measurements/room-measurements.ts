@@ -17,6 +17,14 @@ import { formatQuantity } from '../../format/format';
 import { errorMessage, toProblem } from '../../problem/http-problem';
 import { ReadableProblem } from '../../problem/problem-message';
 import { ChartView } from '../../ui/chart/chart';
+import { DecayPlotView } from '../../ui/decay-plot/decay-plot';
+import { DecayRequestControl } from '../../ui/decay-plot/decay-request';
+import {
+  DEFAULT_DECAY_REQUEST,
+  decayFormFields,
+  decayRequestProblems,
+} from '../../ui/decay-plot/decay-scale';
+import { ImpulseResponseFacts } from '../../ui/ir-facts/ir-facts';
 import { formatFrequency } from '../../ui/chart/frequency-ticks';
 import { ConfirmDialog, ConfirmDialogData } from '../../ui/confirm-dialog/confirm-dialog';
 import { Room } from '../room.model';
@@ -79,6 +87,9 @@ function rememberKind(roomId: string, channel: string, kind: ResponseKind): void
   selector: 'iso-room-measurements',
   imports: [
     ChartView,
+    DecayPlotView,
+    DecayRequestControl,
+    ImpulseResponseFacts,
     MatButtonModule,
     MatButtonToggleModule,
     MatCheckboxModule,
@@ -307,6 +318,7 @@ export class RoomMeasurements {
   protected readonly referenceFileChannel = signal<number | null>(null);
   protected readonly smoothingOctaves = signal(DEFAULT_SMOOTHING_OCTAVES);
   protected readonly smoothingChoices = SMOOTHING_CHOICES;
+  protected readonly decayRequest = signal({ ...DEFAULT_DECAY_REQUEST });
   protected readonly fileChannelNumbers = computed(() =>
     Array.from({ length: this.fileFacts()?.channelCount ?? 0 }, (_, i) => i),
   );
@@ -369,12 +381,14 @@ export class RoomMeasurements {
     this.uploadProblem.set(null);
     const file = this.file();
     if (this.draftProblems().length || !file) return;
+    if (Object.keys(decayRequestProblems(this.decayRequest())).length) return;
     this.uploading.set(true);
     const facts = this.fileFacts();
     const multichannel = (facts?.channelCount ?? 1) > 1;
     const options = facts
       ? {
           smoothingOctaves: this.smoothingOctaves(),
+          decayFields: decayFormFields(this.decayRequest()),
           ...(multichannel && { fileChannel: this.fileChannel() ?? 0 }),
           ...(multichannel &&
             this.referenceFileChannel() !== null && {
