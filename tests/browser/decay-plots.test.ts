@@ -162,9 +162,18 @@ it('asks for decay plots with an upload and draws the heat map with a dB scale, 
   expect(await contrastProblems(page)).toEqual([]);
   await partShot(page, 'measurement-decay', 'decay-slices-light');
 
+  // A click returns once its event is dispatched; the drawing changes at the next render, so each
+  // step waits for what it changed before the next click.
   await decay.getByTestId('decay-kind').getByText('Spectrogram').click();
+  await svg
+    .locator('title', { hasText: /^Spectrogram of M\+135 at MLP, stacked slices/ })
+    .waitFor({ state: 'attached' });
   await decay.getByTestId('decay-drawing').getByText('Heat map').click();
-  expect(await svg.locator('title').textContent()).toMatch(/^Spectrogram of M\+135 at MLP, heat map/);
+  await decay.getByTestId('decay-heat-map').waitFor();
+  await svg
+    .locator('title', { hasText: /^Spectrogram of M\+135 at MLP, heat map/ })
+    .waitFor({ state: 'attached' });
+  expect(await svg.getAttribute('data-drawing')).toBe('heatMap');
   await page.waitForTimeout(200);
   await partShot(page, 'measurement-decay', 'decay-spectrogram-light');
   await screenshot(page, 'decay-room-measurements');
