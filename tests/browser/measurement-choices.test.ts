@@ -8,6 +8,7 @@ import {
   screenshot,
 } from './support/browser';
 import { signIn } from './support/console-pages';
+import { eventually } from './support/eventually';
 import { decayingBurst, pcm24Wav, seededNoise } from './support/synthetic-wav';
 import { type RunningService, startService } from './support/service';
 
@@ -37,20 +38,6 @@ function twoChannelWav(): Buffer {
   });
   const loopback = speaker.map((_, i) => (i === LOOPBACK_ONSET ? 0.8 : 0) + 1e-4 * noise());
   return pcm24Wav([loopback, speaker], SAMPLE_RATE_HZ);
-}
-
-async function eventually<T>(read: () => Promise<T>, check: (value: T) => void): Promise<void> {
-  const deadline = Date.now() + 15_000;
-  for (;;) {
-    const value = await read();
-    try {
-      check(value);
-      return;
-    } catch (error) {
-      if (Date.now() > deadline) throw error;
-    }
-    await new Promise((resolve) => setTimeout(resolve, 100));
-  }
 }
 
 /** Opens a select from the keyboard: a long floating label covers the trigger's middle, where a click lands. */

@@ -10,6 +10,7 @@ import {
   screenshot,
 } from './support/browser';
 import { signIn } from './support/console-pages';
+import { eventually } from './support/eventually';
 import { decayingBurst, pcm24Wav, seededNoise } from './support/synthetic-wav';
 import { type RunningService, startService } from './support/service';
 
@@ -57,20 +58,6 @@ async function partShot(page: Page, testId: string, name: string): Promise<void>
   await page.waitForTimeout(150);
   await page.getByTestId(testId).screenshot({ path: path.join(SCREENSHOT_DIR, `${name}.png`) });
   await page.setViewportSize(viewport);
-}
-
-async function eventually<T>(read: () => Promise<T>, check: (value: T) => void): Promise<void> {
-  const deadline = Date.now() + 10_000;
-  for (;;) {
-    const value = await read();
-    try {
-      check(value);
-      return;
-    } catch (error) {
-      if (Date.now() > deadline) throw error;
-    }
-    await new Promise((resolve) => setTimeout(resolve, 100));
-  }
 }
 
 beforeAll(async () => {
