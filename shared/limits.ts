@@ -45,6 +45,10 @@ export const MAX_CHANNELS = 64;
 export const MAX_EQ_BANDS = 16;
 /** Highest frequency a filter or a response point may name, in hertz (Nyquist of 384 kHz). */
 export const MAX_FREQUENCY_HZ = 192000;
+/** A room's width, length and height in the geometry and the stored rooms, metres. */
+const ROOM_EXTENT_M = { maximum: 100, exclusiveMinimum: 0 };
+/** Inside dimensions of a room whose modes are computed, metres. */
+const ROOM_SIDE_RANGE_M = { minimum: 0.5, maximum: 200 };
 /** Air temperature range, °C. */
 const TEMPERATURE_RANGE_C = { minimum: -40, maximum: 60 };
 /**
@@ -123,7 +127,7 @@ export const LIMITS = {
   frequencyMinHz: { minimum: 1, maximum: MAX_FREQUENCY_HZ },
   headroomDb: { minimum: 0, maximum: 100 },
   headroomWarningDb: { minimum: 0, maximum: 60, default: 12 },
-  heightM: { maximum: 100, exclusiveMinimum: 0 },
+  heightM: { ...ROOM_EXTENT_M },
   'ImpulseResponseUpload.channel': { minimum: 0, maximum: 127 },
   'ImpulseResponseUpload.temperatureC': { ...TEMPERATURE_RANGE_C, default: 20 },
   'inviteUser.email': { maxLength: 254 },
@@ -132,7 +136,7 @@ export const LIMITS = {
   KeyRateLimit: { minimum: 1, maximum: 1000000 },
   layout: { minLength: 1, maxLength: LABEL_MAX_LENGTH },
   leftVersion: { minimum: 1 },
-  lengthM: { maximum: 100, exclusiveMinimum: 0 },
+  lengthM: { ...ROOM_EXTENT_M },
   levelAt1mDb: { minimum: -150, maximum: 150 },
   limit: { minimum: 1, maximum: 100, default: 20 },
   'Limits.eqMaxBoostDb': { minimum: 0, maximum: 24 },
@@ -260,13 +264,13 @@ export const LIMITS = {
   'RoomPlanRequest.notes': { maxLength: 4000 },
   'RoomCreate.name': { minLength: 1, maxLength: NAME_MAX_LENGTH },
   'RoomCreate.notes': { maxLength: 4000 },
-  roomHeightM: { minimum: 0.5, maximum: 200 },
-  roomLengthM: { minimum: 0.5, maximum: 200 },
+  roomHeightM: { ...ROOM_SIDE_RANGE_M },
+  roomLengthM: { ...ROOM_SIDE_RANGE_M },
   'RoomLoudspeaker.name': { maxLength: NAME_MAX_LENGTH },
   RoomLoudspeakers: { minItems: 1, maxItems: MAX_CHANNELS },
   'RoomUpdate.name': { minLength: 1, maxLength: NAME_MAX_LENGTH },
   'RoomUpdate.notes': { maxLength: 4000 },
-  roomWidthM: { minimum: 0.5, maximum: 200 },
+  roomWidthM: { ...ROOM_SIDE_RANGE_M },
   route: { minLength: 1, maxLength: NAME_MAX_LENGTH },
   sampleRateHz: { ...SAMPLE_RATE_RANGE_HZ },
   SampleRateHz: { ...SAMPLE_RATE_RANGE_HZ, default: DEFAULT_SAMPLE_RATE_HZ },
@@ -305,7 +309,7 @@ export const LIMITS = {
   'TestSignalRequest.fadeOutS': { minimum: 0, maximum: 5 },
   'TestSignalRequest.gapS': { minimum: 0.5, maximum: 30 },
   'TestSignalRequest.levelDbfs': { minimum: -80, maximum: 0 },
-  'TestSignalRequest.sampleRateHz': { minimum: 44100, maximum: 192000, default: 48000 },
+  'TestSignalRequest.sampleRateHz': { minimum: 44100, maximum: 192000, default: DEFAULT_SAMPLE_RATE_HZ },
   'TestSignalRequest.seed': { minimum: 0, maximum: 2147483647 },
   'TestSignalRequest.silenceAfterS': { minimum: 0, maximum: 30 },
   'TestSignalRequest.startHz': { minimum: 1, maximum: 20000 },
@@ -324,7 +328,7 @@ export const LIMITS = {
   'TuningUpdate.notes': { maxLength: 4000 },
   version: { minimum: 1 },
   volumeM3: { minimum: 1, maximum: 1000000 },
-  widthM: { maximum: 100, exclusiveMinimum: 0 },
+  widthM: { ...ROOM_EXTENT_M },
   x: { minimum: -1000, maximum: 1000 },
   y: { minimum: -1000, maximum: 1000 },
   z: { minimum: -1000, maximum: 1000 },

@@ -1,5 +1,6 @@
 import { cumulativeSpectralDecay, spectrogram, type DecayPlot, type DecayPlotOptions } from './decay-plots';
 import { requireInRange } from '../errors';
+import { SAMPLE_RATE_MAX_HZ, SAMPLE_RATE_MIN_HZ } from '../limits';
 import { logFrequencyGrid } from '../dsp/grid';
 import { sosfilt } from '../dsp/sosfilt';
 import { designBandPass } from './band-filter';
@@ -98,7 +99,7 @@ const DEFAULT_MODES_UP_TO_HZ = 300;
  * per octave band, and — when the room is given — its modes and Schroeder frequency.
  *
  * @param samples the impulse response, full scale ±1 (at least 10 ms).
- * @param sampleRateHz sample rate in hertz (8 kHz..384 kHz).
+ * @param sampleRateHz sample rate in hertz (SAMPLE_RATE_MIN_HZ..SAMPLE_RATE_MAX_HZ).
  * @throws SignalProblemError `silent` when the peak is below −120 dBFS, `tooShort` under 10 ms.
  */
 export function analyzeImpulseResponse(
@@ -106,7 +107,12 @@ export function analyzeImpulseResponse(
   sampleRateHz: number,
   options: ImpulseResponseAnalysisOptions = {},
 ): ImpulseResponseAnalysis {
-  requireInRange(sampleRateHz, { min: 8000, max: 384000, unit: 'Hz' }, 'sampleRateHz', '/sampleRateHz');
+  requireInRange(
+    sampleRateHz,
+    { min: SAMPLE_RATE_MIN_HZ, max: SAMPLE_RATE_MAX_HZ, unit: 'Hz' },
+    'sampleRateHz',
+    '/sampleRateHz',
+  );
   const smoothingOctaves = requireInRange(
     options.smoothingOctaves ?? DEFAULT_SMOOTHING_OCTAVES,
     { min: MIN_SMOOTHING_OCTAVES - 1e-12, max: MAX_SMOOTHING_OCTAVES },

@@ -1,4 +1,5 @@
 import { CalculationInputError, requireInRange } from '../errors';
+import { LIMITS } from '../limits';
 
 export interface RoomDimensions {
   /** Along x (left to right seen from the listening position), metres. */
@@ -30,10 +31,17 @@ export interface RoomModesResult {
 
 /** Highest frequency a mode list may reach: the Schroeder frequency of a 0.5 m cube with T60 = 20 s is 25.3 kHz. */
 export const MAX_MODE_FREQUENCY_HZ = 30000;
+/** The contract's room sides (`roomWidthM`, `roomLengthM`, `roomHeightM` share one range). */
+const ROOM_SIDE_M = LIMITS.roomWidthM;
 
 function requireDimensions(room: RoomDimensions): void {
   for (const key of ['widthM', 'lengthM', 'heightM'] as const) {
-    requireInRange(room[key], { min: 0.5, max: 200, unit: 'm' }, key, `/${key}`);
+    requireInRange(
+      room[key],
+      { min: ROOM_SIDE_M.minimum, max: ROOM_SIDE_M.maximum, unit: 'm' },
+      key,
+      `/${key}`,
+    );
   }
 }
 
@@ -42,8 +50,8 @@ function requireDimensions(room: RoomDimensions): void {
  * `f = (c/2)·sqrt((nx/Lx)² + (ny/Ly)² + (nz/Lz)²)`; one non-zero index is an axial mode, two tangential,
  * three oblique (Kuttruff, *Room Acoustics*; as in the pyrato library [lib]).
  *
- * @param room inside dimensions in metres (0.5..200 m each).
- * @param speedOfSoundMps speed of sound, m/s (300..400).
+ * @param room inside dimensions in metres (each within the contract's `roomWidthM`).
+ * @param speedOfSoundMps speed of sound, m/s (within the contract's `speedOfSoundMps`).
  * @param maxFrequencyHz highest mode to list, hertz (above 0, at most 30 kHz; the number of candidates
  *   grows with (maxFrequencyHz)³·volume, which the Schroeder frequency keeps small: see roomSummary).
  * @param maxModes most modes to return, lowest first (1..5000).
@@ -56,7 +64,12 @@ export function roomModes(
   maxModes = 500,
 ): RoomModesResult {
   requireDimensions(room);
-  requireInRange(speedOfSoundMps, { min: 300, max: 400, unit: 'm/s' }, 'speedOfSoundMps', '/speedOfSoundMps');
+  requireInRange(
+    speedOfSoundMps,
+    { min: LIMITS.speedOfSoundMps.minimum, max: LIMITS.speedOfSoundMps.maximum, unit: 'm/s' },
+    'speedOfSoundMps',
+    '/speedOfSoundMps',
+  );
   requireInRange(
     maxFrequencyHz,
     { min: 0, exclusiveMin: true, max: MAX_MODE_FREQUENCY_HZ, unit: 'Hz' },

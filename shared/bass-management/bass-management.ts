@@ -7,19 +7,25 @@ import {
   type Polarity,
 } from '../filters/crossover';
 import type { Sos } from '../dsp/sos';
+import { LIMITS } from '../limits';
 import type { Caution, CalculationWarning } from '../notices';
 import { DEFAULT_SAMPLE_RATE_HZ } from '../units/sample-rate';
 import { presentDb, presentHz } from '../present';
 
 /** Common practice: Linkwitz-Riley 4th order (24 dB/octave) at 80 Hz on both sides. */
-export const DEFAULT_BASS_CROSSOVER: CrossoverSpec = { family: 'linkwitzRiley', order: 4, frequencyHz: 80 };
+export const DEFAULT_BASS_CROSSOVER: CrossoverSpec = {
+  family: 'linkwitzRiley',
+  order: LIMITS.crossoverOrder.default,
+  frequencyHz: LIMITS.crossoverHz.default,
+};
 /** ITU-R BS.2051-3 Table 1 note 5 / BS.775: LFE is recorded 10 dB low and replayed +10 dB in band. */
-export const DEFAULT_LFE_GAIN_DB = 10;
+export const DEFAULT_LFE_GAIN_DB = LIMITS['BassManagementRequest.lfeGainDb'].default;
 /** Headroom above which a warning is given, in dB (the LFE alone at +10 dB already needs 10 dB). */
-export const DEFAULT_HEADROOM_WARNING_DB = 12;
+export const DEFAULT_HEADROOM_WARNING_DB = LIMITS.headroomWarningDb.default;
 /** Above this crossover frequency a subwoofer becomes easier to locate (common practice). */
 const LOCALISATION_WARNING_HZ = 120;
 const LFE_LABEL = /^LFE\d*$/;
+const LFE_GAIN_DB = LIMITS['BassManagementRequest.lfeGainDb'];
 
 export interface BassManagementChannelInput {
   /** ITU-R BS.2051 label of the channel (`M+030`, `LFE1`), as in stored rooms; unique within the request. */
@@ -103,19 +109,19 @@ export function planBassManagement(input: BassManagementInput): BassManagementPl
   const fs = input.sampleRateHz ?? DEFAULT_SAMPLE_RATE_HZ;
   const lfeGainDb = requireInRange(
     input.lfeGainDb ?? DEFAULT_LFE_GAIN_DB,
-    { min: -40, max: 20, unit: 'dB' },
+    { min: LFE_GAIN_DB.minimum, max: LFE_GAIN_DB.maximum, unit: 'dB' },
     'lfeGainDb',
     '/lfeGainDb',
   );
   const count = requireInteger(
-    input.subwooferCount ?? 1,
-    { min: 1, max: 16 },
+    input.subwooferCount ?? LIMITS.subwooferCount.default,
+    { min: LIMITS.subwooferCount.minimum, max: LIMITS.subwooferCount.maximum },
     'subwooferCount',
     '/subwooferCount',
   );
   const headroomWarningDb = requireInRange(
     input.headroomWarningDb ?? DEFAULT_HEADROOM_WARNING_DB,
-    { min: 0, max: 60, unit: 'dB' },
+    { min: LIMITS.headroomWarningDb.minimum, max: LIMITS.headroomWarningDb.maximum, unit: 'dB' },
     'headroomWarningDb',
     '/headroomWarningDb',
   );

@@ -1,4 +1,4 @@
-import { MAX_RESPONSE_POINTS } from '../limits';
+import { LIMITS, MAX_RESPONSE_POINTS } from '../limits';
 import { OCTAVE_RATIO_G, REFERENCE_FREQUENCY_HZ } from '../analysis/iec-bands';
 import { CalculationInputError, requireInRange, requireInteger } from '../errors';
 
@@ -29,7 +29,12 @@ export function logFrequencyGrid(
 ): number[] {
   requireInRange(fromHz, { min: 0, exclusiveMin: true, unit: 'Hz' }, 'fromHz', '/fromHz');
   requireInRange(toHz, { min: fromHz, unit: 'Hz' }, 'toHz', '/toHz');
-  requireInRange(pointsPerOctave, { min: 1, max: 96 }, 'pointsPerOctave', '/pointsPerOctave');
+  requireInRange(
+    pointsPerOctave,
+    { min: LIMITS.pointsPerOctave.minimum, max: LIMITS.pointsPerOctave.maximum },
+    'pointsPerOctave',
+    '/pointsPerOctave',
+  );
   if (alignment === 'ends') {
     const steps = Math.round(Math.log2(toHz / fromHz) * pointsPerOctave);
     if (steps === 0) return [fromHz];
@@ -89,7 +94,7 @@ export function responseGrid(grid: ResponseGridSpec, sampleRateHz: number): numb
   const toHz = requireInRange(grid.toHz, { min: fromHz, max: nyquist, unit: 'Hz' }, 'toHz', '/toHz');
   const pointsPerOctave = requireInteger(
     grid.pointsPerOctave ?? DEFAULT_POINTS_PER_OCTAVE,
-    { min: 1, max: 96 },
+    { min: LIMITS.pointsPerOctave.minimum, max: LIMITS.pointsPerOctave.maximum },
     'pointsPerOctave',
     '/pointsPerOctave',
   );

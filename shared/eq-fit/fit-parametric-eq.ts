@@ -5,6 +5,7 @@ import { sosMagnitudeDb, unitCircle } from '../dsp/response';
 import type { Sos } from '../dsp/sos';
 import { CalculationInputError, requireInRange, requireInteger } from '../errors';
 import { designBiquad, FILTER_LIMITS } from '../filters/biquad-design';
+import { LIMITS, MAX_FREQUENCY_HZ } from '../limits';
 import { requireSampleRate } from '../units/sample-rate';
 import {
   bandwidthOctaves,
@@ -173,33 +174,39 @@ export interface EqFitResult {
   warnings: EqFitWarning[];
 }
 
+/** Defaults of the fit; those the contract states come from shared/limits.ts. */
 export const EQ_FIT_DEFAULTS = {
-  maxBoostDb: 0,
-  maxCutDb: 12,
+  maxBoostDb: LIMITS.maxBoostDb.default,
+  maxCutDb: LIMITS.maxCutDb.default,
   qMin: 0.5,
   qMax: 10,
-  minGainDb: 0.5,
+  minGainDb: LIMITS.minGainDb.default,
   levelFromHz: 500,
   levelToHz: 2000,
   /** Without a room, the correction stops here [common practice: small rooms' transition region lies near 100–300 Hz]. */
   transitionHz: 200,
   /** Reverberation time assumed when a room volume comes without one, s [common practice for treated control rooms]. */
   reverberationTimeS: 0.3,
-  aboveMaxBands: 2,
-  aboveMaxBoostDb: 2,
-  aboveMaxCutDb: 3,
-  aboveQMax: 1,
+  aboveMaxBands: LIMITS['AboveTransition.maxBands'].default,
+  aboveMaxBoostDb: LIMITS['AboveTransition.maxBoostDb'].default,
+  aboveMaxCutDb: LIMITS['AboveTransition.maxCutDb'].default,
+  aboveQMax: LIMITS['AboveTransition.qMax'].default,
 } as const;
+/** Ranges the fit accepts: the contract's bounds (shared/limits.ts), checked again for callers in the core. */
 export const EQ_FIT_LIMITS = {
-  maxBands: 64,
-  maxBoostDb: 24,
-  maxCutDb: 48,
+  maxBands: LIMITS.maxBands.maximum,
+  maxBoostDb: LIMITS.maxBoostDb.maximum,
+  maxCutDb: LIMITS.maxCutDb.maximum,
+  /**
+   * Larger than the contract's MAX_FIT_POINTS (what one request may send): stored room plans fit responses
+   * averaged from stored measurements, which that bound does not cover, so this is the core's own budget.
+   */
   maxPoints: 16384,
-  maxPositions: 16,
-  minGainMaxDb: 6,
-  aboveMaxBands: 4,
-  aboveQMin: 0.3,
-  aboveQMaxMax: 2,
+  maxPositions: LIMITS['EqFitRequest.positions'].maxItems,
+  minGainMaxDb: LIMITS.minGainDb.maximum,
+  aboveMaxBands: LIMITS['AboveTransition.maxBands'].maximum,
+  aboveQMin: LIMITS['AboveTransition.qMax'].minimum,
+  aboveQMaxMax: LIMITS['AboveTransition.qMax'].maximum,
 } as const;
 
 /** Fit grid density, points per octave (IEC base-ten series, so grids of different ranges line up). */
@@ -1279,13 +1286,13 @@ function levelOf(
   };
   requireInRange(
     reference.fromHz,
-    { min: 1, max: 192000, unit: 'Hz' },
+    { min: 1, max: MAX_FREQUENCY_HZ, unit: 'Hz' },
     'levelReferenceHz.fromHz',
     '/levelReferenceHz/fromHz',
   );
   requireInRange(
     reference.toHz,
-    { min: reference.fromHz, exclusiveMin: true, max: 192000, unit: 'Hz' },
+    { min: reference.fromHz, exclusiveMin: true, max: MAX_FREQUENCY_HZ, unit: 'Hz' },
     'levelReferenceHz.toHz',
     '/levelReferenceHz/toHz',
   );
@@ -1338,14 +1345,14 @@ function transitionOf(input: EqFitInput, warnings: EqFitWarning[]): EqFitResult[
   if (input.room) {
     const volume = requireInRange(
       input.room.volumeM3,
-      { min: 1, max: 1e6, unit: 'm³' },
+      { min: LIMITS.volumeM3.minimum, max: LIMITS.volumeM3.maximum, unit: 'm³' },
       'room.volumeM3',
       '/room/volumeM3',
     );
     const given = input.room.reverberationTimeS;
     const t = requireInRange(
       given ?? EQ_FIT_DEFAULTS.reverberationTimeS,
-      { min: 0.05, max: 20, unit: 's' },
+      { min: LIMITS.reverberationTimeS.minimum, max: LIMITS.reverberationTimeS.maximum, unit: 's' },
       'room.reverberationTimeS',
       '/room/reverberationTimeS',
     );
@@ -1375,11 +1382,11 @@ function fitBand(
 ): { fromHz: number; toHz: number } {
   const fromRequested = input.fromHz ?? Math.max(20, lowest);
   const toRequested = input.toHz ?? transitionHz;
-  requireInRange(fromRequested, { min: 1, max: 192000, unit: 'Hz' }, 'fromHz', '/fromHz');
+  requireInRange(fromRequested, { min: 1, max: MAX_FREQUENCY_HZ, unit: 'Hz' }, 'fromHz', '/fromHz');
   // A transition at or below the low end (a crossover above it) leaves nothing to correct; not an error.
   requireInRange(
     input.toHz ?? Math.max(toRequested, fromRequested + 1),
-    { min: fromRequested, exclusiveMin: true, max: 192000, unit: 'Hz' },
+    { min: fromRequested, exclusiveMin: true, max: MAX_FREQUENCY_HZ, unit: 'Hz' },
     'toHz',
     '/toHz',
   );
@@ -1449,10 +1456,10 @@ function requireSteps(steps: EqFitInput['bandSteps']): BandSteps {
   const step = (value: number | undefined, fallback: number, max: number, name: string) =>
     requireInRange(value ?? fallback, { min: 0, max }, `bandSteps.${name}`, `/bandSteps/${name}`);
   return {
-    frequencyHz: step(steps?.frequencyHz, 0.1, 1000, 'frequencyHz'),
+    frequencyHz: step(steps?.frequencyHz, 0.1, LIMITS['BandSteps.frequencyHz'].maximum, 'frequencyHz'),
     frequencyUnit: steps?.frequencyStepUnit === 'octave' ? 'octave' : 'hz',
-    gainDb: step(steps?.gainDb, 0.01, 6, 'gainDb'),
-    q: step(steps?.q, 0.001, 10, 'q'),
+    gainDb: step(steps?.gainDb, 0.01, LIMITS['BandSteps.gainDb'].maximum, 'gainDb'),
+    q: step(steps?.q, 0.001, LIMITS['BandSteps.q'].maximum, 'q'),
   };
 }
 
@@ -1559,7 +1566,12 @@ function requireMeasured(
     }
   });
   magnitudeDb.forEach((db, i) =>
-    requireInRange(db, { min: -300, max: 300, unit: 'dB' }, 'magnitude', `${field}/magnitudeDb/${i}`),
+    requireInRange(
+      db,
+      { min: LIMITS['magnitudeDb[]'].minimum, max: LIMITS['magnitudeDb[]'].maximum, unit: 'dB' },
+      'magnitude',
+      `${field}/magnitudeDb/${i}`,
+    ),
   );
   return { frequenciesHz, magnitudeDb };
 }
@@ -1587,13 +1599,13 @@ function requireBandRange(
   if (!range) return { min: 0, max: fs / 2 };
   const min = requireInRange(
     range.fromHz,
-    { min: 1, max: 192000, unit: 'Hz' },
+    { min: 1, max: MAX_FREQUENCY_HZ, unit: 'Hz' },
     'bandFrequencyRangeHz.fromHz',
     '/bandFrequencyRangeHz/fromHz',
   );
   const max = requireInRange(
     range.toHz,
-    { min, exclusiveMin: true, max: 192000, unit: 'Hz' },
+    { min, exclusiveMin: true, max: MAX_FREQUENCY_HZ, unit: 'Hz' },
     'bandFrequencyRangeHz.toHz',
     '/bandFrequencyRangeHz/toHz',
   );

@@ -1,4 +1,5 @@
 import { CalculationInputError, requireInRange } from '../errors';
+import { LIMITS } from '../limits';
 
 /**
  * The response a channel should reach, in dB relative to its own level (the fitter matches levels first).
@@ -19,18 +20,22 @@ export interface TargetPoint {
   gainDb: number;
 }
 
+/** Ranges of a target curve's parameters: the contract's bounds (shared/limits.ts), which the core checks too. */
 export const TARGET_LIMITS = {
-  tiltMaxDbPerOctave: 6,
-  pivotMinHz: 10,
-  pivotMaxHz: 20000,
-  liftMaxDb: 20,
-  cornerMinHz: 10,
-  cornerMaxHz: 2000,
-  pointsMin: 2,
-  pointsMax: 256,
-  pointMinHz: 1,
-  pointMaxHz: 192000,
-  pointMaxDb: 40,
+  tiltMinDbPerOctave: LIMITS.dbPerOctave.minimum,
+  tiltMaxDbPerOctave: LIMITS.dbPerOctave.maximum,
+  pivotMinHz: LIMITS.pivotHz.minimum,
+  pivotMaxHz: LIMITS.pivotHz.maximum,
+  liftMinDb: LIMITS['TargetCurve|object.gainDb'].minimum,
+  liftMaxDb: LIMITS['TargetCurve|object.gainDb'].maximum,
+  cornerMinHz: LIMITS.cornerHz.minimum,
+  cornerMaxHz: LIMITS.cornerHz.maximum,
+  pointsMin: LIMITS.TargetPoints.minItems,
+  pointsMax: LIMITS.TargetPoints.maxItems,
+  pointMinHz: LIMITS.frequencyHz.minimum,
+  pointMaxHz: LIMITS.frequencyHz.maximum,
+  pointMinDb: LIMITS['TargetPoint.gainDb'].minimum,
+  pointMaxDb: LIMITS['TargetPoint.gainDb'].maximum,
 } as const;
 
 /**
@@ -44,7 +49,7 @@ export function requireTargetCurve(curve: TargetCurve, field = '/target'): Targe
     case 'tilt':
       requireInRange(
         curve.dbPerOctave,
-        { min: -TARGET_LIMITS.tiltMaxDbPerOctave, max: TARGET_LIMITS.tiltMaxDbPerOctave, unit: 'dB/octave' },
+        { min: TARGET_LIMITS.tiltMinDbPerOctave, max: TARGET_LIMITS.tiltMaxDbPerOctave, unit: 'dB/octave' },
         'dbPerOctave',
         `${field}/dbPerOctave`,
       );
@@ -60,7 +65,7 @@ export function requireTargetCurve(curve: TargetCurve, field = '/target'): Targe
     case 'lowFrequencyLift':
       requireInRange(
         curve.gainDb,
-        { min: -TARGET_LIMITS.liftMaxDb, max: TARGET_LIMITS.liftMaxDb, unit: 'dB' },
+        { min: TARGET_LIMITS.liftMinDb, max: TARGET_LIMITS.liftMaxDb, unit: 'dB' },
         'gainDb',
         `${field}/gainDb`,
       );
@@ -131,7 +136,7 @@ function interpolatePoints(points: readonly TargetPoint[], frequencyHz: number):
   return a.gainDb + t * (b.gainDb - a.gainDb);
 }
 
-/** Checks a list of target points: 2..256 of them, frequencies strictly ascending, levels within ±40 dB. */
+/** Checks a list of target points: count, frequencies and levels within TARGET_LIMITS, frequencies strictly ascending. */
 export function requirePoints(points: readonly TargetPoint[], field: string): readonly TargetPoint[] {
   if (
     !Array.isArray(points) ||
@@ -152,7 +157,7 @@ export function requirePoints(points: readonly TargetPoint[], field: string): re
     );
     requireInRange(
       point.gainDb,
-      { min: -TARGET_LIMITS.pointMaxDb, max: TARGET_LIMITS.pointMaxDb, unit: 'dB' },
+      { min: TARGET_LIMITS.pointMinDb, max: TARGET_LIMITS.pointMaxDb, unit: 'dB' },
       'gainDb',
       `${field}/${i}/gainDb`,
     );

@@ -1,5 +1,6 @@
 import { CalculationInputError, requireInRange, withFieldPrefix } from '../errors';
 import type { Sos } from '../dsp/sos';
+import { LIMITS } from '../limits';
 
 export type FilterType =
   'peaking' | 'lowShelf' | 'highShelf' | 'lowPass' | 'highPass' | 'bandPass' | 'notch' | 'allPass';
@@ -30,17 +31,20 @@ export interface FilterSpec {
   shelfSlope?: number;
 }
 
-/** Ranges accepted by designBiquad (chosen to cover studio EQ and crossovers with margin). */
+/**
+ * Ranges accepted by designBiquad (chosen to cover studio EQ and crossovers with margin), read from the
+ * contract's bounds in shared/limits.ts so that the core and the API refuse the same values.
+ */
 export const FILTER_LIMITS = {
-  frequencyMinHz: 1,
-  gainMinDb: -48,
-  gainMaxDb: 24,
-  qMin: 0.025,
-  qMax: 100,
-  bandwidthMinOctaves: 0.01,
-  bandwidthMaxOctaves: 8,
-  shelfSlopeMin: 0.01,
-  shelfSlopeMax: 1,
+  frequencyMinHz: LIMITS.frequencyHz.minimum,
+  gainMinDb: LIMITS['FilterSpec.gainDb'].minimum,
+  gainMaxDb: LIMITS['FilterSpec.gainDb'].maximum,
+  qMin: LIMITS.q.minimum,
+  qMax: LIMITS.q.maximum,
+  bandwidthMinOctaves: LIMITS.bandwidthOctaves.minimum,
+  bandwidthMaxOctaves: LIMITS.bandwidthOctaves.maximum,
+  shelfSlopeMin: LIMITS.shelfSlope.minimum,
+  shelfSlopeMax: LIMITS.shelfSlope.maximum,
 } as const;
 
 const GAIN_TYPES: ReadonlySet<FilterType> = new Set(['peaking', 'lowShelf', 'highShelf']);
@@ -59,9 +63,9 @@ const SHELF_TYPES: ReadonlySet<FilterType> = new Set(['lowShelf', 'highShelf']);
  * - `1 − cos w0` and `1 + cos w0` are computed as `2 sin²(w0/2)` and `2 cos²(w0/2)` to keep their
  *   precision at low and near-Nyquist frequencies.
  *
- * @param spec the filter; frequencyHz in hertz, 1 Hz ≤ f < sampleRateHz/2; gainDb −48..+24 dB;
- *   q 0.025..100; bandwidthOctaves 0.01..8; shelfSlope 0.01..1 (S = 1 is the steepest monotonic shelf).
- * @param sampleRateHz processor sample rate in hertz (8000..384000; the API's contract checks the range,
+ * @param spec the filter, each value within FILTER_LIMITS; frequencyHz in hertz, below sampleRateHz/2;
+ *   shelfSlope S = 1 is the steepest monotonic shelf.
+ * @param sampleRateHz processor sample rate in hertz (SAMPLE_RATE_MIN_HZ..SAMPLE_RATE_MAX_HZ; the API's contract checks the range,
  *   this function only that the filter lies below Nyquist).
  * @returns the normalised section, tagged with the filter type.
  * @throws CalculationInputError naming the bad field (`/frequencyHz`, `/q`, ...) relative to the spec.

@@ -4,6 +4,7 @@ import { DEFAULT_SAMPLE_RATE_HZ } from '../units/sample-rate';
 import { responseGrid, type ResponseGridSpec } from '../dsp/grid';
 import { cascadeResponse, parallelResponse, type SosResponse } from '../dsp/response';
 import type { Sos } from '../dsp/sos';
+import { LIMITS } from '../limits';
 import { designBiquad, FILTER_LIMITS } from './biquad-design';
 import { presentHz } from '../present';
 
@@ -41,7 +42,12 @@ export interface CrossoverResponse {
  * first-order section). Same pole placement as scipy.signal.butter.
  */
 export function butterworthQs(order: number): number[] {
-  const n = requireInteger(order, { min: 1, max: 8 }, 'order', '/order');
+  const n = requireInteger(
+    order,
+    { min: LIMITS.order.minimum, max: LIMITS.order.maximum },
+    'order',
+    '/order',
+  );
   return Array.from(
     { length: Math.floor(n / 2) },
     (_, i) => 1 / (2 * Math.sin(((2 * (i + 1) - 1) * Math.PI) / (2 * n))),

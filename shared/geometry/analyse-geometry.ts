@@ -1,5 +1,6 @@
 import { CalculationInputError, requireInRange } from '../errors';
 import { requireLayout } from '../layouts';
+import { LIMITS } from '../limits';
 import type { Layout, LayoutChannel } from '../layouts';
 import { angleBetweenDeg, insideAzimuthRange, insideElevationRange, wrapDeg } from './angles';
 import { toListenerPolar, type RoomPoint } from './coordinates';
@@ -71,10 +72,10 @@ export interface GeometryResult {
 }
 
 export const GEOMETRY_LIMITS = {
-  roomMaxM: 100,
+  roomMaxM: LIMITS.widthM.maximum,
   minSpeakerDistanceM: 0.1,
-  maxAngleToleranceDeg: 15,
-  defaultAngleToleranceDeg: 2,
+  maxAngleToleranceDeg: LIMITS.angleToleranceDeg.maximum,
+  defaultAngleToleranceDeg: LIMITS.angleToleranceDeg.default,
   /** Points this far outside a wall (rounding of tape measurements) still count as inside. */
   wallSlackM: 0.001,
 } as const;

@@ -35,7 +35,7 @@ export function checkRoomDefinition(room: RoomDefinition): Layout {
   for (const key of ['widthM', 'lengthM', 'heightM'] as const) {
     requireInRange(
       room.dimensions?.[key],
-      { min: 0, max: 100, exclusiveMin: true, unit: 'm' },
+      { min: 0, max: GEOMETRY_LIMITS.roomMaxM, exclusiveMin: true, unit: 'm' },
       key,
       `/dimensions/${key}`,
     );

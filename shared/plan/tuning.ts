@@ -2,6 +2,7 @@ import { CalculationInputError, requireInRange, withFieldPrefix } from '../error
 import { designBiquads, type FilterSpec } from '../filters/biquad-design';
 import { designCrossover, type CrossoverSpec, type Polarity } from '../filters/crossover';
 import { requireUniqueIds } from '../geometry/analyse-geometry';
+import { LIMITS, MAX_EQ_BANDS } from '../limits';
 
 export type { CrossoverSpec } from '../filters/crossover';
 
@@ -38,14 +39,17 @@ export interface TuningSettings {
   subwoofer: TuningSubwoofer | null;
 }
 
-/** Ranges of stored settings; wide enough for any processor, narrow enough to catch typing errors. */
+/**
+ * Ranges of stored settings; wide enough for any processor, narrow enough to catch typing errors. The
+ * contract's bounds (shared/limits.ts), checked again for callers in the core.
+ */
 export const TUNING_LIMITS = {
-  delayMaxMs: 1000,
-  trimMinDb: -60,
-  trimMaxDb: 24,
-  eqMaxSections: 64,
-  lfeGainMinDb: -20,
-  lfeGainMaxDb: 20,
+  delayMaxMs: LIMITS.delayMs.maximum,
+  trimMinDb: LIMITS.trimDb.minimum,
+  trimMaxDb: LIMITS.trimDb.maximum,
+  eqMaxSections: MAX_EQ_BANDS,
+  lfeGainMinDb: LIMITS['TuningSubwoofer.lfeGainDb'].minimum,
+  lfeGainMaxDb: LIMITS['TuningSubwoofer.lfeGainDb'].maximum,
 } as const;
 
 function checkCrossover(spec: CrossoverSpec, sampleRateHz: number, field: string): void {

@@ -20,6 +20,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { RouterLink } from '@angular/router';
 import { firstValueFrom } from 'rxjs';
+import { DEFAULT_SAMPLE_RATE_HZ, LABEL_MAX_LENGTH, LIMITS } from '../../../../../shared/limits';
 import { formatQuantity } from '../../format/format';
 import { errorMessage } from '../../problem/http-problem';
 import { RoomsService } from '../../rooms/rooms.service';
@@ -64,6 +65,8 @@ const STATUS_WORDS: Record<RowStatus, string> = {
 
 /** The meter's floor: quieter than this reads as silence. */
 const METER_FLOOR_DB = -90;
+/** The sweep level the API accepts with a recording (`SweepRecordingUpload.levelDbfs`). */
+const SWEEP_LEVEL_DBFS = LIMITS['SweepRecordingUpload.levelDbfs'];
 
 /**
  * Measuring a stored room from the browser: the input (microphone, and a loopback for timing), the
@@ -125,7 +128,7 @@ export class CapturePage {
   protected readonly outputId = signal('');
   protected readonly inputChannels = signal(1);
   protected readonly outputChannels = signal(2);
-  protected readonly sampleRateHz = signal(48000);
+  protected readonly sampleRateHz = signal(DEFAULT_SAMPLE_RATE_HZ);
   protected readonly micChannel = signal(0);
   protected readonly loopbackChannel = signal<number | null>(null);
   protected readonly levels = signal<number[]>([]);
@@ -133,6 +136,8 @@ export class CapturePage {
 
   // The sweep.
   protected readonly levelDbfs = signal(-20);
+  protected readonly levelBounds = SWEEP_LEVEL_DBFS;
+  protected readonly micPositionMaxLength = LABEL_MAX_LENGTH;
   protected readonly durationS = signal(5);
   protected readonly tailS = signal(2);
   protected readonly micPosition = signal('MLP');
@@ -156,7 +161,8 @@ export class CapturePage {
     if (this.loopbackChannel() !== null && this.loopbackChannel() === this.micChannel())
       return 'The microphone and the loopback cannot be the same input channel.';
     const level = this.levelDbfs();
-    if (!Number.isFinite(level) || level < -80 || level > 0) return 'Give a sweep level from −80 to 0 dBFS.';
+    if (!Number.isFinite(level) || level < SWEEP_LEVEL_DBFS.minimum || level > SWEEP_LEVEL_DBFS.maximum)
+      return `Give a sweep level from ${String(SWEEP_LEVEL_DBFS.minimum).replace('-', '\u2212')} to ${SWEEP_LEVEL_DBFS.maximum} dBFS.`;
     const duration = this.durationS();
     if (!Number.isFinite(duration) || duration < 0.5 || duration > 30)
       return 'Give a sweep length from 0.5 to 30 s.';

@@ -30,10 +30,13 @@ import { roomGeometry } from '../../../../../shared/geometry/room';
 import { placeLayoutLoudspeakers } from '../../../../../shared/geometry/place-layout';
 import {
   DEFAULT_SAMPLE_RATE_HZ,
+  LABEL_MAX_LENGTH,
+  LIMITS,
   NAME_MAX_LENGTH,
   SAMPLE_RATE_MAX_HZ,
   SAMPLE_RATE_MIN_HZ,
 } from '../../../../../shared/limits';
+import { COMMON_SAMPLE_RATES_HZ } from '../../sample-rates';
 import { notBlank } from '../../tunings/tuning-details-dialog';
 import { formatQuantity } from '../../format/format';
 import { errorMessage, toProblem } from '../../problem/http-problem';
@@ -50,8 +53,18 @@ type SpeakerForm = FormGroup<{
   z: FormControl<number>;
 }>;
 
-const metres = [Validators.required, Validators.min(-1000), Validators.max(1000)];
-const roomSide = [Validators.required, Validators.min(0.5), Validators.max(100)];
+const metres = [Validators.required, Validators.min(LIMITS.x.minimum), Validators.max(LIMITS.x.maximum)];
+// At least the smallest room whose modes are computed, at most the largest stored room.
+const roomSide = [
+  Validators.required,
+  Validators.min(LIMITS.roomWidthM.minimum),
+  Validators.max(LIMITS.widthM.maximum),
+];
+/** A processor limit field: empty (no limit) or within its contract bound. */
+const limitField = (bound: { minimum: number; maximum: number }) => [
+  Validators.min(bound.minimum),
+  Validators.max(bound.maximum),
+];
 
 /**
  * Creates or edits a room: layout, dimensions, listening position, loudspeakers placed at the layout's
@@ -112,7 +125,9 @@ export class RoomEditorPage {
   protected readonly saveProblem = signal<string | null>(null);
   protected readonly layoutLabel = layoutLabel;
   protected readonly formatQuantity = formatQuantity;
-  protected readonly sampleRates = [44100, 48000, 88200, 96000, 176400, 192000];
+  protected readonly nameMaxLength = NAME_MAX_LENGTH;
+  protected readonly notesMaxLength = LIMITS['RoomCreate.notes'].maxLength;
+  protected readonly sampleRates = COMMON_SAMPLE_RATES_HZ;
 
   protected readonly form = this.fb.group({
     name: ['', [Validators.required, notBlank, Validators.maxLength(NAME_MAX_LENGTH)]],
@@ -126,19 +141,19 @@ export class RoomEditorPage {
     placeDistanceM: [2.5, [Validators.required, Validators.min(0.3), Validators.max(50)]],
     loudspeakers: this.fb.array<SpeakerForm>([]),
     limits: this.fb.group({
-      delayMaxMs: this.fb.control<number | null>(null, [Validators.min(0), Validators.max(10000)]),
-      trimMinDb: this.fb.control<number | null>(null, [Validators.min(-100), Validators.max(0)]),
-      trimMaxDb: this.fb.control<number | null>(null, [Validators.min(0), Validators.max(40)]),
-      eqBandsPerChannel: this.fb.control<number | null>(null, [Validators.min(0), Validators.max(64)]),
-      eqMaxBoostDb: this.fb.control<number | null>(null, [Validators.min(0), Validators.max(24)]),
-      eqMaxCutDb: this.fb.control<number | null>(null, [Validators.min(0), Validators.max(48)]),
+      delayMaxMs: this.fb.control<number | null>(null, limitField(LIMITS.delayMaxMs)),
+      trimMinDb: this.fb.control<number | null>(null, limitField(LIMITS.trimMinDb)),
+      trimMaxDb: this.fb.control<number | null>(null, limitField(LIMITS.trimMaxDb)),
+      eqBandsPerChannel: this.fb.control<number | null>(null, limitField(LIMITS.eqBandsPerChannel)),
+      eqMaxBoostDb: this.fb.control<number | null>(null, limitField(LIMITS['Limits.eqMaxBoostDb'])),
+      eqMaxCutDb: this.fb.control<number | null>(null, limitField(LIMITS.eqMaxCutDb)),
     }),
     sampleRateHz: [
       DEFAULT_SAMPLE_RATE_HZ,
       [Validators.required, Validators.min(SAMPLE_RATE_MIN_HZ), Validators.max(SAMPLE_RATE_MAX_HZ)],
     ],
     profileId: this.fb.control<string | null>(null),
-    notes: ['', Validators.maxLength(4000)],
+    notes: ['', Validators.maxLength(LIMITS['RoomCreate.notes'].maxLength)],
   });
 
   private readonly value = toSignal(this.form.valueChanges.pipe(startWith(null)));
@@ -335,8 +350,8 @@ export class RoomEditorPage {
 
   private speakerForm(speaker: { id: string; name: string; x: number; y: number; z: number }): SpeakerForm {
     return this.fb.group({
-      id: [speaker.id, [Validators.required, Validators.maxLength(32)]],
-      name: [speaker.name, Validators.maxLength(120)],
+      id: [speaker.id, [Validators.required, Validators.maxLength(LABEL_MAX_LENGTH)]],
+      name: [speaker.name, Validators.maxLength(LIMITS['RoomLoudspeaker.name'].maxLength)],
       x: [speaker.x, metres],
       y: [speaker.y, metres],
       z: [speaker.z, metres],

@@ -28,7 +28,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { startWith } from 'rxjs';
 import { FILTER_LIMITS } from '../../../../../shared/filters/biquad-design';
-import { MAX_FREQUENCY_HZ } from '../../../../../shared/limits';
+import { LIMITS, MAX_FREQUENCY_HZ, NAME_MAX_LENGTH } from '../../../../../shared/limits';
 import { channelCorrection, channelLimitProblems } from '../../../../../shared/plan/channel-edit';
 import { TUNING_LIMITS } from '../../../../../shared/plan/tuning';
 import { CalculationInputError } from '../../../../../shared/errors';
@@ -102,11 +102,18 @@ export class ChannelEditor {
   readonly dirtyChange = output<boolean>();
 
   protected readonly filterTypes = Object.entries(FILTER_TYPE_LABELS) as Array<[FilterType, string]>;
-  protected readonly bounds = { ...TUNING_LIMITS, ...FILTER_LIMITS, frequencyMaxHz: MAX_FREQUENCY_HZ };
+  protected readonly bounds = {
+    ...TUNING_LIMITS,
+    ...FILTER_LIMITS,
+    frequencyMaxHz: MAX_FREQUENCY_HZ,
+    nameMaxLength: NAME_MAX_LENGTH,
+    orderMin: LIMITS.order.minimum,
+    orderMax: LIMITS.order.maximum,
+  };
   protected readonly formatQuantity = formatQuantity;
 
   protected readonly form = this.fb.group({
-    name: ['', Validators.maxLength(120)],
+    name: ['', Validators.maxLength(NAME_MAX_LENGTH)],
     delayMs: [0, [Validators.required, Validators.min(0), Validators.max(TUNING_LIMITS.delayMaxMs)]],
     trimDb: [
       0,
@@ -115,7 +122,10 @@ export class ChannelEditor {
     polarity: ['normal' as 'normal' | 'inverted'],
     bassManaged: [false],
     highPassFamily: ['none' as 'none' | CrossoverFamily],
-    highPassOrder: [4, [Validators.required, Validators.min(1), Validators.max(8)]],
+    highPassOrder: [
+      4,
+      [Validators.required, Validators.min(LIMITS.order.minimum), Validators.max(LIMITS.order.maximum)],
+    ],
     highPassHz: [80, [Validators.required, Validators.min(1), Validators.max(MAX_FREQUENCY_HZ)]],
     eq: this.fb.array<BandForm>([]),
   });

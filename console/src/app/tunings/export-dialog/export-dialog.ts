@@ -10,6 +10,7 @@ import { MatSnackBar } from '@angular/material/snack-bar';
 import { catchError, of } from 'rxjs';
 import { errorMessage, toProblem } from '../../problem/http-problem';
 import { RoomsService } from '../../rooms/rooms.service';
+import { COMMON_SAMPLE_RATES_HZ } from '../../sample-rates';
 import { downloadBlob, downloadName } from '../download';
 import { exportSummary } from '../export-summary';
 import type { Tuning } from '../tuning.model';
@@ -20,9 +21,6 @@ export interface ExportDialogData {
   /** The room's processor profile, the API's default for an export; null when the room has none. */
   roomProfileId: string | null;
 }
-
-/** Sample rates offered when exporting exact values (no profile): the common studio rates. */
-const COMMON_RATES_HZ = [44100, 48000, 88200, 96000, 176400, 192000];
 
 /**
  * Export for a processor: the profile (the room's by default, any other of the caller's, or exact values)
@@ -250,7 +248,8 @@ export class ExportDialog {
   /** The chosen profile's rates (and the tuning's own, so a mismatch is shown by the API, not hidden). */
   protected readonly rates = computed(() => {
     const chosen = this.profiles().find((p) => p.id === this.profile());
-    const offered = chosen ? chosen.sampleRatesHz : COMMON_RATES_HZ;
+    // Exporting exact values (no profile) offers the common studio rates.
+    const offered = chosen ? chosen.sampleRatesHz : COMMON_SAMPLE_RATES_HZ;
     return [...new Set([this.data.tuning.sampleRateHz, ...offered, this.rateHz()])].sort((a, b) => a - b);
   });
 
