@@ -129,7 +129,7 @@ describe("the core's limit tables restate the contract's bounds", () => {
     ['MAX_FREQUENCY_HZ', MAX_FREQUENCY_HZ, 'frequencyHz', 'maximum'],
   ];
 
-  it.each(restated)("%s equals the contract's %s", (_name, value, key, keyword) => {
+  it.each(restated)("%s (%d) equals the contract's %s %s", (_name, value, key, keyword) => {
     expect({ key, keyword, value }).toEqual({ key, keyword, value: contract(key)[keyword] });
   });
 });
