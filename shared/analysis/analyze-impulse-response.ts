@@ -1,6 +1,6 @@
 import { cumulativeSpectralDecay, spectrogram, type DecayPlot, type DecayPlotOptions } from './decay-plots';
 import { requireInRange } from '../errors';
-import { SAMPLE_RATE_MAX_HZ, SAMPLE_RATE_MIN_HZ } from '../limits';
+import { LIMITS, SAMPLE_RATE_MAX_HZ, SAMPLE_RATE_MIN_HZ } from '../limits';
 import { logFrequencyGrid } from '../dsp/grid';
 import { sosfilt } from '../dsp/sosfilt';
 import { designBandPass } from './band-filter';
@@ -80,7 +80,7 @@ export interface ModesLimit {
 /** Most modes listed: more say nothing a plot of the response does not (a 0.5 m cube with T = 20 s has ~26,000). */
 export const MAX_LISTED_MODES = 500;
 
-export const DEFAULT_SMOOTHING_OCTAVES = 1 / 12;
+export const DEFAULT_SMOOTHING_OCTAVES = LIMITS.smoothingOctaves.default;
 /** Speed of sound in air at 20 °C, `343.2·sqrt((t + 273.15)/293.15)` at t = 20 (ISO 9613-1 form, as in the pyfar library). */
 export const DEFAULT_SPEED_OF_SOUND_MPS = 343.2;
 /** Output grid density of the frequency response: 48 points per octave. */

@@ -1,8 +1,12 @@
 import { CalculationInputError, requireInRange } from '../errors';
+import { LIMITS } from '../limits';
 
-/** Narrowest and widest smoothing windows accepted, in octaves (1/48 to 1/1 octave). */
+/**
+ * Narrowest and widest smoothing windows accepted, in octaves (1/48 to 1/1 octave). The narrowest is
+ * exactly 1/48 here; the contract states it rounded (0.0208), a little wider, so it cannot be read from there.
+ */
 export const MIN_SMOOTHING_OCTAVES = 1 / 48;
-export const MAX_SMOOTHING_OCTAVES = 1;
+export const MAX_SMOOTHING_OCTAVES = LIMITS.smoothingOctaves.maximum;
 
 /**
  * Mean of a quantity over fractional-octave windows `[f·2^(−w/2), f·2^(+w/2)]` around each output

@@ -1,4 +1,5 @@
 import { CalculationInputError } from '../errors';
+import { LIMITS } from '../limits';
 import type { Caution } from '../notices';
 import { pinkNoise, SINE_CREST_DB, type PinkNoiseBand } from './pink-noise';
 import { exponentialSweep, harmonicAdvanceS, sweepLength, sweepRateS, type SweepSpec } from './sweep';
@@ -9,7 +10,7 @@ export type SampleEncoding = 'pcm16' | 'pcm24' | 'float32';
 /** Largest test-signal file, bytes (64 MiB). */
 export const MAX_TEST_SIGNAL_BYTES = 64 * 1024 * 1024;
 /** Default levels: sweeps −12 dBFS sine peak, noise −20 dBFS RMS (the common reference of level calibration). */
-export const DEFAULT_SWEEP_LEVEL_DBFS = -12;
+export const DEFAULT_SWEEP_LEVEL_DBFS = LIMITS['SweepRecordingUpload.levelDbfs'].default;
 export const DEFAULT_NOISE_LEVEL_DBFS = -20;
 /** A canonical WAV header (RIFF, fmt, data) in bytes. */
 const WAV_HEADER_BYTES = 44;
@@ -32,12 +33,15 @@ export interface TestSignalRequest {
   timingReference?: boolean;
 }
 
-/** Defaults of the kind-specific fields (the contract leaves them unset so a field of another kind shows). */
+/**
+ * Defaults of the kind-specific fields (the contract leaves them unset so a field of another kind shows).
+ * The sweep's are the contract's defaults for a stored sweep recording, which describe the same sweep.
+ */
 export const TEST_SIGNAL_DEFAULTS = {
-  startHz: 20,
-  endHz: 20000,
-  fadeInS: 0.05,
-  fadeOutS: 0.01,
+  startHz: LIMITS['SweepRecordingUpload.startHz'].default,
+  endHz: LIMITS['SweepRecordingUpload.endHz'].default,
+  fadeInS: LIMITS['SweepRecordingUpload.fadeInS'].default,
+  fadeOutS: LIMITS['SweepRecordingUpload.fadeOutS'].default,
   silenceAfterS: 2,
   band: 'full' as PinkNoiseBand,
   seed: 1,

@@ -1,13 +1,14 @@
 import { resolveSpeedOfSound } from '../acoustics/speed-of-sound';
 import { requireChannelList } from '../channel-list';
 import { CalculationInputError, requireInRange } from '../errors';
+import { LIMITS } from '../limits';
 import type { CalculationWarning } from '../notices';
 import { parseDistanceM, type DistanceInput } from '../units/distance';
 import { DEFAULT_SAMPLE_RATE_HZ } from '../units/sample-rate';
 import { presentMs } from '../present';
 
 /** Longest measured arrival accepted, in ms (about 340 m of travel). */
-export const ARRIVAL_MAX_MS = 1000;
+export const ARRIVAL_MAX_MS = LIMITS.arrivalMs.maximum;
 /** ITU-R BS.2051-3, Table 1 note 1: loudspeakers should arrive together within 100 µs. */
 export const ALIGNMENT_TOLERANCE_US = 100;
 

@@ -1,12 +1,13 @@
 import { unit, type Unit } from 'mathjs';
 import { CalculationInputError, requireInRange } from '../errors';
+import { LIMITS } from '../limits';
 
 /** A distance as a request gives it: metres as a number, or a string with a length unit. */
 export type DistanceInput = number | string;
 
 /** Longest distance accepted, in metres. */
-export const DISTANCE_MAX_M = 1000;
-const DISTANCE_STRING_MAX_LENGTH = 40;
+export const DISTANCE_MAX_M = LIMITS['Distance|number'].maximum;
+const DISTANCE_STRING_MAX_LENGTH = LIMITS['Distance|string'].maxLength;
 const METRE = unit('m');
 
 /**

@@ -4,6 +4,11 @@ import {
   DEFAULT_HEADROOM_WARNING_DB,
   DEFAULT_LFE_GAIN_DB,
 } from '../../shared/bass-management/bass-management';
+import { DEFAULT_SMOOTHING_OCTAVES } from '../../shared/analysis/analyze-impulse-response';
+import { MAX_SMOOTHING_OCTAVES } from '../../shared/analysis/smoothing';
+import { ARRIVAL_MAX_MS } from '../../shared/delay/align-delays';
+import { DISTANCE_MAX_M } from '../../shared/units/distance';
+import { DEFAULT_SWEEP_LEVEL_DBFS, TEST_SIGNAL_DEFAULTS } from '../../shared/capture/test-signal';
 import { EQ_FIT_DEFAULTS, EQ_FIT_LIMITS } from '../../shared/eq-fit/fit-parametric-eq';
 import { TARGET_LIMITS } from '../../shared/eq-fit/target-curve';
 import { FILTER_LIMITS } from '../../shared/filters/biquad-design';
@@ -123,6 +128,20 @@ describe("the core's limit tables restate the contract's bounds", () => {
     ['DEFAULT_HEADROOM_WARNING_DB', DEFAULT_HEADROOM_WARNING_DB, 'headroomWarningDb', 'default'],
     ['DEFAULT_BASS_CROSSOVER.order', DEFAULT_BASS_CROSSOVER.order, 'crossoverOrder', 'default'],
     ['DEFAULT_BASS_CROSSOVER.frequencyHz', DEFAULT_BASS_CROSSOVER.frequencyHz, 'crossoverHz', 'default'],
+    ['DEFAULT_SWEEP_LEVEL_DBFS', DEFAULT_SWEEP_LEVEL_DBFS, 'SweepRecordingUpload.levelDbfs', 'default'],
+    ['TEST_SIGNAL_DEFAULTS.startHz', TEST_SIGNAL_DEFAULTS.startHz, 'SweepRecordingUpload.startHz', 'default'],
+    ['TEST_SIGNAL_DEFAULTS.endHz', TEST_SIGNAL_DEFAULTS.endHz, 'SweepRecordingUpload.endHz', 'default'],
+    ['TEST_SIGNAL_DEFAULTS.fadeInS', TEST_SIGNAL_DEFAULTS.fadeInS, 'SweepRecordingUpload.fadeInS', 'default'],
+    [
+      'TEST_SIGNAL_DEFAULTS.fadeOutS',
+      TEST_SIGNAL_DEFAULTS.fadeOutS,
+      'SweepRecordingUpload.fadeOutS',
+      'default',
+    ],
+    ['DEFAULT_SMOOTHING_OCTAVES', DEFAULT_SMOOTHING_OCTAVES, 'smoothingOctaves', 'default'],
+    ['MAX_SMOOTHING_OCTAVES', MAX_SMOOTHING_OCTAVES, 'smoothingOctaves', 'maximum'],
+    ['ARRIVAL_MAX_MS', ARRIVAL_MAX_MS, 'arrivalMs', 'maximum'],
+    ['DISTANCE_MAX_M', DISTANCE_MAX_M, 'Distance|number', 'maximum'],
     ['SAMPLE_RATE_MIN_HZ', SAMPLE_RATE_MIN_HZ, 'SampleRateHz', 'minimum'],
     ['SAMPLE_RATE_MAX_HZ', SAMPLE_RATE_MAX_HZ, 'SampleRateHz', 'maximum'],
     ['DEFAULT_SAMPLE_RATE_HZ', DEFAULT_SAMPLE_RATE_HZ, 'SampleRateHz', 'default'],

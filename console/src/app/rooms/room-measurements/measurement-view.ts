@@ -247,7 +247,7 @@ export const SMOOTHING_CHOICES: ReadonlyArray<{ octaves: number; label: string }
   { octaves: 1 / 3, label: '1/3 octave' },
   { octaves: 1, label: '1 octave' },
 ];
-export const DEFAULT_SMOOTHING_OCTAVES = 1 / 12;
+export const DEFAULT_SMOOTHING_OCTAVES = LIMITS.smoothingOctaves.default;
 
 /** What the browser can tell of a chosen WAV before it is sent: its channel count and rate. */
 export interface WavFacts {

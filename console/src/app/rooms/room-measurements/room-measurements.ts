@@ -54,6 +54,7 @@ import { MeasurementsService } from './measurements.service';
 import { ApplyFitChoice, ApplyFitData, ApplyFitDialog } from './apply-fit-dialog';
 import { RoomsService } from '../rooms.service';
 import { TuningsService } from '../../tunings/tunings.service';
+import { LABEL_MAX_LENGTH } from '../../../../../shared/limits';
 
 /** How many of the lowest room modes the table lists. */
 const MODE_TABLE_ROWS = 10;
@@ -215,6 +216,7 @@ export class RoomMeasurements {
   protected readonly fitBands = signal<number | null>(null);
   protected readonly defaultBands = computed(() => defaultBandCount(this.room().limits));
   protected readonly mostBands = computed(() => maxBandCount(this.room().limits));
+  protected readonly micPositionMaxLength = LABEL_MAX_LENGTH;
   private readonly fitChoices = computed((): FitChoices => ({
     fromHz: this.fitFromHz(),
     toHz: this.fitToHz(),

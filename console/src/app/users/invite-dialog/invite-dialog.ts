@@ -8,7 +8,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { UserRole, roleLabel } from '../../auth/roles';
 import { errorMessage } from '../../problem/http-problem';
-import { NAME_MAX_LENGTH } from '../../../../../shared/limits';
+import { LIMITS, NAME_MAX_LENGTH } from '../../../../../shared/limits';
 import { InvitationResult } from '../user.model';
 import { UsersService } from '../users.service';
 
@@ -90,7 +90,10 @@ export class InviteDialog {
   protected readonly busy = signal(false);
   protected readonly error = signal<string | null>(null);
   protected readonly form = inject(NonNullableFormBuilder).group({
-    email: ['', [Validators.required, Validators.email, Validators.maxLength(254)]],
+    email: [
+      '',
+      [Validators.required, Validators.email, Validators.maxLength(LIMITS['inviteUser.email'].maxLength)],
+    ],
     name: ['', Validators.maxLength(NAME_MAX_LENGTH)],
     role: ['developer' as UserRole, Validators.required],
   });
