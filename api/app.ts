@@ -9,8 +9,7 @@ import { fixedSecurityHeaders } from './http/security-headers';
 import { requestId } from './http/request-id';
 import { notFoundHandler, problemHandler } from './http/problem';
 import { presentNumbersInAnswers } from './http/present';
-import { createRateLimiter } from './rate-limit/rate-limiter';
-import { createUserRateLimiter } from './rate-limit/user-ceiling';
+import { createRateLimits } from './rate-limit/rate-limits';
 import { getContract } from './http/validate';
 import { storageProblem } from './db/storage-errors';
 import { docsRouter } from './service/docs.router';
@@ -58,8 +57,10 @@ export function createApp(services: Services): Express {
     chain(
       authenticate(services.keys, services.sessionPrincipal),
       // Counted in this process, or in Redis shared by every instance (services.shared).
-      createRateLimiter(services, { store: services.shared.rateLimitStore('key') }),
-      createUserRateLimiter(services, { store: services.shared.rateLimitStore('user') }),
+      createRateLimits(services, {
+        key: services.shared.rateLimitStore('key'),
+        user: services.shared.rateLimitStore('user'),
+      }),
       services.usage.middleware,
       v1Router(services),
       notFoundHandler,
