@@ -5,7 +5,7 @@ import helmet from 'helmet';
 import { authenticate } from './auth/authenticate';
 import { chain } from './http/chain';
 import { refuseNulInUrl } from './http/nul-guard';
-import { fixedSecurityHeaders } from './http/security-headers';
+import { fixedSecurityHeaders, securityHeaders } from './http/security-headers';
 import { requestId } from './http/request-id';
 import { notFoundHandler, problemHandler } from './http/problem';
 import { presentNumbersInAnswers } from './http/present';
@@ -28,10 +28,14 @@ export function createApp(services: Services): Express {
   app.disable('x-powered-by');
   app.set('trust proxy', config.trustProxyHops);
   app.set('json spaces', 0);
+  // No ETag on JSON answers: an API answer is never cached (Cache-Control: no-store), so the SHA-1 of
+  // every body was work for nobody. Static files (the console) keep theirs, from express.static.
+  app.set('etag', false);
   presentNumbersInAnswers(app);
 
-  // Request id, the NUL guard and the security headers as one layer: every response carries them.
-  const securityHeaders = fixedSecurityHeaders(
+  // Request id, the NUL guard and the security headers as one layer: every response carries them, a
+  // page helmet's set, an API answer the few a JSON answer needs.
+  const pageHeaders = fixedSecurityHeaders(
     helmet({
       contentSecurityPolicy: {
         directives: {
@@ -47,7 +51,7 @@ export function createApp(services: Services): Express {
       },
     }),
   );
-  app.use(chain(requestId, refuseNulInUrl, securityHeaders));
+  app.use(chain(requestId, refuseNulInUrl, securityHeaders(pageHeaders)));
   app.use(express.json({ limit: JSON_BODY_LIMIT, strict: true }));
 
   // The API first and as one layer: its requests pass no other router's layers, and its stages run as
