@@ -33,8 +33,8 @@ export function createApp(services: Services): Express {
   app.set('etag', false);
   presentNumbersInAnswers(app);
 
-  // Request id, the NUL guard and the security headers as one layer: every response carries them, a
-  // page helmet's set, an API answer the few a JSON answer needs.
+  // Every response carries a request id and the security headers: a page helmet's set, an API answer
+  // the few a JSON answer needs.
   const pageHeaders = fixedSecurityHeaders(
     helmet({
       contentSecurityPolicy: {
@@ -51,8 +51,15 @@ export function createApp(services: Services): Express {
       },
     }),
   );
-  app.use(chain(requestId, refuseNulInUrl, securityHeaders(pageHeaders)));
-  app.use(express.json({ limit: JSON_BODY_LIMIT, strict: true }));
+  // With the JSON body parser as one layer: every request passes them all.
+  app.use(
+    chain(
+      requestId,
+      refuseNulInUrl,
+      securityHeaders(pageHeaders),
+      express.json({ limit: JSON_BODY_LIMIT, strict: true }),
+    ),
+  );
 
   // The API first and as one layer: its requests pass no other router's layers, and its stages run as
   // plain calls (see `chain`), in this order; `v1Router` picks the resource routers by path segment.
