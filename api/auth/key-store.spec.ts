@@ -75,6 +75,8 @@ describe('KeyStore', () => {
     now += 400;
     const late = store.find(SECRET);
     expect(late).toBeInstanceOf(Promise);
+    // It waits for the read already under way rather than starting another.
+    expect(findOne).toHaveBeenCalledTimes(2);
     pending.shift()!(null); // revoked meanwhile
     expect(await late).toBeNull();
   });
