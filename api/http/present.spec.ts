@@ -56,16 +56,13 @@ describe('presentNumbersInAnswers (res.json)', () => {
     '/string',
   ];
 
-  it.each(cases.flatMap((path) => (['get', 'head', 'post'] as const).map((method) => [method, path])))(
-    'answers %s %s with the status, headers and body Express would',
-    async (method, path) => {
-      const [expected, actual] = await Promise.all([
-        answer(theirs, method, path),
-        answer(ours, method, path),
-      ]);
-      expect(actual).toEqual(expected);
-    },
-  );
+  const methods = ['get', 'head', 'post'] as const;
+  it.each(
+    cases.flatMap((path) => methods.map((method): [(typeof methods)[number], string] => [method, path])),
+  )('answers %s %s with the status, headers and body Express would', async (method, path) => {
+    const [expected, actual] = await Promise.all([answer(theirs, method, path), answer(ours, method, path)]);
+    expect(actual).toEqual(expected);
+  });
 
   it('rounds unit-named numbers and keeps the rest at full precision', async () => {
     const { body, headers } = await answer(ours, 'get', '/plain');
