@@ -68,7 +68,7 @@ function fitAnswer(body: EqFitRequest): EqFitResult {
       ? { kind: 'points' as const, points: warmCurve.points }
       : { kind: 'flat' as const };
   const result = fitParametricEq({ ...body, target });
-  return { ...result, cautions: [] } as unknown as EqFitResult;
+  return { sampleRateHz: body.sampleRateHz, ...result, cautions: [] };
 }
 
 describe('RoomMeasurements', () => {
