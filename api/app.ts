@@ -5,12 +5,11 @@ import helmet from 'helmet';
 import { authenticate } from './auth/authenticate';
 import { chain } from './http/chain';
 import { refuseNulInUrl } from './http/nul-guard';
-import { fixedSecurityHeaders } from './http/security-headers';
+import { fixedSecurityHeaders, securityHeaders } from './http/security-headers';
 import { requestId } from './http/request-id';
 import { notFoundHandler, problemHandler } from './http/problem';
 import { presentNumbersInAnswers } from './http/present';
-import { createRateLimiter } from './rate-limit/rate-limiter';
-import { createUserRateLimiter } from './rate-limit/user-ceiling';
+import { createRateLimits } from './rate-limit/rate-limits';
 import { getContract } from './http/validate';
 import { storageProblem } from './db/storage-errors';
 import { docsRouter } from './service/docs.router';
@@ -29,10 +28,14 @@ export function createApp(services: Services): Express {
   app.disable('x-powered-by');
   app.set('trust proxy', config.trustProxyHops);
   app.set('json spaces', 0);
+  // No ETag on JSON answers: an API answer is never cached (Cache-Control: no-store), so the SHA-1 of
+  // every body was work for nobody. Static files (the console) keep theirs, from express.static.
+  app.set('etag', false);
   presentNumbersInAnswers(app);
 
-  // Request id, the NUL guard and the security headers as one layer: every response carries them.
-  const securityHeaders = fixedSecurityHeaders(
+  // Every response carries a request id and the security headers: a page helmet's set, an API answer
+  // the few a JSON answer needs.
+  const pageHeaders = fixedSecurityHeaders(
     helmet({
       contentSecurityPolicy: {
         directives: {
@@ -48,8 +51,15 @@ export function createApp(services: Services): Express {
       },
     }),
   );
-  app.use(chain(requestId, refuseNulInUrl, securityHeaders));
-  app.use(express.json({ limit: JSON_BODY_LIMIT, strict: true }));
+  // With the JSON body parser as one layer: every request passes them all.
+  app.use(
+    chain(
+      requestId,
+      refuseNulInUrl,
+      securityHeaders(pageHeaders),
+      express.json({ limit: JSON_BODY_LIMIT, strict: true }),
+    ),
+  );
 
   // The API first and as one layer: its requests pass no other router's layers, and its stages run as
   // plain calls (see `chain`), in this order; `v1Router` picks the resource routers by path segment.
@@ -58,8 +68,10 @@ export function createApp(services: Services): Express {
     chain(
       authenticate(services.keys, services.sessionPrincipal),
       // Counted in this process, or in Redis shared by every instance (services.shared).
-      createRateLimiter(services, { store: services.shared.rateLimitStore('key') }),
-      createUserRateLimiter(services, { store: services.shared.rateLimitStore('user') }),
+      createRateLimits(services, {
+        key: services.shared.rateLimitStore('key'),
+        user: services.shared.rateLimitStore('user'),
+      }),
       services.usage.middleware,
       v1Router(services),
       notFoundHandler,

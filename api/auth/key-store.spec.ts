@@ -30,14 +30,55 @@ describe('KeyStore', () => {
     const first = store.findActive(SECRET);
     pending.shift()!(row());
     expect((await first)?.id).toBe('key_1');
-    now += 999;
+    now += 499;
     expect((await store.findActive(SECRET))?.id).toBe('key_1');
     expect(findOne).toHaveBeenCalledTimes(1);
-    now += 1;
+    now += 501;
     const third = store.findActive(SECRET);
     pending.shift()!(row());
     await third;
     expect(findOne).toHaveBeenCalledTimes(2);
+  });
+
+  it('reads a key in use again after half a second, still answering from the cache meanwhile', async () => {
+    const { models, findOne, pending } = controlledModels();
+    let now = 2_000_000;
+    const store = new KeyStore(models, 'server-secret', () => now);
+    const first = store.findActive(SECRET);
+    pending.shift()!(row());
+    await first;
+    now += 499;
+    store.find(SECRET);
+    expect(findOne).toHaveBeenCalledTimes(1);
+    now += 1;
+    // Answered at once from the cache, with one read started behind it, however many calls come.
+    expect((store.find(SECRET) as { id: string } | null)?.id).toBe('key_1');
+    expect((store.find(SECRET) as { id: string } | null)?.id).toBe('key_1');
+    expect(findOne).toHaveBeenCalledTimes(2);
+    // The refreshed answer (the key's new limit) is what later calls get, cached from when it was read.
+    pending.shift()!(row({ rateLimitPerMinute: 7 }));
+    await new Promise((resolve) => setImmediate(resolve));
+    now += 400;
+    expect((store.find(SECRET) as { rateLimitPerMinute: number } | null)?.rateLimitPerMinute).toBe(7);
+    expect(findOne).toHaveBeenCalledTimes(2);
+  });
+
+  it('never gives out a cached answer older than a second, refreshing or not', async () => {
+    const { models, findOne, pending } = controlledModels();
+    let now = 3_000_000;
+    const store = new KeyStore(models, 'server-secret', () => now);
+    const first = store.findActive(SECRET);
+    pending.shift()!(row());
+    await first;
+    now += 600;
+    store.find(SECRET); // starts the background read, which the database does not answer yet
+    now += 400;
+    const late = store.find(SECRET);
+    expect(late).toBeInstanceOf(Promise);
+    // It waits for the read already under way rather than starting another.
+    expect(findOne).toHaveBeenCalledTimes(2);
+    pending.shift()!(null); // revoked meanwhile
+    expect(await late).toBeNull();
   });
 
   it('does not cache an answer read before an invalidation (a revocation racing a lookup)', async () => {

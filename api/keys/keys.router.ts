@@ -32,8 +32,8 @@ export function keysRouter(services: Services): Router {
     mayManageKeys,
     validate('createKey', async ({ body }, req, res) => {
       const created = await keys.create(callerOf(req), body);
-      // The clear key is in this body and nowhere else: no cache may keep it.
-      res.setHeader('Cache-Control', 'no-store');
+      // The clear key is in this body and nowhere else; like every API answer it is sent with
+      // Cache-Control: no-store (API_SECURITY_HEADERS), so no cache keeps it.
       res.status(201).location(`/v1/keys/${created.id}`).json(created);
     }),
   );

@@ -1,5 +1,4 @@
-import type { Request, RequestHandler } from 'express';
-import type { Store } from 'express-rate-limit';
+import type { Request } from 'express';
 import { getContract } from '../http/validate';
 import { HTTP_METHODS, type OpenApiDocument, type OpenApiOperation } from '../openapi/document';
 
@@ -126,29 +125,4 @@ let fromContract: RequestCost | null = null;
 export function contractRequestCost(): RequestCost {
   fromContract ??= compileRequestCost(getContract().document);
   return fromContract;
-}
-
-/**
- * A rate limiter preceded by the charge of a costly request's units beyond the one the limiter counts
- * itself, on the same store and key. The limiter then adds its unit and compares the total with the
- * limit, so a request that does not fit is refused, the `RateLimit` header counts units, and a request
- * of cost 1 goes straight to the limiter.
- */
-export function withCost(
-  limiter: RequestHandler,
-  store: Store,
-  key: (req: Request) => string,
-  cost: RequestCost,
-): RequestHandler {
-  return (req, res, next) => {
-    const extra = cost(req) - 1;
-    if (extra <= 0) {
-      limiter(req, res, next);
-      return;
-    }
-    const subject = key(req);
-    let charged: Promise<unknown> = Promise.resolve();
-    for (let i = 0; i < extra; i += 1) charged = charged.then(() => store.increment(subject));
-    charged.then(() => limiter(req, res, next), next);
-  };
 }

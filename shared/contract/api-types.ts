@@ -4016,9 +4016,9 @@ export type components = {
     };
     requestBodies: never;
     headers: {
-        /** @description IETF RateLimit header (draft 8) for the calling key. */
+        /** @description IETF RateLimit header (draft 8), one list member per policy: the calling key's own limit (named after its quota, for example "600-in-1min"), then the ceiling of the key's user over all their keys ("user"). */
         RateLimit: string;
-        /** @description IETF RateLimit-Policy header (draft 8) for the calling key. */
+        /** @description IETF RateLimit-Policy header (draft 8), one list member per policy, in the order of RateLimit. */
         RateLimitPolicy: string;
         /** @description Identifier of this request; also echoed as `requestId` in problem documents. */
         RequestId: string;

@@ -37,4 +37,29 @@ describe('the per-user ceiling', () => {
     expect(res.headers['ratelimit-policy']).toMatch(/"100-in-1min"; q=100; w=60.*"user"; q=6; w=60/);
     expect(res.headers.ratelimit).toMatch(/"user"; r=\d+; t=\d+/);
   });
+
+  it("does not charge the user's ceiling for calls the key's own limit refused", async () => {
+    const admin = tight.keys.admin;
+    const created = await request(tight.app)
+      .post('/v1/keys')
+      .set('Authorization', `Bearer ${admin}`)
+      .send({ name: 'One a minute', role: 'calculate', rateLimitPerMinute: 1 })
+      .expect(201);
+    const statuses: number[] = [];
+    for (let i = 0; i < 5; i += 1) statuses.push((await layouts(created.body.secret as string)).status);
+    expect(statuses).toEqual([200, 429, 429, 429, 429]);
+    // The admin spent 3 of 6: the key's creation, its one allowed call and this one. Had the four
+    // refusals counted too, this call would be the seventh, and refused.
+    const res = await layouts(admin);
+    expect(res.status).toBe(200);
+    expect(Number(/"user"; r=(\d+)/.exec(res.headers.ratelimit)?.[1])).toBe(3);
+  });
+
+  it("lists both policies in one RateLimit and one RateLimit-Policy field, the key's first", async () => {
+    const res = await layouts(tight.keys.tuning);
+    expect(res.headers.ratelimit).toMatch(/^"100-in-1min"; r=\d+; t=\d+, "user"; r=\d+; t=\d+$/);
+    expect(res.headers['ratelimit-policy']).toMatch(
+      /^"100-in-1min"; q=100; w=60; pk=:[A-Za-z0-9+/=]+:, "user"; q=6; w=60; pk=:[A-Za-z0-9+/=]+:$/,
+    );
+  });
 });
