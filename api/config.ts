@@ -2,6 +2,7 @@ import { randomBytes } from 'node:crypto';
 import { availableParallelism } from 'node:os';
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
+import { WORKER_HEAP_LIMIT_MB, WORKER_HEAP_MIN_MB } from './work/heap-limit';
 
 export type Environment = 'development' | 'production' | 'test';
 
@@ -42,6 +43,8 @@ export interface Config {
   workQueueLimit: number;
   /** How many nice steps below the event loop the worker threads run (Linux; 0 = same priority). */
   workNice: number;
+  /** Most JavaScript heap one worker thread may hold, MiB; a task that needs more is answered 422. */
+  workHeapLimitMb: number;
   /**
    * Redis (`redis://…`) shared by every instance: rate limits, sign-in throttles, console sessions,
    * key-cache invalidation and the usage buffer. Null keeps all of them in this process's memory.
@@ -192,6 +195,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     workThreads: integer(env, 'HEAVY_WORK_THREADS', defaultWorkThreads(), 1, 64),
     workQueueLimit: integer(env, 'HEAVY_WORK_QUEUE_LIMIT', 16, 0, 10_000),
     workNice: integer(env, 'HEAVY_WORK_NICE', 10, 0, 19),
+    workHeapLimitMb: integer(env, 'HEAVY_WORK_HEAP_MB', WORKER_HEAP_LIMIT_MB, WORKER_HEAP_MIN_MB, 65_536),
     redisUrl: redisUrl(env),
     redisKeyPrefix: env.REDIS_KEY_PREFIX || 'isochron:',
     databasePoolMax: integer(env, 'DATABASE_POOL_MAX', 10, 1, 1000),

@@ -57,6 +57,8 @@ export async function createServices(config: Config): Promise<Services> {
     threads: config.workThreads,
     queueLimit: config.workQueueLimit,
     nice: config.workNice,
+    heapLimitMb: config.workHeapLimitMb,
+    onFault: (error) => logger.error({ err: error }, 'a heavy-work thread failed with no task on it'),
   });
   const keys = new KeyStore(db.models, config.keyHashSecret);
   // A revocation or role change anywhere (any instance, the command line) empties every instance's cache.

@@ -35,7 +35,7 @@ const STAGES: Array<[string, RegExp]> = [
   ['validation', /api\/http\/validate|api\/openapi\/|\/ajv\/|ajv-formats/],
   ['metering', /api\/usage\//],
   ['handler (calculation)', /\/shared\/|api\/calculations\//],
-  [SERIALISATION, /express\/lib\/response|\/send\/|\/etag\/|content-type|\/fresh\//],
+  [SERIALISATION, /express\/lib\/response|\/send\/|\/etag\/|content-type|\/fresh\/|api\/http\/present/],
   ['JSON body parsing', /body-parser|raw-body|iconv-lite|type-is|media-typer|content-type/],
   [
     'express routing',

@@ -266,3 +266,47 @@ describe('HeavyWork threads on Linux', () => {
     expect(added.filter(([, nice]) => nice === base + 7)).toHaveLength(2);
   });
 });
+
+describe('HeavyWork memory limit', () => {
+  // Enough heap for a thread to load the calculations and plan a room, far too little for the room below.
+  const work = new HeavyWork({ threads: 2, queueLimit: 2, heapLimitMb: 64 });
+  afterAll(() => work.close());
+
+  /** Stage 3 with 60 more stored responses of 100 000 points each: about 96 MB of numbers once cloned. */
+  function oversizedRoom(): StoredPlanInput {
+    const input = storedStage3();
+    const frequenciesHz = Array.from({ length: 100_000 }, (_, i) => 20 + i * 0.2);
+    for (let k = 0; k < 60; k++) {
+      input.measurements.push({
+        id: `mea_2${String(k).padStart(2, '0')}`,
+        channel: 'M+030',
+        micPosition: `P${k}`,
+        kind: 'frequencyResponse',
+        stage: null,
+        // A copy each, so the clone cannot share one array between them.
+        result: { frequenciesHz: frequenciesHz.slice(), magnitudeDb: frequenciesHz.map((f) => 80 + k / f) },
+      });
+    }
+    return input;
+  }
+
+  it('answers a task that outgrows its heap with a 422 naming what to make smaller, and keeps serving', async () => {
+    expect(work.heapLimitMb).toBe(64);
+    // A fit on the other thread, running while the oversized plan exhausts its own.
+    const beside = work.run('fitEq', fit);
+    const refused = await work.run('planStoredRoom', oversizedRoom()).catch((e: unknown) => e);
+    expect(refused).toBeInstanceOf(ProblemError);
+    const problem = refused as ProblemError;
+    expect(problem.status).toBe(422);
+    expect(problem.type).toBe('calculation-too-large');
+    expect(problem.detail).toMatch(/stored measurements are too many or too long/);
+    expect(problem.detail).toMatch(/more than 64 MiB/);
+    expect(problem.extensions).toEqual({ heapLimitMb: 64 });
+    await expect(beside).resolves.toHaveProperty('bands');
+    expect(work.inFlight).toBe(0);
+    // The dead thread was replaced: both threads take a task at once again, and a normal plan still fits.
+    const again = await Promise.all([work.run('fitEq', fit), work.run('planStoredRoom', storedStage3())]);
+    expect(again[0].bands.length).toBeGreaterThan(0);
+    expect(again[1].measurements.used).toContain('mea_10');
+  });
+});

@@ -2,6 +2,7 @@ import path from 'node:path';
 import type { Response } from 'express';
 import { Piscina } from 'piscina';
 import { ProblemError } from '../http/problem';
+import { WORKER_HEAP_LIMIT_MB } from './heap-limit';
 import type { TaskInput, TaskName, TaskOutput } from './tasks';
 import { reviveRefusal, runTask, transferable, type TaskReply, type TaskRequest } from './worker';
 
@@ -16,6 +17,13 @@ export interface HeavyWorkOptions {
    * renice the whole process, so it is not applied. 0 leaves the threads as they start.
    */
   nice?: number;
+  /**
+   * Most JavaScript heap (old generation, MiB) one worker thread may hold; default
+   * {@link WORKER_HEAP_LIMIT_MB}. A task that needs more ends its thread; the pool starts another.
+   */
+  heapLimitMb?: number;
+  /** Told of a worker thread's failure that no task was waiting on (the pool replaces the thread). */
+  onFault?: (error: Error) => void;
 }
 
 /**
@@ -84,6 +92,8 @@ export class HeavyWork {
       } catch (error) {
         // Nobody reads this answer; a problem (not a fault) keeps it out of the error log.
         if (signal?.aborted) throw unavailable('The client closed the connection.', 1);
+        if ((error as { code?: unknown } | null)?.code === 'ERR_WORKER_OUT_OF_MEMORY')
+          throw this.tooLarge(task);
         throw error;
       }
       if (!reply.ok) throw reviveRefusal(reply.refused);
@@ -102,16 +112,39 @@ export class HeavyWork {
     await pool?.destroy();
   }
 
+  /** The heap limit each worker thread runs with, MiB. */
+  get heapLimitMb(): number {
+    return this.options.heapLimitMb ?? WORKER_HEAP_LIMIT_MB;
+  }
+
   private start(): Piscina {
-    this.pool ??= new Piscina({
+    if (this.pool) return this.pool;
+    this.pool = new Piscina({
       filename: workerFile,
       minThreads: this.options.threads,
       maxThreads: this.options.threads,
       // The admission check above already bounds the queue.
       maxQueue: this.capacity,
+      resourceLimits: { maxOldGenerationSizeMb: this.heapLimitMb },
       workerData: { nice: process.platform === 'linux' ? (this.options.nice ?? 0) : 0 },
     });
+    // piscina emits 'error' for a thread that fails with no task on it; unheard, that would end the process.
+    this.pool.on('error', (error: Error) => this.options.onFault?.(error));
     return this.pool;
+  }
+
+  /**
+   * The answer for a task whose thread ran out of heap: the same input would fail again, so it is a 422
+   * naming what to make smaller, not a 503 to retry. The thread is gone; piscina has started another.
+   */
+  private tooLarge(task: TaskName): ProblemError {
+    return new ProblemError({
+      status: 422,
+      title: 'Calculation too large',
+      detail: `${TOO_LARGE[task]} The calculation needed more than ${this.heapLimitMb} MiB of working memory, the most one calculation may use.`,
+      type: 'calculation-too-large',
+      extensions: { heapLimitMb: this.heapLimitMb },
+    });
   }
 
   /** Seconds until a place is likely free: the work ahead of a new task spread over the threads. */
@@ -119,6 +152,19 @@ export class HeavyWork {
     return Math.max(1, Math.ceil((this.pending * this.meanTaskMs) / this.options.threads / 1000));
   }
 }
+
+/** What to make smaller, by task, when one runs out of memory. */
+const TOO_LARGE: Record<TaskName, string> = {
+  analyseWav:
+    'The impulse-response file with the decay plots asked for is too large to analyse: send a shorter file or ask for fewer slices and bins.',
+  analyseSweepWav: 'The sweep recording is too large to analyse: send a shorter or lower-rate recording.',
+  readCalibratorWav: 'The calibrator recording is too large to read: send a shorter recording.',
+  fitEq: 'The measured response is too large to fit: send fewer points.',
+  planRoom: 'The plan is too large to compute: send fewer channels or shorter measured responses.',
+  planStoredRoom:
+    "The room's stored measurements are too many or too long to plan at once: include fewer of them (measurements.include / exclude).",
+  testSignal: 'The test signal asked for is too large to make: ask for a shorter one or a lower sample rate.',
+};
 
 const unavailable = (detail: string, retryAfterS: number): ProblemError =>
   new ProblemError({

@@ -3970,7 +3970,7 @@ export type components = {
                 "application/problem+json": components["schemas"]["Problem"];
             };
         };
-        /** @description The request is well formed but a value cannot be used (for example a frequency at or above Nyquist). */
+        /** @description The request is well formed but a value cannot be used (for example a frequency at or above Nyquist), or a heavy calculation needed more working memory than one may use (type `calculation-too-large`, with `heapLimitMb`; the detail says what to make smaller). */
         Unprocessable: {
             headers: {
                 [name: string]: unknown;

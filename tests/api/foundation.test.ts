@@ -40,6 +40,29 @@ describe('service basics', () => {
     expect(docs.text).toContain('swagger-ui');
   });
 
+  it("gives API answers, refusals included, an answer's security headers and no ETag; pages keep a page's", async () => {
+    const answers = [
+      await request(ctx.app)
+        .post('/v1/biquads')
+        .set('Authorization', `Bearer ${ctx.keys.calculate}`)
+        .send({ filters: [{ type: 'peaking', frequencyHz: 100, gainDb: -3, q: 2 }] }),
+      await request(ctx.app).get('/v1/keys'), // 401
+      await request(ctx.app).get('/auth/session'),
+    ];
+    expect(answers.map((res) => res.status)).toEqual([200, 401, 401]);
+    for (const res of answers) {
+      expect(res.headers['cache-control']).toBe('no-store');
+      expect(res.headers['content-security-policy']).toBe("default-src 'none'; frame-ancestors 'none'");
+      expect(res.headers['x-content-type-options']).toBe('nosniff');
+      expect(res.headers['x-frame-options']).toBe('DENY');
+      expect(res.headers['strict-transport-security']).toMatch(/^max-age=\d+/);
+      expect(res.headers.etag).toBeUndefined();
+    }
+    const page = await request(ctx.app).get('/docs/');
+    expect(page.headers['content-security-policy']).toContain("script-src 'self'");
+    expect(page.headers['cache-control']).toBeUndefined();
+  });
+
   it('answers unknown routes with a JSON problem, not HTML', async () => {
     const res = await request(ctx.app)
       .get('/v1/nothing-here')

@@ -32,7 +32,7 @@ it('lists the demo room and opens it with its top view and channel table', async
   await screenshot(page, 'rooms');
   await page.getByRole('link', { name: /Stage 3/ }).click();
   await page.getByRole('heading', { level: 1, name: 'Stage 3' }).waitFor();
-  const plan = page.getByTestId('room-top-view').locator('canvas');
+  const plan = page.getByTestId('room-top-view').locator('svg.plan');
   await plan.waitFor();
   expect(await plan.getAttribute('aria-label')).toMatch(
     /seen from above, front wall at the top: 6\.10 m wide and 7\.40 m long/,
@@ -141,8 +141,10 @@ it('shows the room on a 390 px phone without sideways scrolling', async () => {
   await page.setViewportSize(PHONE);
   await page.reload();
   await page.getByRole('heading', { level: 1, name: 'Stage 3' }).waitFor();
-  await page.getByTestId('room-top-view').locator('canvas').waitFor();
+  await page.getByTestId('room-top-view').locator('svg.plan').waitFor();
   expect(await horizontalOverflow(page)).toEqual([]);
+  // Every loudspeaker's label, as drawn at this width, clear of every other (LFE1 stands beside M+030).
+  expect(await overlappingLabels(page)).toEqual([]);
   await screenshot(page, 'phone-room');
   // On a phone the export is on the tuning page.
   await page.getByRole('link', { name: /Planned from measurements/ }).click();
@@ -152,3 +154,27 @@ it('shows the room on a 390 px phone without sideways scrolling', async () => {
   await screenshot(page, 'phone-export-dialog');
   await page.getByRole('dialog').getByRole('button', { name: 'Close' }).click();
 });
+
+/** Pairs of plan labels whose drawn boxes overlap, by their text. */
+async function overlappingLabels(page: Page): Promise<string[]> {
+  const boxes = await page
+    .getByTestId('room-top-view')
+    .locator('text.label')
+    .evaluateAll((labels) =>
+      labels.map((label) => {
+        const { left, right, top, bottom } = label.getBoundingClientRect();
+        return { text: label.textContent ?? '', left, right, top, bottom };
+      }),
+    );
+  expect(boxes.length).toBeGreaterThan(10);
+  const pairs: string[] = [];
+  for (let i = 0; i < boxes.length; i++)
+    for (let j = i + 1; j < boxes.length; j++) {
+      const [a, b] = [boxes[i], boxes[j]];
+      const apart =
+        Math.min(a.right, b.right) <= Math.max(a.left, b.left) ||
+        Math.min(a.bottom, b.bottom) <= Math.max(a.top, b.top);
+      if (!apart) pairs.push(`${a.text} / ${b.text}`);
+    }
+  return pairs;
+}

@@ -169,3 +169,75 @@ describe('PlanEditor', () => {
     expect(fixture.componentInstance.moves).toHaveLength(2);
   });
 });
+
+@Component({
+  selector: 'iso-plan-view-host',
+  imports: [PlanEditor],
+  template: `<iso-plan-editor
+    readOnly
+    name="Stage 3"
+    [dimensions]="{ widthM: 6.1, lengthM: 7.4 }"
+    [listener]="{ x: 3.05, y: 3.3 }"
+    [speakers]="speakers"
+    [geometry]="geometry"
+    (move)="moves.push($event)"
+  />`,
+})
+class ViewHost {
+  readonly speakers: PlanSpeaker[] = [
+    { id: 'M+030', x: 1.49, y: 0.6 },
+    { id: 'M+000', x: 3.05, y: 0.55 },
+    { id: 'LFE1', x: 0.9, y: 0.5 },
+  ];
+  readonly geometry: PlanSpeakerGeometry[] = [
+    { id: 'M+030', azimuthDeg: 30, distanceM: 3, withinTolerance: true },
+    { id: 'LFE1', azimuthDeg: 40, distanceM: 3.3, withinTolerance: false },
+  ];
+  readonly moves: PlanMove[] = [];
+}
+
+describe('PlanEditor, read-only (the room page’s plan)', () => {
+  let fixture: ComponentFixture<ViewHost>;
+  const el = () => fixture.nativeElement as HTMLElement;
+  const marker = (id: string) => el().querySelector(`[data-testid="plan-marker-${id}"]`) as SVGGElement;
+
+  beforeEach(async () => {
+    fixture = TestBed.createComponent(ViewHost);
+    fixture.detectChanges();
+    await fixture.whenStable();
+  });
+
+  it('draws the same plan with nothing to move: images named and titled by channel and position', () => {
+    const svg = el().querySelector('svg.plan') as SVGSVGElement;
+    expect(svg.getAttribute('data-testid')).toBe('plan-view');
+    expect(svg.getAttribute('aria-label')).toContain(
+      'Floor plan of Stage 3 seen from above, front wall at the top: 6.10 m wide and 7.40 m long, 3 loudspeakers',
+    );
+    expect(svg.getAttribute('aria-label')).toContain("Outside the layout's permitted range: LFE1.");
+    const left = marker('M+030');
+    expect(left.getAttribute('role')).toBe('img');
+    expect(left.hasAttribute('tabindex')).toBe(false);
+    expect(left.hasAttribute('aria-valuetext')).toBe(false);
+    const where = 'M+030: azimuth 30.0°, distance 3.00\u00a0m, within the permitted range';
+    expect(left.getAttribute('aria-label')).toBe(where);
+    expect(left.querySelector('title')?.textContent).toBe(where);
+    expect(marker('LFE1').querySelector('.ring')).not.toBeNull();
+    // No instructions, no live region, and keys move nothing.
+    expect(el().textContent).not.toContain('arrow keys');
+    expect(el().querySelector('[data-testid="plan-announcement"]')).toBeNull();
+    left.dispatchEvent(new KeyboardEvent('keydown', { key: 'ArrowUp', bubbles: true, cancelable: true }));
+    left.dispatchEvent(new PointerEvent('pointerdown', { button: 0, bubbles: true }));
+    expect(fixture.componentInstance.moves).toEqual([]);
+  });
+
+  it('moves the subwoofer’s label off the main beside it, with every label apart', () => {
+    const boxes = ['M+030', 'M+000', 'LFE1'].map((id) => {
+      const label = marker(id).querySelector('text.label') as SVGTextElement;
+      return { id, x: Number(label.getAttribute('x')), y: Number(label.getAttribute('y')) };
+    });
+    // M+030 keeps its place above; LFE1 (0.59 m to its left) does not sit at the same height above it.
+    expect(boxes[0]).toMatchObject({ x: 0 });
+    expect(boxes[0].y).toBeLessThan(0);
+    expect(boxes[2].x !== 0 || boxes[2].y > 0).toBe(true);
+  });
+});

@@ -1,6 +1,7 @@
 import {
   ChangeDetectionStrategy,
   Component,
+  booleanAttribute,
   ElementRef,
   computed,
   input,
@@ -17,6 +18,7 @@ import {
 import type { components } from '../../../../../shared/contract/api-types';
 import { formatQuantity } from '../../format/format';
 import { topViewSummary } from '../top-view';
+import { labelBox, placeLabels, type LabelPlace } from './plan-labels';
 import {
   PLAN_FINE_STEP_M,
   PLAN_STEP_M,
@@ -59,6 +61,7 @@ interface Marker {
   outside: boolean;
   valueText: string;
   azimuthDeg: number | null;
+  label: LabelPlace;
 }
 
 /** Where a loudspeaker points from the listener, in words, as the table shows the numbers. */
@@ -79,10 +82,13 @@ function whereText(id: string, geometry: PlanSpeakerGeometry | undefined): strin
 /**
  * The room seen from above, where loudspeakers are moved by dragging them (mouse, pen or touch) or, once
  * focused, with the arrow keys ({@link PLAN_STEP_M} a press, {@link PLAN_FINE_STEP_M} with Shift). It
- * draws the same marks as the room page's plan and the printed report (shared/geometry/speaker-marks)
- * and changes nothing itself: every move is an output the editor writes into the same form values the
- * table edits, and the positions, directions and range checks come back in through the inputs. After a
- * move the new azimuth and distance are announced to screen readers.
+ * draws the same marks as the printed report (shared/geometry/speaker-marks) and changes nothing
+ * itself: every move is an output the editor writes into the same form values the table edits, and the
+ * positions, directions and range checks come back in through the inputs. After a move the new azimuth
+ * and distance are announced to screen readers.
+ *
+ * With `readOnly` it is the room page's plan: the same drawing, nothing to move, each loudspeaker an
+ * image named by its channel, direction, distance and range check (and a tooltip saying the same).
  */
 @Component({
   selector: 'iso-plan-editor',
@@ -96,6 +102,8 @@ export class PlanEditor {
   readonly listener = input.required<PlanPoint>();
   readonly speakers = input.required<readonly PlanSpeaker[]>();
   readonly geometry = input<readonly PlanSpeakerGeometry[]>([]);
+  /** Draw only: no dragging, no keys, no instructions. */
+  readonly readOnly = input(false, { transform: booleanAttribute });
 
   readonly move = output<PlanMove>();
 
@@ -114,12 +122,46 @@ export class PlanEditor {
   /** The size of a mark in metres: marks stay the same size on screen whatever the room's size. */
   protected readonly unit = computed(() => Math.max(this.box().width, this.box().height) / 60);
 
+  /** Label size, metres (as the marks, the same on screen whatever the room's size). */
+  protected readonly labelSizeM = computed(() => this.unit() * 1.8);
+
+  /** Where each loudspeaker's label goes, clear of every other label, mark and the listener. */
+  private readonly labels = computed<LabelPlace[]>(() => {
+    const u = this.unit();
+    const b = this.box();
+    const listener = this.listener();
+    const obstacles = [
+      // The listener's cross and its name below it (drawn at a baseline 3.6 units down).
+      {
+        left: listener.x - 1.4 * u,
+        top: listener.y - 1.4 * u,
+        right: listener.x + 1.4 * u,
+        bottom: listener.y + 1.4 * u,
+      },
+      labelBox('Listener', listener.x, listener.y + 3 * u, this.labelSizeM()),
+      labelBox('Front wall', this.dimensions().widthM / 2, -1.9 * u, u * 2),
+    ];
+    return placeLabels(
+      this.speakers().map((s) => ({ x: s.x, y: s.y, text: s.id })),
+      {
+        fontSizeM: this.labelSizeM(),
+        // The diamond, the largest shape, reaches 1.2 units; the range ring 1.9.
+        markRadiusM: 1.2 * u,
+        labelGapM: 2 * u,
+        bounds: { left: b.minX, top: b.minY, right: b.minX + b.width, bottom: b.minY + b.height },
+        obstacles,
+      },
+    );
+  });
+
   protected readonly markers = computed<Marker[]>(() => {
     const geometry = new Map(this.geometry().map((g) => [g.id, g]));
+    const labels = this.labels();
     return this.speakers().map((speaker, index) => {
       const mark = speakerMark(speaker.id);
       const g = geometry.get(speaker.id);
       return {
+        label: labels[index],
         index,
         id: speaker.id,
         x: speaker.x,
@@ -194,7 +236,7 @@ export class PlanEditor {
   }
 
   protected grab(event: PointerEvent, index: number): void {
-    if (event.button !== 0) return;
+    if (this.readOnly() || event.button !== 0) return;
     event.preventDefault();
     const target = event.currentTarget as SVGGElement;
     target.focus();
@@ -224,6 +266,7 @@ export class PlanEditor {
   }
 
   protected key(event: KeyboardEvent, index: number): void {
+    if (this.readOnly()) return;
     const speaker = this.current(index);
     if (!speaker) return;
     const next = nudged(speaker, event.key, event.shiftKey, this.dimensions());

@@ -13,11 +13,10 @@ import { Router, RouterLink } from '@angular/router';
 import { filter, switchMap } from 'rxjs';
 import { formatDateTime, formatQuantity, formatSigned } from '../../format/format';
 import { errorMessage, toProblem } from '../../problem/http-problem';
-import { ChartView } from '../../ui/chart/chart';
 import { Tuning, TuningComparison } from '../room.model';
 import { RoomsService } from '../rooms.service';
 import { RoomMeasurements } from '../room-measurements/room-measurements';
-import { topViewChart } from '../top-view';
+import { PlanEditor } from '../room-editor/plan-editor';
 import { DuplicateDialog } from './duplicate-dialog';
 import { ComparisonView } from '../../tunings/comparison/comparison-view';
 import { TuningsService } from '../../tunings/tunings.service';
@@ -26,7 +25,6 @@ import { ExportDialog, ExportDialogData } from '../../tunings/export-dialog/expo
 @Component({
   selector: 'iso-room-page',
   imports: [
-    ChartView,
     ComparisonView,
     MatButtonModule,
     MatFormFieldModule,
@@ -35,6 +33,7 @@ import { ExportDialog, ExportDialogData } from '../../tunings/export-dialog/expo
     MatProgressBarModule,
     MatSelectModule,
     MatTableModule,
+    PlanEditor,
     RoomMeasurements,
     RouterLink,
   ],
@@ -71,10 +70,6 @@ export class RoomPage {
   protected readonly tunings = computed(() =>
     this.tuningsResource.hasValue() ? this.tuningsResource.value() : [],
   );
-  protected readonly topView = computed(() => {
-    const room = this.room();
-    return room ? topViewChart(room, room.geometry.speakers) : null;
-  });
   protected readonly channels = computed(() => {
     const room = this.room();
     if (!room) return [];

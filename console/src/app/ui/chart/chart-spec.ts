@@ -1,15 +1,8 @@
 /** A chart described without any charting library types, so pages and helpers stay plain data. */
 export interface ChartSpec {
-  /** `scatter` draws points on two numeric axes (a floor plan, for instance). */
-  kind: 'line' | 'bar' | 'scatter';
+  kind: 'line' | 'bar';
   /** `log` draws frequency axes; `category` uses `labels`. */
-  xScale: 'category' | 'log' | 'linear';
-  xMin?: number;
-  xMax?: number;
-  /** Draw the y axis downward (a plan seen from above with the front wall at the top). */
-  yReverse?: boolean;
-  /** Width divided by height; the chart keeps this shape instead of a fixed height. */
-  aspectRatio?: number;
+  xScale: 'category' | 'log';
   labels?: string[];
   xTitle?: string;
   yTitle?: string;
@@ -41,10 +34,6 @@ export interface ChartSeries {
   kind?: 'line' | 'bar' | 'scatter';
   /** For scatter series: join the points with a line (an outline). */
   showLine?: boolean;
-  /** Text drawn beside each point, in order. */
-  pointLabels?: string[];
   pointRadius?: number;
   pointStyle?: 'circle' | 'rect' | 'triangle' | 'crossRot' | 'rectRot';
-  /** Scatter points drawn as outlines (a ring around other marks). */
-  hollow?: boolean;
 }

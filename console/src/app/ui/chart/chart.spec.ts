@@ -168,40 +168,6 @@ describe('ChartView', () => {
     expect(scales['y']['type']).toBe('category');
   });
 
-  it('writes each point’s label beside it on a plan, and names it in the tooltip', () => {
-    const { chart } = render({
-      kind: 'scatter',
-      xScale: 'linear',
-      yReverse: true,
-      aspectRatio: 1.2,
-      series: [
-        {
-          label: 'Loudspeakers',
-          colour: 1,
-          points: [
-            { x: 1, y: 2 },
-            { x: 3, y: 2 },
-          ],
-          pointLabels: ['L', 'R'],
-        },
-        { label: 'Outside range', colour: 4, hollow: true, points: [{ x: 3, y: 2 }] },
-      ],
-      summary: 'Plan.',
-    });
-    // jsdom gives the canvas no size; give it one so chart.js draws.
-    chart.resize(600, 500);
-    chart.draw();
-    expect(drawn).toEqual(expect.arrayContaining(['L', 'R']));
-    expect((chart.options.scales as Record<string, { reverse?: boolean }>)['y'].reverse).toBe(true);
-    expect(fixture.nativeElement.querySelector('iso-chart').classList.contains('keeps-shape')).toBe(true);
-    const label = (chart.options.plugins?.tooltip?.callbacks as { label: (item: unknown) => string }).label;
-    const text = label({ dataset: chart.data.datasets[0], dataIndex: 1, raw: { x: 3, y: 2 } });
-    expect(text).toBe('R: x 3.00 m, y 2.00 m');
-    expect((chart.data.datasets[1] as unknown as { backgroundColor: string }).backgroundColor).toBe(
-      'transparent',
-    );
-  });
-
   it('replaces the chart when the spec changes and destroys it with the page', () => {
     const first = render(response);
     const second = render({ ...response, yMin: -24 });

@@ -9,7 +9,7 @@ import {
   input,
   viewChild,
 } from '@angular/core';
-import type { ChartConfiguration, ChartDataset, Plugin, TooltipItem } from 'chart.js';
+import type { ChartConfiguration, ChartDataset, TooltipItem } from 'chart.js';
 import { ThemeService } from '../../theme/theme.service';
 import { Chart } from './chart-registry';
 import { ChartSpec } from './chart-spec';
@@ -72,19 +72,16 @@ function toConfig(spec: ChartSpec, palette: Palette, labelChars = 32): ChartConf
       backgroundColor:
         kind === 'bar'
           ? withAlpha(colour, 0.75)
-          : kind === 'scatter' && series.hollow
-            ? 'transparent'
-            : kind === 'scatter' && !series.showLine
-              ? colour
-              : withAlpha(colour, 0.15),
-      borderWidth: kind === 'bar' ? 0 : series.hollow ? 3 : 2,
+          : kind === 'scatter' && !series.showLine
+            ? colour
+            : withAlpha(colour, 0.15),
+      borderWidth: kind === 'bar' ? 0 : 2,
       borderDash: series.dashed ? [6, 4] : undefined,
       fill: series.fill ?? false,
       pointRadius: series.pointRadius ?? (kind === 'scatter' ? 5 : 0),
       pointHoverRadius: kind === 'scatter' ? 7 : 3,
       pointStyle: series.pointStyle ?? 'circle',
       showLine: kind === 'scatter' ? (series.showLine ?? false) : undefined,
-      isoLabels: series.pointLabels,
       tension: 0,
       yAxisID: series.axis === 'right' ? 'right' : 'y',
     };
@@ -111,23 +108,13 @@ function toConfig(spec: ChartSpec, palette: Palette, labelChars = 32): ChartConf
             callback: (value: string | number) => frequencyTickLabel(Number(value)),
           },
         }
-      : spec.xScale === 'linear'
-        ? {
-            type: 'linear' as const,
-            title: axisTitle(spec.xTitle),
-            grid,
-            // Bounds such as −0.4 m (a margin) are not worth a label.
-            ticks: { ...ticks, includeBounds: false },
-            min: spec.xMin,
-            max: spec.xMax,
-          }
-        : {
-            type: 'category' as const,
-            title: axisTitle(spec.xTitle),
-            grid,
-            ticks: { ...ticks, maxRotation: 0, autoSkipPadding: 12 },
-            stacked: spec.stacked,
-          };
+      : {
+          type: 'category' as const,
+          title: axisTitle(spec.xTitle),
+          grid,
+          ticks: { ...ticks, maxRotation: 0, autoSkipPadding: 12 },
+          stacked: spec.stacked,
+        };
   const valueAxis = {
     type: 'linear' as const,
     grid,
@@ -135,37 +122,31 @@ function toConfig(spec: ChartSpec, palette: Palette, labelChars = 32): ChartConf
       ...ticks,
       precision: spec.kind === 'bar' ? 0 : undefined,
       stepSize: spec.yStep,
-      includeBounds: spec.kind !== 'scatter',
     },
     min: spec.yMin,
     max: spec.yMax,
     stacked: spec.stacked,
     beginAtZero: spec.kind === 'bar',
-    reverse: spec.yReverse ?? false,
   };
-  const scatter = spec.kind === 'scatter';
   return {
     type: spec.kind,
     data: { labels: spec.labels, datasets },
     options: {
       responsive: true,
-      maintainAspectRatio: spec.aspectRatio !== undefined,
-      aspectRatio: spec.aspectRatio,
+      maintainAspectRatio: false,
       animation: false,
       parsing: spec.xScale === 'category' ? undefined : false,
       normalized: true,
-      interaction: scatter ? { mode: 'nearest', intersect: true } : { mode: 'index', intersect: false },
+      interaction: { mode: 'index', intersect: false },
       color: palette.text,
       font: { family: palette.font },
       plugins: {
         legend: { position: 'bottom', labels: { color: palette.text, boxWidth: 14, boxHeight: 3 } },
         tooltip: {
           enabled: true,
-          callbacks: scatter
-            ? { label: scatterTooltip }
-            : spec.horizontal
-              ? { title: (items: TooltipItem<'bar'>[]) => spec.labels?.[items[0]?.dataIndex ?? 0] ?? '' }
-              : {},
+          callbacks: spec.horizontal
+            ? { title: (items: TooltipItem<'bar'>[]) => spec.labels?.[items[0]?.dataIndex ?? 0] ?? '' }
+            : {},
         },
       },
       indexAxis: spec.horizontal ? 'y' : 'x',
@@ -199,41 +180,7 @@ function toConfig(spec: ChartSpec, palette: Palette, labelChars = 32): ChartConf
           : {}),
       },
     },
-    plugins: [pointLabels(palette)],
   } as ChartConfiguration;
-}
-
-type LabelledDataset = ChartDataset & { isoLabels?: string[] };
-
-function scatterTooltip(item: TooltipItem<'scatter'>): string {
-  const labels = (item.dataset as LabelledDataset).isoLabels;
-  const point = item.raw as { x: number; y: number };
-  const name = labels?.[item.dataIndex] ?? item.dataset.label ?? '';
-  return `${name}: x ${point.x.toFixed(2)} m, y ${point.y.toFixed(2)} m`;
-}
-
-/** Draws each point's label just above it (channel names on a floor plan). */
-function pointLabels(palette: Palette): Plugin {
-  return {
-    id: 'isoPointLabels',
-    afterDatasetsDraw(chart) {
-      const context = chart.ctx;
-      chart.data.datasets.forEach((dataset, index) => {
-        const labels = (dataset as LabelledDataset).isoLabels;
-        if (!labels?.length || !chart.isDatasetVisible(index)) return;
-        context.save();
-        context.font = `500 11px ${palette.font}`;
-        context.fillStyle = palette.text;
-        context.textAlign = 'center';
-        context.textBaseline = 'bottom';
-        chart.getDatasetMeta(index).data.forEach((element, point) => {
-          const { x, y } = element.getProps(['x', 'y'], true) as { x: number; y: number };
-          context.fillText(labels[point] ?? '', x, y - 8);
-        });
-        context.restore();
-      });
-    },
-  };
 }
 
 /** A chart.js canvas with the console's colours; the summary is what a screen reader hears. */
@@ -241,7 +188,6 @@ function pointLabels(palette: Palette): Plugin {
   selector: 'iso-chart',
   template: `<canvas #canvas role="img" [attr.aria-label]="spec().summary"></canvas>`,
   host: {
-    '[class.keeps-shape]': 'spec().aspectRatio !== undefined',
     '[style.height.px]': 'barsHeightPx()',
   },
   styles: `
@@ -250,9 +196,6 @@ function pointLabels(palette: Palette): Plugin {
       position: relative;
       height: 280px;
       min-width: 0;
-    }
-    :host(.keeps-shape) {
-      height: auto;
     }
     canvas {
       max-width: 100%;
@@ -269,7 +212,7 @@ export class ChartView {
    */
   protected readonly barsHeightPx = computed(() => {
     const spec = this.spec();
-    if (!spec.horizontal || spec.aspectRatio !== undefined) return null;
+    if (!spec.horizontal) return null;
     return Math.max(280, 90 + (spec.labels?.length ?? 0) * 46);
   });
 

@@ -161,6 +161,28 @@ describe('text for people who do not see the plot', () => {
     expect(text).toContain('Longest ringing near 100\u00a0Hz: it falls 4.0\u00a0dB by 100\u00a0ms.');
     expect(text).toContain('Fastest decay near 1.00\u00a0kHz: 48.0\u00a0dB by 100\u00a0ms.');
   });
+
+  it('names the mode that rings longest, not the bin beside it that fell less', () => {
+    // A mode at 63 Hz: it starts at the top and is still 20 dB down at 300 ms. Its neighbour at 59.4 Hz
+    // is off the resonance at first (10 dB down) but late on holds the mode's leaked energy, so it falls
+    // only 14 dB; the bins further out die away.
+    const mode: DecayPlotData = {
+      window: { name: 'hann', lengthMs: 300, taperMs: 150 },
+      timesMs: [0, 150, 300],
+      frequenciesHz: [50, 56.1, 59.4, 63, 66.7, 74.8],
+      levelDb: [
+        [-8, -6, -10, 0, -7, -5],
+        [-30, -26, -19, -10, -24, -32],
+        [-52, -44, -24, -20, -38, -58],
+      ],
+      binWidthOctaves: 1 / 12,
+      resolutionHz: 3.3,
+    };
+    const text = decaySummary(mode, 'Waterfall of LFE1');
+    expect(text).toContain('Longest ringing near 63.0\u00a0Hz: it falls 20.0\u00a0dB by 300\u00a0ms.');
+    expect(text).not.toContain('59.4');
+    expect(text).toContain('Fastest decay near 74.8\u00a0Hz: 53.0\u00a0dB by 300\u00a0ms.');
+  });
 });
 
 describe('asking for plots', () => {

@@ -226,8 +226,15 @@ const formatHz = (hz: number) =>
 
 /**
  * A text summary of a plot for people who do not see it: what it covers, its window, and where the
- * response rings longest and dies fastest (the bins that start within 30 dB of the top, by how far each
- * has fallen at the last slice).
+ * response rings longest and dies fastest, among the bins that start within 30 dB of the top.
+ *
+ * Longest ringing is the bin with the highest level left in the last slice, not the one that fell least.
+ * A ringing room mode leaks into its neighbouring bins through the window's skirt (and each bin averages
+ * a fraction of an octave around it): a neighbour off the resonance starts lower in the first slice but
+ * late in the decay shows mostly the mode's own energy, a few dB below the mode's bin. Its fall is then
+ * smaller than the mode's, so "fell least" names the skirt, a bin beside the mode (59.4 Hz for a mode at
+ * 63 Hz). What still sounds at the end is where the level is highest then, which is the mode itself.
+ * Fastest decay stays "fell most": there the level left is at the floor and says nothing.
  */
 export function decaySummary(plot: DecayPlotData, what: string): string {
   const n = plot.timesMs.length;
@@ -244,7 +251,9 @@ export function decaySummary(plot: DecayPlotData, what: string): string {
   for (let b = 0; b < fHz.length; b++) {
     if (!(first[b] > -30)) continue;
     const drop = first[b] - last[b];
-    if (slow < 0 || drop < first[slow] - last[slow]) slow = b;
+    // Equal levels left (both at the floor, say): the one that fell less.
+    if (slow < 0 || last[b] > last[slow] || (last[b] === last[slow] && drop < first[slow] - last[slow]))
+      slow = b;
     if (fast < 0 || drop > first[fast] - last[fast]) fast = b;
   }
   if (slow >= 0 && n > 1) {
