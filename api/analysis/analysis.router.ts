@@ -38,11 +38,11 @@ export function analysisRouter({ work, db }: Services): Router {
   return router;
 }
 
-interface RoomFields {
-  roomWidthM?: number;
-  roomLengthM?: number;
-  roomHeightM?: number;
-}
+/** The room's dimensions an upload may give for its modes (the same three fields on both analysis routes). */
+type RoomFields = Pick<
+  ValidInput<'analyzeImpulseResponse'>['body'],
+  'roomWidthM' | 'roomLengthM' | 'roomHeightM'
+>;
 
 /** A WAV upload's analysis, with what was read from the file. */
 async function analyseUpload(

@@ -1,3 +1,4 @@
+import type { components } from '../../shared/contract/api-types';
 import { Op, type Transaction, type WhereOptions } from 'sequelize';
 import { recordAudit, type AuditEntry } from '../audit/record-audit';
 import { generateKeySecret, hashKeySecret } from '../auth/key-secret';
@@ -28,11 +29,8 @@ export interface CreateKeyInput {
   ownerId?: string;
 }
 
-export interface UpdateKeyInput {
-  name?: string;
-  rateLimitPerMinute?: number | null;
-  expiresAt?: string | null;
-}
+/** A change to a key, as the contract's `UpdateKeyRequest` gives it. */
+export type UpdateKeyInput = components['schemas']['UpdateKeyRequest'];
 
 export interface ListKeysOptions {
   limit: number;

@@ -1,30 +1,17 @@
-import type { ApiKey, KeyRole } from '../db/models/api-key';
+import type { components } from '../../shared/contract/api-types';
+import type { ApiKey } from '../db/models/api-key';
 
-export type KeyStatus = 'active' | 'expired' | 'revoked';
+type Schemas = components['schemas'];
 
-/** What callers see of a key: never the hash, and the clear secret only in the answer to its creation. */
-export interface KeyView {
-  id: string;
-  name: string;
-  role: KeyRole;
-  kind: 'live' | 'test';
-  prefix: string;
-  lastFour: string;
-  ownerId: string;
-  createdById: string | null;
-  rateLimitPerMinute: number | null;
-  status: KeyStatus;
-  expiresAt: string | null;
-  revokedAt: string | null;
-  lastUsedAt: string | null;
-  createdAt: string;
-  updatedAt: string;
-}
+export type KeyStatus = Schemas['ApiKey']['status'];
 
-export interface CreatedKeyView extends KeyView {
-  /** The clear key. It is not stored anywhere and cannot be shown again. */
-  secret: string;
-}
+/**
+ * What callers see of a key (the contract's `ApiKey`): never the hash, and the clear secret only in the
+ * answer to its creation (`CreatedApiKey`, whose `secret` is stored nowhere and cannot be shown again).
+ */
+export type KeyView = Schemas['ApiKey'];
+
+export type CreatedKeyView = Schemas['CreatedApiKey'];
 
 const iso = (date: Date | null | undefined): string | null => (date ? date.toISOString() : null);
 

@@ -1,14 +1,9 @@
+import type { components } from '../../shared/contract/api-types';
 import { newId } from '../db/ids';
 import { pageOfList, type Page } from '../db/pagination';
 
-/** A message as the local fake mail server received it. */
-export interface OutboxMessage {
-  id: string;
-  to: string;
-  subject: string;
-  text: string;
-  sentAt: string;
-}
+/** A message as the local fake mail server received it (the contract's `OutboxMessage`). */
+export type OutboxMessage = components['schemas']['OutboxMessage'];
 
 /** How many messages the outbox keeps; older ones drop off so a long development session stays small. */
 export const OUTBOX_CAPACITY = 200;

@@ -1,42 +1,41 @@
+import type { components } from '../../shared/contract/api-types';
 import type { Measurement } from '../db/models/measurement';
 
-/** A few numbers that identify a measurement in a list, without its arrays. */
-function summaryOf(m: Measurement): Record<string, unknown> {
-  const r = m.result as Record<string, never>;
-  switch (m.kind) {
-    case 'impulseResponse': {
-      const { arrival, level, decay, timingReference } = r as unknown as {
-        arrival: { arrivalMs: number };
-        level: { peakDbfs: number; energyDb: number };
-        decay: { edtS: number | null; t20S: number | null; t30S: number | null };
-        timingReference?: { arrivalMs: number };
-      };
-      return {
-        arrivalMs: arrival.arrivalMs,
-        // What plans use as the loudspeaker's delay: the arrival counted from the timing reference.
-        ...(timingReference && { arrivalFromReferenceMs: arrival.arrivalMs - timingReference.arrivalMs }),
-        peakDbfs: level.peakDbfs,
-        energyDb: level.energyDb,
-        edtS: decay.edtS,
-        t20S: decay.t20S,
-        t30S: decay.t30S,
-      };
-    }
-    case 'frequencyResponse': {
-      const { frequenciesHz } = r as unknown as { frequenciesHz: number[] };
-      return {
-        points: frequenciesHz.length,
-        fromHz: frequenciesHz[0],
-        toHz: frequenciesHz[frequenciesHz.length - 1],
-      };
-    }
-    case 'spl':
-      return { splDb: r.splDb, weighting: r.weighting };
+type Schemas = components['schemas'];
+
+/**
+ * A few numbers that identify a measurement in a list, without its arrays (the contract's `summary`). The
+ * stored result's shape follows the kind: only an impulse response's analysis has an `arrival`, only a
+ * frequency response has top-level `frequenciesHz`.
+ */
+function summaryOf(m: Measurement): Schemas['Measurement']['summary'] {
+  const r = m.result;
+  if ('arrival' in r) {
+    const { arrival, level, decay, timingReference } = r;
+    return {
+      arrivalMs: arrival.arrivalMs,
+      // What plans use as the loudspeaker's delay: the arrival counted from the timing reference.
+      ...(timingReference && { arrivalFromReferenceMs: arrival.arrivalMs - timingReference.arrivalMs }),
+      peakDbfs: level.peakDbfs,
+      energyDb: level.energyDb,
+      edtS: decay.edtS,
+      t20S: decay.t20S,
+      t30S: decay.t30S,
+    };
   }
+  if ('frequenciesHz' in r) {
+    const { frequenciesHz } = r;
+    return {
+      points: frequenciesHz.length,
+      fromHz: frequenciesHz[0],
+      toHz: frequenciesHz[frequenciesHz.length - 1],
+    };
+  }
+  return { splDb: r.splDb, weighting: r.weighting };
 }
 
 /** The API shape of a stored measurement; lists leave out `result`. */
-export function measurementDto(m: Measurement, withResult: boolean) {
+export function measurementDto(m: Measurement, withResult: boolean): Schemas['Measurement'] {
   return {
     id: m.id,
     roomId: m.roomId,

@@ -1,14 +1,13 @@
+import type { components } from '../../shared/contract/api-types';
 import {
   parseFrequencyResponseText,
   requireFrequencyResponse,
-  type ParsedFrequencyResponse,
 } from '../../shared/analysis/frequency-response-text';
 import { decayPlotsOf, type DecayPlotOptions } from '../../shared/analysis/decay-plots';
-import type { DeconvolutionMethod } from '../../shared/capture/deconvolve';
 import type { PlayedSweep } from '../../shared/capture/sweep-wav';
 import { CalculationInputError } from '../../shared/errors';
 import { LIMITS } from '../../shared/limits';
-import type { MeasurementKind, MeasurementSource } from '../db/models/measurement';
+import type { MeasurementKind, MeasurementResult, MeasurementSource } from '../db/models/measurement';
 import type { Room } from '../db/models/room';
 import type { HeavyWork } from '../work/heavy-work';
 
@@ -16,39 +15,11 @@ import type { HeavyWork } from '../work/heavy-work';
 export interface MeasurementContent {
   kind: MeasurementKind;
   source: MeasurementSource;
-  result: Record<string, unknown>;
+  result: MeasurementResult;
 }
 
-export interface UploadForm {
-  channel: string;
-  micPosition: string;
-  fileChannel?: number;
-  smoothingOctaves?: number;
-  temperatureC?: number;
-  name?: string;
-  notes?: string;
-  referenceFileChannel?: number;
-  timingReferenceMs?: number;
-  fileKind?: FileKind;
-  startHz?: number;
-  endHz?: number;
-  durationS?: number;
-  fadeInS?: number;
-  fadeOutS?: number;
-  levelDbfs?: number;
-  method?: DeconvolutionMethod;
-  offsetS?: number;
-  lengthS?: number;
-  waterfall?: boolean;
-  spectrogram?: boolean;
-  decaySlices?: number;
-  decayBins?: number;
-  decayFromHz?: number;
-  decayToHz?: number;
-  decaySpanMs?: number;
-  waterfallWindowMs?: number;
-  spectrogramWindowMs?: number;
-}
+/** The fields of a multipart upload, as the contract gives them (the file travels separately). */
+export type UploadForm = Omit<components['schemas']['MeasurementUpload'], 'file'>;
 
 /** What an uploaded file holds. */
 export type FileKind = 'impulseResponse' | 'sweepRecording' | 'frequencyResponse';
@@ -298,9 +269,12 @@ function timingReferenceGiven(form: UploadForm): { source: 'given'; arrivalMs: n
   return form.timingReferenceMs === undefined ? null : { source: 'given', arrivalMs: form.timingReferenceMs };
 }
 
-export type JsonMeasurement =
-  | { kind: 'frequencyResponse'; response?: ParsedFrequencyResponse; text?: string }
-  | { kind: 'spl'; splDb: number; weighting?: 'A' | 'C' | 'Z'; timeWeighting?: 'slow' | 'fast' };
+/** What a JSON measurement body (the contract's `MeasurementCreate`) measures, without its labels. */
+export type JsonMeasurement = components['schemas']['MeasurementCreate'] extends infer Body
+  ? Body extends unknown
+    ? Omit<Body, 'channel' | 'micPosition' | 'name' | 'notes' | 'stage' | 'tuningId' | 'tuningVersion'>
+    : never
+  : never;
 
 /** A JSON measurement body as stored content. */
 export function contentFromJson(body: JsonMeasurement): MeasurementContent {

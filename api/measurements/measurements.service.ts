@@ -1,3 +1,4 @@
+import type { components } from '../../shared/contract/api-types';
 import { Op } from 'sequelize';
 import { powerAverageResampled } from '../../shared/analysis/spatial-average';
 import type { Database } from '../db/database';
@@ -16,21 +17,16 @@ import {
   contentFromJson,
   requireRoomChannel,
   type MeasurementContent,
-  type JsonMeasurement,
   type UploadForm,
 } from './measurement-input';
 
-type MeasurementView = ReturnType<typeof measurementDto>;
+type MeasurementView = components['schemas']['Measurement'];
 
-interface Labels {
-  channel: string;
-  micPosition?: string;
-  name?: string;
-  notes?: string;
-  tuningId?: string;
-  tuningVersion?: number;
-  stage?: 'before' | 'after';
-}
+/** What a measurement is labelled with, in an upload and a JSON body alike. */
+type Labels = Pick<
+  components['schemas']['MeasurementUpload'],
+  'channel' | 'micPosition' | 'name' | 'notes' | 'tuningId' | 'tuningVersion' | 'stage'
+>;
 
 /** Measurements of a stored room: uploads analysed on arrival and stored whole, or not at all. */
 export class MeasurementsService {
@@ -46,7 +42,9 @@ export class MeasurementsService {
   async create(
     caller: Caller,
     roomId: string,
-    input: { body: UploadForm; file: UploadedFile } | { body: JsonMeasurement & Labels; file?: undefined },
+    input:
+      | { body: UploadForm; file: UploadedFile }
+      | { body: components['schemas']['MeasurementCreate']; file?: undefined },
   ): Promise<MeasurementView> {
     const room = await findRoomFor(caller, this.db.models, roomId);
     requireRoomChannel(room, input.body.channel);
@@ -181,15 +179,15 @@ export class MeasurementsService {
  * unknown, so no SPL). SPL readings name no microphone.
  */
 export function correctedBy(content: MeasurementContent, mic: Microphone | undefined): MeasurementContent {
-  if (!mic || content.kind === 'spl') return content;
-  type Analysed = Parameters<typeof withMicrophone>[0];
-  if (content.kind === 'impulseResponse') {
+  const result = content.result;
+  // Only an impulse response's analysis has an `arrival`, only a frequency response top-level frequencies.
+  if (!mic || !('arrival' in result || 'frequenciesHz' in result)) return content;
+  if ('arrival' in result) {
     const played = content.source.sweep?.levelDbfs ?? 0;
-    return { ...content, result: withMicrophone(content.result as unknown as Analysed, mic, played) };
+    return { ...content, result: withMicrophone(result, mic, played) };
   }
-  const response = content.result as unknown as Analysed['frequencyResponse'];
   const { frequencyResponse, warnings, microphone } = withMicrophone(
-    { frequencyResponse: response, warnings: [] },
+    { frequencyResponse: result, warnings: [] },
     mic,
     null,
   );
@@ -214,10 +212,12 @@ function unusable(pointer: string, message: string): ProblemError {
   });
 }
 
-/** The magnitude response a stored measurement carries: an analysis's smoothed response, or the response itself. */
-function responseOf(m: Measurement): { frequenciesHz: number[]; magnitudeDb: number[] } {
-  type Response = { frequenciesHz: number[]; magnitudeDb: number[] };
-  return m.kind === 'impulseResponse'
-    ? (m.result as { frequencyResponse: Response }).frequencyResponse
-    : (m.result as unknown as Response);
+/**
+ * The magnitude response a stored measurement carries: an analysis's smoothed response, or the response
+ * itself. SPL readings carry none; the average leaves them out before asking.
+ */
+function responseOf({ result }: Measurement): { frequenciesHz: number[]; magnitudeDb: number[] } {
+  if ('arrival' in result) return result.frequencyResponse;
+  if ('frequenciesHz' in result) return result;
+  throw new Error('an SPL reading has no response to average');
 }

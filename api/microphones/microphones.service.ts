@@ -200,10 +200,7 @@ export class MicrophonesService {
   }
 }
 
-interface Warning {
-  code: string;
-  message: string;
-}
+type Warning = components['schemas']['Warning'];
 
 type Analysed = {
   frequencyResponse: { frequenciesHz: number[]; magnitudeDb: number[]; phaseDeg?: number[] };

@@ -1,3 +1,4 @@
+import type { components } from '../../shared/contract/api-types';
 import type { Transaction } from 'sequelize';
 import { roomStateChanges, type RoomState } from '../../shared/plan/room-state';
 import type { Models } from '../db/models';
@@ -41,10 +42,8 @@ export async function recordRoomState(models: Models, room: Room, transaction: T
   if (room.stateRevision !== revision) await room.update({ stateRevision: revision }, { transaction });
 }
 
-export interface Staleness {
-  since: string;
-  reasons: string[];
-}
+/** Since when and why a tuning's settings no longer match its room (the contract's `TuningStale`). */
+export type Staleness = components['schemas']['TuningStale'];
 
 /**
  * Whether settings made from room state `revision` are stale now: null when the room's current state

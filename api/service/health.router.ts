@@ -1,15 +1,14 @@
+import type { components } from '../../shared/contract/api-types';
 import { Router } from 'express';
 import { storageFailureProblem } from '../db/storage-errors';
 import { ProblemError } from '../http/problem';
 import type { Services } from '../services';
 
-/** One dependency as readiness reports it. */
-export interface DependencyState {
-  name: 'database' | 'redis';
-  /** What it is: `sqlite` or `postgresql` for the database, `redis` for the shared store. */
-  engine: string;
-  status: 'up' | 'down';
-}
+/**
+ * One dependency as readiness reports it (the contract's `DependencyState`): what it is, `sqlite` or
+ * `postgresql` for the database, `redis` for the shared store, and whether it answers.
+ */
+export type DependencyState = components['schemas']['DependencyState'];
 
 /** The 503 for a shared store (Redis) that does not answer: the server's state, not the request's fault. */
 export function sharedStateProblem(): ProblemError {
@@ -53,7 +52,7 @@ export function healthRouter(services: Pick<Services, 'db' | 'shared'>): Router 
       );
     const checks: Array<{
       name: DependencyState['name'];
-      engine: string;
+      engine: DependencyState['engine'];
       check: Promise<ProblemError | null>;
     }> = [
       {

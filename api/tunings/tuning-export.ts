@@ -1,3 +1,4 @@
+import type { operations } from '../../shared/contract/api-types';
 import { CalculationInputError } from '../../shared/errors';
 import { findLayout } from '../../shared/layouts';
 import { tuningCautions } from '../../shared/plan';
@@ -24,12 +25,10 @@ const CONVENTION =
 /** Rounding that costs more than this in any channel's EQ gets a caution, dB (common practice: 0.5 dB is audible at low frequencies). */
 const ROUNDING_CAUTION_DB = 0.5;
 
-export interface ExportQuery {
+/** `GET /v1/tunings/{tuningId}/export`'s query, the format filled in with the contract's default. */
+export type ExportQuery = NonNullable<operations['exportTuning']['parameters']['query']> & {
   format: 'json' | 'csv';
-  profile?: string;
-  sampleRateHz?: number;
-  version?: number;
-}
+};
 
 function refused(violations: ReturnType<typeof findLimitViolations>): ProblemError {
   return new ProblemError({

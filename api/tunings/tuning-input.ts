@@ -1,5 +1,5 @@
+import type { components } from '../../shared/contract/api-types';
 import { CalculationInputError } from '../../shared/errors';
-import type { FilterSpec } from '../../shared/filters/biquad-design';
 import {
   checkTuningSettings,
   planToTuningSettings,
@@ -10,22 +10,15 @@ import {
   type TuningSettings,
   type TuningSubwoofer,
 } from '../../shared/plan';
-import type { CrossoverSpec } from '../../shared/plan';
 import type { Room } from '../db/models/room';
 import type { ProcessorProfileSettings } from '../../shared/processor/profile';
 import type { HeavyWork } from '../work/heavy-work';
 
-/** A channel as a request gives it; everything but the id and the two numbers may be left out. */
-export interface ChannelInput {
-  id: string;
-  name?: string;
-  delayMs?: number;
-  trimDb?: number;
-  polarity?: 'normal' | 'inverted';
-  eq?: FilterSpec[];
-  highPass?: CrossoverSpec | null;
-  bassManaged?: boolean;
-}
+/**
+ * A channel as a request gives it (the contract's `TuningChannelInput`); everything but the id and the two
+ * numbers may be left out.
+ */
+export type ChannelInput = components['schemas']['TuningChannelInput'];
 
 export function toTuningChannel(input: ChannelInput, base?: TuningChannel): TuningChannel {
   const highPass = input.highPass !== undefined ? input.highPass : (base?.highPass ?? null);

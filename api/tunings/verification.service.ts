@@ -1,3 +1,4 @@
+import type { operations } from '../../shared/contract/api-types';
 import { verifyTuning, type Tolerances, type Verification } from '../../shared/verification/verify';
 import type { SignOff } from '../../shared/verification';
 import type { Database } from '../db/database';
@@ -5,16 +6,8 @@ import type { Measurement } from '../db/models/measurement';
 import { findTuningFor, type Caller } from '../rooms/room-access';
 import { findVersion, settingsOf } from './tuning-store';
 
-export interface VerificationQuery {
-  version?: number;
-  micPosition?: string;
-  referenceDb?: number;
-  arrivalToleranceMs?: number;
-  levelToleranceDb?: number;
-  responseRmsToleranceDb?: number;
-  responseMaxToleranceDb?: number;
-  crossoverDipToleranceDb?: number;
-}
+/** `GET /v1/tunings/{tuningId}/verification`'s query, as the contract gives it. */
+export type VerificationQuery = NonNullable<operations['getTuningVerification']['parameters']['query']>;
 
 export const storedMeasurement = (m: Measurement) => ({
   id: m.id,

@@ -1,3 +1,4 @@
+import type { components } from '../../shared/contract/api-types';
 import type { Transaction } from 'sequelize';
 import { recordAudit } from '../audit/record-audit';
 import { actorUserId, type Actor } from '../auth/actor';
@@ -13,7 +14,7 @@ import {
   INVITATION_LIFETIME_MS,
   invitationUrl,
 } from './invitation-token';
-import { toUserView, type UserView } from './user-view';
+import { toUserView } from './user-view';
 
 export interface InviteUserInput {
   email: string;
@@ -21,17 +22,14 @@ export interface InviteUserInput {
   name?: string | null;
 }
 
-export interface IssuedInvitation {
-  /** The one-time link; returned to the admin too, so it can be passed on by hand if the mail is lost. */
-  url: string;
-  expiresAt: string;
-  emailSent: boolean;
-}
+/** The answer to an invitation (the contract's `UserInvitationResult`). */
+export type InviteUserResult = components['schemas']['UserInvitationResult'];
 
-export interface InviteUserResult {
-  user: UserView;
-  invitation: IssuedInvitation;
-}
+/**
+ * The one-time link; returned to the admin too, so it can be passed on by hand if the mail is lost, and
+ * whether the mail left.
+ */
+export type IssuedInvitation = InviteUserResult['invitation'];
 
 type InvitationServices = Pick<Services, 'db' | 'config' | 'mail'>;
 

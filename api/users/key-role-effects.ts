@@ -1,21 +1,15 @@
+import type { components } from '../../shared/contract/api-types';
 import { Op, type Transaction } from 'sequelize';
 import { effectiveKeyRole } from '../auth/key-roles';
 import type { Models } from '../db/models';
-import type { KeyRole } from '../db/models/api-key';
 import type { UserRole } from '../db/models/user';
 
-/** What a change of its owner's role did to one key that was not revoked or expired. */
-export interface KeyRoleEffect {
-  id: string;
-  name: string;
-  prefix: string;
-  lastFour: string;
-  /** The role the key was created with; never changed by a role change. */
-  role: KeyRole;
-  /** What the key could do before and can do after the change; null when it can do nothing. */
-  effectiveRoleBefore: KeyRole | null;
-  effectiveRoleAfter: KeyRole | null;
-}
+/**
+ * What a change of its owner's role did to one key that was not revoked or expired (the contract's
+ * `UserUpdateResult.keys`): the role it was created with, never changed by a role change, and what it
+ * could do before and can do after; null when it can do nothing.
+ */
+export type KeyRoleEffect = NonNullable<components['schemas']['UserUpdateResult']['keys']>[number];
 
 /**
  * The owner's live keys whose effective role a change from `from` to `to` moves. Keys are kept as they

@@ -1,10 +1,11 @@
+import type { components } from '../../shared/contract/api-types';
 import { recordAudit, type AuditEntry } from '../audit/record-audit';
 import { actorUserId, type Actor } from '../auth/actor';
 import type { UserRole } from '../db/models/user';
 import { conflict, notFound } from '../http/problem';
 import type { Services } from '../services';
 import { keyRoleEffects, type KeyRoleEffect } from './key-role-effects';
-import { toUserView, type UserView } from './user-view';
+import { toUserView } from './user-view';
 
 export interface UpdateUserInput {
   role?: UserRole;
@@ -14,7 +15,7 @@ export interface UpdateUserInput {
 }
 
 /** The user after a change; after a role change also the keys whose effective role it moved. */
-export type UpdatedUserView = UserView & { keys?: KeyRoleEffect[] };
+export type UpdatedUserView = components['schemas']['UserUpdateResult'];
 
 /**
  * Changes a user's role, name or status. A role change takes effect on the user's keys at their next

@@ -1,16 +1,8 @@
-import type { User, UserRole, UserStatus } from '../db/models/user';
+import type { components } from '../../shared/contract/api-types';
+import type { User } from '../db/models/user';
 
-/** A user as `/v1/users` shows it: never the password hash. */
-export interface UserView {
-  id: string;
-  email: string;
-  name: string | null;
-  role: UserRole;
-  status: UserStatus;
-  lastSignInAt: string | null;
-  createdAt: string;
-  updatedAt: string;
-}
+/** A user as `/v1/users` shows it (the contract's `User`): never the password hash. */
+export type UserView = components['schemas']['User'];
 
 export function toUserView(user: User): UserView {
   return {

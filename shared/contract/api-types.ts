@@ -1581,6 +1581,84 @@ export type components = {
             /** @description Default: the top of the measurement, at most 20 kHz. */
             toHz?: number;
         };
+        /**
+         * @description What an impulse response's analysis finds (arrival, level, response, decay, room modes, decay plots),
+         *     without the uploaded file's details; a stored impulse-response measurement keeps this.
+         */
+        AnalysedImpulseResponse: {
+            arrival: {
+                arrivalMs: number;
+                arrivalSample: number;
+                peakMs: number;
+                peakSample: number;
+                /** @description Onset threshold used, dB re the peak. */
+                thresholdDb: number;
+            };
+            decay: components["schemas"]["DecayTimes"] & {
+                bands: (components["schemas"]["DecayTimes"] & {
+                    /** @description Exact IEC 61260-1 mid-band frequency. */
+                    centreHz: number;
+                    nominalHz: number;
+                })[];
+                impulseToNoiseDb: number;
+                /** @description Where the decay meets the noise, ms after the arrival. */
+                truncationMs: number;
+            };
+            durationS: number;
+            frequencyResponse: {
+                frequenciesHz: number[];
+                magnitudeDb: number[];
+                phaseDeg: number[];
+                smoothingOctaves: number;
+                /**
+                 * @description With a microphone that has a dBFS-to-SPL offset: the level a sine at `splForPeakDbfs` peak
+                 *     would produce at the microphone, dB SPL (`magnitudeDb + splForPeakDbfs − 3.01 + offset`; the
+                 *     sweep's level for a recorded sweep, 0 dBFS for an impulse response).
+                 */
+                splDb?: number[];
+                splForPeakDbfs?: number;
+            };
+            level: {
+                energyDb: number;
+                noiseFloorDbfs: number;
+                peakDbfs: number;
+                peakToNoiseDb: number;
+                rmsDbfs: number;
+            };
+            microphone?: components["schemas"]["MicrophoneCorrection"];
+            room?: {
+                modes: {
+                    frequencyHz: number;
+                    /** @enum {unknown} */
+                    kind: "axial" | "tangential" | "oblique";
+                    nx: number;
+                    ny: number;
+                    nz: number;
+                }[];
+                /**
+                 * @description Where the mode list ends and why: at the Schroeder frequency (`schroederFrequency`), or at 300 Hz
+                 *     when no decay time gave one (`noSchroederFrequency`); `found` modes lie below that limit and the
+                 *     lowest `listed` (at most 500) are listed — when fewer, `cutAtHz` is the last one listed. A room
+                 *     whose lowest mode lies above its Schroeder frequency (a very large room) lists none.
+                 */
+                modesLimit: {
+                    cutAtHz: number | null;
+                    found: number;
+                    listed: number;
+                    lowestModeHz: number;
+                    /** @enum {unknown} */
+                    reason: "schroederFrequency" | "noSchroederFrequency";
+                };
+                modesUpToHz: number;
+                schroederFrequencyHz: number | null;
+                speedOfSoundMps: number;
+                volumeM3: number;
+            };
+            sampleRateHz: number;
+            spectrogram?: components["schemas"]["DecayPlot"];
+            warnings: components["schemas"]["Warning"][];
+            waterfall?: components["schemas"]["DecayPlot"];
+        };
         /** @description `[min, max]` in degrees; an azimuth range runs anticlockwise (leftward) from min to max. A single value in the standard is `[v, v]`. */
         AngleRange: number[];
         ApiKey: {
@@ -2067,26 +2145,19 @@ export type components = {
             speakers: components["schemas"]["SpeakerGeometry"][];
             warnings: components["schemas"]["Warning"][];
         };
-        ImpulseResponseAnalysis: {
-            arrival: {
-                arrivalMs: number;
-                arrivalSample: number;
-                peakMs: number;
-                peakSample: number;
-                /** @description Onset threshold used, dB re the peak. */
-                thresholdDb: number;
-            };
-            decay: components["schemas"]["DecayTimes"] & {
-                bands: (components["schemas"]["DecayTimes"] & {
-                    /** @description Exact IEC 61260-1 mid-band frequency. */
-                    centreHz: number;
-                    nominalHz: number;
-                })[];
-                impulseToNoiseDb: number;
-                /** @description Where the decay meets the noise, ms after the arrival. */
-                truncationMs: number;
-            };
-            durationS: number;
+        /** @description The harmonic distortion a recorded sweep shows, per harmonic. */
+        HarmonicDistortion: {
+            harmonics: {
+                advanceS: number;
+                frequenciesHz: number[];
+                harmonic: number;
+                levelDb: number[];
+                percent: number[];
+            }[];
+            smoothingOctaves: number;
+        };
+        /** @description The analysis of an uploaded impulse response, with the file's details. */
+        ImpulseResponseAnalysis: components["schemas"]["AnalysedImpulseResponse"] & {
             file: {
                 channelCount: number;
                 channelIndex: number;
@@ -2096,59 +2167,6 @@ export type components = {
                 sampleRateHz: number;
                 sizeBytes: number;
             };
-            frequencyResponse: {
-                frequenciesHz: number[];
-                magnitudeDb: number[];
-                phaseDeg: number[];
-                smoothingOctaves: number;
-                /**
-                 * @description With a microphone that has a dBFS-to-SPL offset: the level a sine at `splForPeakDbfs` peak
-                 *     would produce at the microphone, dB SPL (`magnitudeDb + splForPeakDbfs − 3.01 + offset`; the
-                 *     sweep's level for a recorded sweep, 0 dBFS for an impulse response).
-                 */
-                splDb?: number[];
-                splForPeakDbfs?: number;
-            };
-            level: {
-                energyDb: number;
-                noiseFloorDbfs: number;
-                peakDbfs: number;
-                peakToNoiseDb: number;
-                rmsDbfs: number;
-            };
-            microphone?: components["schemas"]["MicrophoneCorrection"];
-            room?: {
-                modes: {
-                    frequencyHz: number;
-                    /** @enum {unknown} */
-                    kind: "axial" | "tangential" | "oblique";
-                    nx: number;
-                    ny: number;
-                    nz: number;
-                }[];
-                /**
-                 * @description Where the mode list ends and why: at the Schroeder frequency (`schroederFrequency`), or at 300 Hz
-                 *     when no decay time gave one (`noSchroederFrequency`); `found` modes lie below that limit and the
-                 *     lowest `listed` (at most 500) are listed — when fewer, `cutAtHz` is the last one listed. A room
-                 *     whose lowest mode lies above its Schroeder frequency (a very large room) lists none.
-                 */
-                modesLimit: {
-                    cutAtHz: number | null;
-                    found: number;
-                    listed: number;
-                    lowestModeHz: number;
-                    /** @enum {unknown} */
-                    reason: "schroederFrequency" | "noSchroederFrequency";
-                };
-                modesUpToHz: number;
-                schroederFrequencyHz: number | null;
-                speedOfSoundMps: number;
-                volumeM3: number;
-            };
-            sampleRateHz: number;
-            spectrogram?: components["schemas"]["DecayPlot"];
-            warnings: components["schemas"]["Warning"][];
-            waterfall?: components["schemas"]["DecayPlot"];
         };
         ImpulseResponseUpload: {
             /** @description 0-based channel to analyse; required when the file has more than one channel. */
@@ -2347,10 +2365,60 @@ export type components = {
         ListMeta: {
             hasMore: boolean;
         };
+        /** @description Arrivals counted from the loopback (timing reference) channel of a recorded sweep. */
+        LoopbackTiming: {
+            arrivalFromReferenceMs: number;
+            arrivalFromReferenceSamples: number;
+            peakFromReferenceMs: number;
+            peakFromReferenceSamples: number;
+            referenceArrivalMs: number;
+            referenceArrivalSample: number;
+            referencePeakSample: number;
+        };
         /** @description A magnitude response; frequencies ascending, one level per frequency. */
         MagnitudeResponse: {
             frequenciesHz: number[];
             magnitudeDb: number[];
+        };
+        /**
+         * @description The `result` of a frequency-response measurement: the response as uploaded (frequencies ascending)
+         *     and, with a microphone, corrected by its calibration.
+         */
+        MeasuredFrequencyResponse: {
+            frequenciesHz: number[];
+            magnitudeDb: number[];
+            microphone?: components["schemas"]["MicrophoneCorrection"];
+            phaseDeg?: number[];
+            warnings?: components["schemas"]["Warning"][];
+        };
+        /**
+         * @description The `result` of an impulse-response measurement: its analysis and, from a recorded sweep, the
+         *     deconvolution and distortion; with a timing reference, that reference's arrival.
+         */
+        MeasuredImpulseResponse: components["schemas"]["AnalysedImpulseResponse"] & {
+            deconvolution?: components["schemas"]["SweepDeconvolution"];
+            distortion?: components["schemas"]["HarmonicDistortion"];
+            timing?: components["schemas"]["LoopbackTiming"];
+            /**
+             * @description The timing reference's arrival: detected in the loopback channel `fileChannel` of the file
+             *     (`loopback`), or as the capture tool gave it (`given`, `timingReferenceMs`). Plans count the
+             *     loudspeaker's arrival from it.
+             */
+            timingReference?: {
+                arrivalMs: number;
+                fileChannel?: number;
+                /** @enum {unknown} */
+                source: "loopback" | "given";
+            };
+        };
+        /** @description The `result` of an SPL reading. */
+        MeasuredSplReading: {
+            /** @description dB re 20 µPa. */
+            splDb: number;
+            /** @enum {unknown} */
+            timeWeighting: "slow" | "fast";
+            /** @enum {unknown} */
+            weighting: "A" | "C" | "Z";
         };
         /** @description The version of `tuningId` that was loaded (default its latest); needs `tuningId`. */
         MeasuredTuningVersion: number;
@@ -2370,9 +2438,9 @@ export type components = {
              *     loopback `timing` and `timingReference`); with `waterfall`/`spectrogram` asked for at upload, those
              *     decay plots too (up to 128 × 256 levels each). Frequency
              *     response: `frequenciesHz`, `magnitudeDb` and, when given, `phaseDeg`. SPL: `splDb`, `weighting`,
-             *     `timeWeighting`. Left out of lists.
+             *     `timeWeighting`. Which one follows `kind`. Left out of lists.
              */
-            result?: Record<string, never>;
+            result?: components["schemas"]["MeasuredImpulseResponse"] | components["schemas"]["MeasuredFrequencyResponse"] | components["schemas"]["MeasuredSplReading"];
             roomId: string;
             /** @description What was uploaded (the audio itself is not kept). */
             source: {
@@ -2407,7 +2475,35 @@ export type components = {
             /** @enum {unknown} */
             stage: "before" | "after";
             /** @description A few numbers for lists: arrival (and, with a timing reference, arrivalFromReferenceMs), level and decay times; points and range; or the SPL. */
-            summary: Record<string, never>;
+            summary: {
+                /** @description Impulse response with a timing reference: arrival counted from it, ms. */
+                arrivalFromReferenceMs?: number;
+                /** @description Impulse response: arrival, ms. */
+                arrivalMs?: number;
+                /** @description Impulse response: early decay time. */
+                edtS?: number | null;
+                /** @description Impulse response: energy. */
+                energyDb?: number;
+                /** @description Frequency response: lowest frequency. */
+                fromHz?: number;
+                /** @description Impulse response: peak level. */
+                peakDbfs?: number;
+                /** @description Frequency response: number of points. */
+                points?: number;
+                /** @description SPL reading, dB re 20 µPa. */
+                splDb?: number;
+                /** @description Impulse response: T20. */
+                t20S?: number | null;
+                /** @description Impulse response: T30. */
+                t30S?: number | null;
+                /** @description Frequency response: highest frequency. */
+                toHz?: number;
+                /**
+                 * @description SPL reading: frequency weighting.
+                 * @enum {unknown}
+                 */
+                weighting?: "A" | "C" | "Z";
+            };
             tuningId: string | null;
             tuningVersion: number | null;
         };
@@ -3135,33 +3231,18 @@ export type components = {
             /** @constant */
             source: "geometry";
         };
+        /** @description How a recorded sweep was turned into an impulse response. */
+        SweepDeconvolution: {
+            fftSize: number;
+            /** @description Samples of linear response analysed. */
+            linearSamples: number;
+            /** @enum {unknown} */
+            method: "regularizedDivision" | "inverseFilter";
+        };
         SweepRecordingAnalysis: components["schemas"]["ImpulseResponseAnalysis"] & {
-            deconvolution: {
-                fftSize: number;
-                /** @description Samples of linear response analysed. */
-                linearSamples: number;
-                /** @enum {unknown} */
-                method: "regularizedDivision" | "inverseFilter";
-            };
-            distortion: {
-                harmonics: {
-                    advanceS: number;
-                    frequenciesHz: number[];
-                    harmonic: number;
-                    levelDb: number[];
-                    percent: number[];
-                }[];
-                smoothingOctaves: number;
-            };
-            timing?: {
-                arrivalFromReferenceMs: number;
-                arrivalFromReferenceSamples: number;
-                peakFromReferenceMs: number;
-                peakFromReferenceSamples: number;
-                referenceArrivalMs: number;
-                referenceArrivalSample: number;
-                referencePeakSample: number;
-            };
+            deconvolution: components["schemas"]["SweepDeconvolution"];
+            distortion: components["schemas"]["HarmonicDistortion"];
+            timing?: components["schemas"]["LoopbackTiming"];
         };
         SweepRecordingUpload: {
             /** @description 0-based channel holding the microphone; required when the file has more than one channel. */

@@ -2,7 +2,7 @@ import request from 'supertest';
 import { WaveFile } from 'wavefile';
 import { STAGE3_ROOM } from '../../seeds/demo-stage3-room';
 import { noisyDecay } from '../../shared/analysis/test-signals';
-import { expectToMatchContract } from '../support/contract';
+import { expectToMatchContract, responseValidator } from '../support/contract';
 import { createTestContext, type TestContext } from '../support/test-context';
 import { expectProblem } from './calculation-helpers';
 import { expectAnswered } from '../support/presentation';
@@ -83,12 +83,23 @@ describe('stored measurements', () => {
     expect(read.body.result.frequencyResponse.magnitudeDb).toEqual(
       res.body.result.frequencyResponse.magnitudeDb,
     );
+    // The contract types the result by kind: the same answer with the analysis's arrival gone, a frequency
+    // response whose levels are not numbers, or an SPL reading with an unknown weighting matches none.
+    const validate = responseValidator('getMeasurement', 200)!;
+    const { arrival: _arrival, ...withoutArrival } = read.body.result;
+    expect(validate({ ...read.body, result: withoutArrival })).toBe(false);
+    expect(validate({ ...read.body, result: { frequenciesHz: [20], magnitudeDb: 'loud' } })).toBe(false);
+    expect(validate({ ...read.body, result: { splDb: 84, weighting: 'B', timeWeighting: 'slow' } })).toBe(
+      false,
+    );
+    expect(validate(read.body)).toBe(true);
   });
 
   it('stores a text frequency response from a file and from JSON, and an SPL reading', async () => {
     const text = '# demo data\nFreq(Hz);dB;deg\n20;80,5;0\n40;82;-10\n80;79,25;-20\n';
     const fromFile = await postFile(Buffer.from(text), 'left.txt', { channel: 'M+030', micPosition: '1' });
     expect(fromFile.status).toBe(201);
+    expectToMatchContract('createMeasurement', 201, fromFile.body);
     expect(fromFile.body.result).toEqual({
       frequenciesHz: [20, 40, 80],
       magnitudeDb: [80.5, 82, 79.25],
@@ -102,6 +113,7 @@ describe('stored measurements', () => {
       text: '20 74.5\n40 76\n80 73.25',
     });
     expect(fromJson.status).toBe(201);
+    expectToMatchContract('createMeasurement', 201, fromJson.body);
     expect(fromJson.body.source).toEqual({ type: 'text' });
 
     const spl = await postJson({ kind: 'spl', channel: 'M+000', splDb: 84.6 });

@@ -1,3 +1,4 @@
+import type { components } from '../../../shared/contract/api-types';
 import {
   DataTypes,
   Model,
@@ -12,29 +13,11 @@ export type MeasurementKind = 'impulseResponse' | 'frequencyResponse' | 'spl';
 export type MeasurementStage = 'before' | 'after';
 
 /** What was uploaded: the file's name and, for audio, its format (the audio itself is not kept). */
-export interface MeasurementSource {
-  type: 'wav' | 'text' | 'json';
-  fileName?: string;
-  sizeBytes?: number;
-  sampleRateHz?: number;
-  channelCount?: number;
-  channelIndex?: number;
-  encoding?: string;
-  durationS?: number;
-  /** Set for a recorded sweep (the file was deconvolved), with the sweep that was played. */
-  fileKind?: 'sweepRecording';
-  sweep?: {
-    startHz: number;
-    endHz: number;
-    durationS: number;
-    fadeInS: number;
-    fadeOutS: number;
-    levelDbfs: number;
-    method: string;
-    offsetS: number;
-    lengthS?: number;
-  };
-}
+/** What a measurement stores as its `result`, as the contract describes it (one shape per kind). */
+export type MeasurementResult = NonNullable<components['schemas']['Measurement']['result']>;
+
+/** What was uploaded, as the contract describes it (the audio itself is not kept). */
+export type MeasurementSource = components['schemas']['Measurement']['source'];
 
 /**
  * One measurement of one loudspeaker (channel) at one microphone position in a room: an impulse
@@ -51,7 +34,7 @@ export class Measurement extends Model<InferAttributes<Measurement>, InferCreati
   declare notes: string | null;
   declare source: MeasurementSource;
   /** The analysis (impulse response), the response arrays (frequency response) or the reading (SPL). */
-  declare result: Record<string, unknown>;
+  declare result: MeasurementResult;
   declare createdByKeyId: string | null;
   /** The tuning (and version) loaded in the processor when it was taken, if any. */
   declare tuningId: CreationOptional<string | null>;

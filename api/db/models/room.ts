@@ -1,3 +1,4 @@
+import type { components } from '../../../shared/contract/api-types';
 import {
   DataTypes,
   Model,
@@ -15,16 +16,8 @@ export interface StoredLoudspeaker {
   z: number;
 }
 
-export interface StoredLimits {
-  delayMaxMs?: number;
-  trimMinDb?: number;
-  trimMaxDb?: number;
-  eqBandsPerChannel?: number;
-  eqMaxBoostDb?: number;
-  eqMaxCutDb?: number;
-  frequencyMinHz?: number;
-  frequencyMaxHz?: number;
-}
+/** The processor's limits a room stores, as the contract's `Limits` gives them. */
+export type StoredLimits = components['schemas']['Limits'];
 
 /** A listening room: dimensions, listening position, loudspeakers and the processor's limits. */
 export class Room extends Model<InferAttributes<Room>, InferCreationAttributes<Room>> {

@@ -1,5 +1,12 @@
 import type { ProcessorProfile, Room } from '../app/rooms/room.model';
 import type { Tuning, TuningChannel, TuningVersion } from '../app/tunings/tuning.model';
+import type {
+  ImpulseResponseAnalysis,
+  Measurement,
+  StoredTargetCurve,
+} from '../app/rooms/room-measurements/measurement.model';
+import { analyzeImpulseResponse } from '../../../shared/analysis/analyze-impulse-response';
+import { noisyDecay } from '../../../shared/analysis/test-signals';
 import { STAGE3_PROFILE, STAGE3_ROOM } from '../../../seeds/demo-stage3-room';
 import { roomGeometry } from '../../../shared/geometry';
 import { findLayout } from '../../../shared/layouts';
@@ -124,6 +131,71 @@ export function demoVersion(version: number, overrides: Partial<TuningVersion> =
     sampleRateHz: tuning.sampleRateHz,
     channels: tuning.channels,
     subwoofer: tuning.subwoofer,
+    ...overrides,
+  };
+}
+
+/**
+ * A synthetic impulse response of Stage 3's left side surround (2.80 m away, invented T60 0.30 s, noise
+ * at −75 dB), analysed as the API does (the shared analysis, with the room's dimensions for its modes).
+ */
+export function demoImpulseResponse(): ImpulseResponseAnalysis {
+  const fs = 48000;
+  const arrival = Math.round((2.8 / 343.2) * fs);
+  const samples = noisyDecay({
+    sampleRateHz: fs,
+    durationS: 1,
+    t60S: 0.3,
+    startSample: arrival,
+    startRms: 0.05,
+    noiseDb: -75,
+    seed: 3,
+  });
+  samples[arrival] += 0.7;
+  // As it reaches the console: JSON.
+  return JSON.parse(
+    JSON.stringify(analyzeImpulseResponse(samples, fs, { room: STAGE3_ROOM.dimensions })),
+  ) as ImpulseResponseAnalysis;
+}
+
+/**
+ * A stored measurement of Stage 3 as `GET /v1/rooms/{roomId}/measurements` lists it (no `result`; give one
+ * for the detail): taken before any tuning, at the main listening position, with an empty summary unless
+ * `overrides` give the kind's numbers.
+ */
+export function demoMeasurement(
+  overrides: Partial<Measurement> & Pick<Measurement, 'id' | 'kind'>,
+): Measurement {
+  return {
+    roomId: ROOM_ID,
+    channel: 'M+030',
+    micPosition: 'MLP',
+    name: null,
+    notes: null,
+    source: overrides.kind === 'impulseResponse' ? { type: 'wav' } : { type: 'json' },
+    summary: {},
+    stage: 'before',
+    tuningId: null,
+    tuningVersion: null,
+    createdAt: '2026-03-02T09:00:00.000Z',
+    ...overrides,
+  };
+}
+
+/** A stored target curve as `GET /v1/target-curves` lists it. */
+export function demoTargetCurve(overrides: Partial<StoredTargetCurve> = {}): StoredTargetCurve {
+  return {
+    id: 'tc_warm',
+    ownerId: 'usr_1',
+    name: 'Warm small room',
+    notes: null,
+    points: [
+      { frequencyHz: 20, gainDb: 3 },
+      { frequencyHz: 200, gainDb: 0 },
+      { frequencyHz: 20000, gainDb: -3 },
+    ],
+    createdAt: '2026-03-01T12:00:00.000Z',
+    updatedAt: '2026-03-01T12:00:00.000Z',
     ...overrides,
   };
 }

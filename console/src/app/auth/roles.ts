@@ -1,7 +1,7 @@
-/** Console user roles, as the platform defines them. */
-export type UserRole = 'admin' | 'developer' | 'viewer';
-
 import type { components } from '../../../../shared/contract/api-types';
+
+/** Console user roles, as the platform defines them. */
+export type UserRole = components['schemas']['SessionUser']['role'];
 
 /** A permission of the server's own table, as the session answer lists them for the signed-in user. */
 export type Permission = components['schemas']['SessionBody']['permissions'][number];

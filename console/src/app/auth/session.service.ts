@@ -1,20 +1,14 @@
 import { HttpClient, HttpErrorResponse } from '@angular/common/http';
 import { Injectable, computed, inject, signal } from '@angular/core';
 import { Observable, catchError, map, of, shareReplay, tap } from 'rxjs';
-import { Capability, Permission, UserRole, can } from './roles';
+import type { components } from '../../../../shared/contract/api-types';
+import { Capability, Permission, can } from './roles';
 
 /** The signed-in console user, as `GET /auth/session` returns it. */
-export interface SessionUser {
-  id: string;
-  email: string;
-  role: UserRole;
-  name?: string | null;
-}
+export type SessionUser = components['schemas']['SessionUser'];
 
-interface SessionBody {
-  user: SessionUser;
-  permissions: Permission[];
-}
+/** `GET /auth/session`, `POST /auth/session` and `POST /auth/invitations/accept` answer this. */
+type SessionBody = components['schemas']['SessionBody'];
 
 /** Holds who is signed in; every page reads it through signals. */
 @Injectable({ providedIn: 'root' })

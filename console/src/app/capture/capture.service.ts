@@ -1,29 +1,40 @@
 import { HttpClient, HttpErrorResponse, HttpHeaders } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable, catchError, map, throwError } from 'rxjs';
-import type { components } from '../../../../shared/contract/api-types';
-import type { Measurement } from '../rooms/room-measurements/measurement.model';
+import type { components, operations } from '../../../../shared/contract/api-types';
+import {
+  impulseResponseOf,
+  type ImpulseResponseAnalysis,
+  type Measurement,
+} from '../rooms/room-measurements/measurement.model';
 
-export type TestSignalDescription = components['schemas']['TestSignal'];
+type Schemas = components['schemas'];
 
-/** The sweep played: what `POST /v1/test-signals` makes and what the deconvolution needs to know. */
-export interface SweepSettings {
-  sampleRateHz: number;
-  startHz: number;
-  endHz: number;
-  durationS: number;
-  fadeInS: number;
-  fadeOutS: number;
-  levelDbfs: number;
-}
+export type TestSignalDescription = Schemas['TestSignal'];
+
+/**
+ * The sweep played: what `POST /v1/test-signals` makes and what the deconvolution needs to know (the page
+ * always gives every one of these, at the browser's own rate).
+ */
+export type SweepSettings = Required<
+  Pick<
+    Schemas['TestSignalRequest'],
+    'sampleRateHz' | 'startHz' | 'endHz' | 'durationS' | 'fadeInS' | 'fadeOutS' | 'levelDbfs'
+  >
+>;
+
+/** `POST /v1/analysis/sweep`'s answer: the take's analysis, with the file's details. */
+export type SweepAnalysis =
+  operations['analyzeSweepRecording']['responses'][200]['content']['application/json'];
 
 /** A recorded take analysed: stored as a measurement, or (on a server without stored sweeps) only analysed. */
 export interface TakeResult {
   stored: Measurement | null;
-  analysis: Record<string, unknown>;
+  analysis: ImpulseResponseAnalysis;
 }
 
-function sweepRequest(sweep: SweepSettings) {
+function sweepRequest(sweep: SweepSettings): Schemas['TestSignalRequest'] {
+  // A single float sweep without trailing silence: the recording's length is the page's own choice.
   return { kind: 'sweep', encoding: 'float32', silenceAfterS: 0, ...sweep };
 }
 
@@ -76,7 +87,11 @@ export class CaptureService {
     form.append('name', `${channel} swept from the browser`);
     form.append('file', wav, `${channel}-sweep.wav`);
     return this.http.post<Measurement>(`/v1/rooms/${encodeURIComponent(roomId)}/measurements`, form).pipe(
-      map((stored) => ({ stored, analysis: stored.result ?? {} })),
+      map((stored) => {
+        const analysis = impulseResponseOf(stored);
+        if (!analysis) throw new Error('The stored take came back without its impulse-response analysis.');
+        return { stored, analysis };
+      }),
       catchError((error: unknown) =>
         refusesSweepUploads(error)
           ? this.analyse(wav, sweep, referenceChannel, decayFields).pipe(
@@ -93,14 +108,14 @@ export class CaptureService {
     sweep: SweepSettings,
     referenceChannel: number | null,
     decayFields: Array<[string, string]> = [],
-  ): Observable<Record<string, unknown>> {
+  ): Observable<SweepAnalysis> {
     const form = new FormData();
     form.append('channel', '0');
     if (referenceChannel !== null) form.append('referenceChannel', String(referenceChannel));
     sweepFields(form, sweep);
     for (const [field, value] of decayFields) form.append(field, value);
     form.append('file', wav, 'take.wav');
-    return this.http.post<Record<string, unknown>>('/v1/analysis/sweep', form);
+    return this.http.post<SweepAnalysis>('/v1/analysis/sweep', form);
   }
 }
 

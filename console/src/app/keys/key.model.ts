@@ -15,8 +15,5 @@ export type NewKeyRequest = Schemas['CreateKeyRequest'];
 
 export type KeyChanges = Schemas['UpdateKeyRequest'];
 
-/** One page of a list, as every list of the API answers it. */
-export interface ListPage<T> {
-  data: T[];
-  hasMore: boolean;
-}
+/** One page of a list, as every list of the API answers it (the contract's `ListMeta` and the page's items). */
+export type ListPage<T> = Schemas['ListMeta'] & { data: T[] };

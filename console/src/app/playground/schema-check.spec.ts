@@ -93,6 +93,21 @@ describe('checkAgainstSchema on hand-made cases', () => {
     ).toEqual([{ pointer: '/filters/0/q', message: 'must be number or null' }]);
   });
 
+  it('checks a full date as ajv-formats does: the form and a day that exists', () => {
+    const day: JsonSchema = { type: 'string', format: 'date' };
+    for (const value of ['2026-03-14', '2024-02-29', '2000-02-29']) {
+      expect({ value, problems: checkAgainstSchema(value, day, {}) }).toEqual({ value, problems: [] });
+      expect(ajv.validate(day, value)).toBe(true);
+    }
+    for (const value of ['3.2 m', '2026-3-14', '2026-02-29', '1900-02-29', '2026-13-01', '2026-04-31', '']) {
+      expect({ value, problems: checkAgainstSchema(value, day, {}) }).toEqual({
+        value,
+        problems: [{ pointer: '', message: 'must be an RFC 3339 date such as 2026-03-14' }],
+      });
+      expect(ajv.validate(day, value)).toBe(false);
+    }
+  });
+
   it('resolves local references against the root document', () => {
     const root = { components: { schemas: { Rate: { type: 'integer', minimum: 8000 } } } };
     expect(checkAgainstSchema(4000, { $ref: '#/components/schemas/Rate' }, root)).toEqual([

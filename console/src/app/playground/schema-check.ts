@@ -131,6 +131,9 @@ class Checker {
     ) {
       problems.push({ pointer, message: 'must be an RFC 3339 date-time such as 2026-03-14T09:30:00Z' });
     }
+    if (s.format === 'date' && !isCalendarDate(value)) {
+      problems.push({ pointer, message: 'must be an RFC 3339 date such as 2026-03-14' });
+    }
     if (s.format === 'email' && !/^[^\s@]+@[^\s@]+\.[^\s@]+$/.test(value)) {
       problems.push({ pointer, message: 'must be an e-mail address' });
     }
@@ -211,10 +214,20 @@ function closest(branches: SchemaProblem[][], pointer: string): SchemaProblem[] 
   return best;
 }
 
+/** RFC 3339 full-date: YYYY-MM-DD of a day that exists (leap years by the Gregorian rule), as ajv-formats checks it. */
+function isCalendarDate(value: string): boolean {
+  const match = /^(\d{4})-(\d{2})-(\d{2})$/.exec(value);
+  if (!match) return false;
+  const [year, month, day] = match.slice(1).map(Number);
+  const leap = year % 4 === 0 && (year % 100 !== 0 || year % 400 === 0);
+  const days = [31, leap ? 29 : 28, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31];
+  return month >= 1 && month <= 12 && day >= 1 && day <= days[month - 1];
+}
+
 /**
  * Checks a value against a JSON Schema 2020-12 schema from the OpenAPI document, resolving local
- * `$ref`s against `root`. Covers the keywords the contract uses; formats other than date-time and
- * e-mail, and patterns the browser cannot compile, are left to the server, which checks everything.
+ * `$ref`s against `root`. Covers the keywords the contract uses; formats other than date-time, date
+ * and e-mail, and patterns the browser cannot compile, are left to the server, which checks everything.
  */
 export function checkAgainstSchema(
   value: unknown,

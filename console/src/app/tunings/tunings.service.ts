@@ -1,4 +1,5 @@
 import type { TuningExport } from './export-summary';
+import type { operations } from '../../../../shared/contract/api-types';
 import { HttpClient, HttpHeaders, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { EMPTY, Observable, expand, map, reduce } from 'rxjs';
@@ -61,7 +62,8 @@ export class TuningsService {
   }
 
   duplicate(tuningId: string, name: string, version?: number): Observable<Tuning> {
-    return this.http.post<Tuning>(`${path(tuningId)}/duplicate`, version ? { name, version } : { name });
+    const body: DuplicateRequest = version ? { name, version } : { name };
+    return this.http.post<Tuning>(`${path(tuningId)}/duplicate`, body);
   }
 
   /** Differences right minus left; either side may be any version of any tuning. */
@@ -97,11 +99,16 @@ export class TuningsService {
   }
 }
 
-/** A processor export's choices. */
-export interface ExportOptions {
-  profile?: string;
-  sampleRateHz?: number;
-}
+/** A processor export's choices: the contract's query parameters other than the format and version. */
+export type ExportOptions = Pick<
+  NonNullable<operations['exportTuning']['parameters']['query']>,
+  'profile' | 'sampleRateHz'
+>;
+
+/** `POST /v1/tunings/{tuningId}/duplicate`. */
+type DuplicateRequest = NonNullable<
+  operations['duplicateTuning']['requestBody']
+>['content']['application/json'];
 
 function exportParams(
   format: 'json' | 'csv',

@@ -9,7 +9,7 @@ import {
 } from './usage-series';
 
 function row(route: string, bucket: string, count: number, errorCount = 0, keyId = 'key_a'): UsageRow {
-  return { keyId, route, bucket, count, errorCount };
+  return { keyId, keyName: null, route, bucket, count, errorCount, userId: null };
 }
 
 const rows: UsageRow[] = [

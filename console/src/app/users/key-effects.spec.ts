@@ -1,8 +1,12 @@
 import { keyEffectsSummary, type KeyRoleEffect } from './key-effects';
 
-const key = (name: string, role: string, after: string | null): KeyRoleEffect => ({
+type Role = KeyRoleEffect['role'];
+
+const key = (name: string, role: Role, after: Role | null): KeyRoleEffect => ({
   id: `key_${name}`,
   name,
+  prefix: 'iso_live_',
+  lastFour: 'a1b2',
   role,
   effectiveRoleBefore: role,
   effectiveRoleAfter: after,

@@ -1,11 +1,7 @@
+import type { UserUpdateResult } from './user.model';
+
 /** One key whose effective role a change of its owner's role moved (the `keys` of `PATCH /v1/users/{id}`). */
-export interface KeyRoleEffect {
-  id: string;
-  name: string;
-  role: string;
-  effectiveRoleBefore: string | null;
-  effectiveRoleAfter: string | null;
-}
+export type KeyRoleEffect = NonNullable<UserUpdateResult['keys']>[number];
 
 /** A sentence for the admin who changed the role: what happened to the user's keys, or '' when nothing. */
 export function keyEffectsSummary(keys: readonly KeyRoleEffect[] | undefined): string {

@@ -14,5 +14,11 @@ export type InvitationResult = Schemas['UserInvitationResult'];
 
 export type UserChanges = operations['updateUser']['requestBody']['content']['application/json'];
 
+/** The answer to `PATCH /v1/users/{userId}`: the user and, after a role change, the keys it moved. */
+export type UserUpdateResult = Schemas['UserUpdateResult'];
+
+/** `GET /v1/outbox`. */
+export type OutboxList = operations['listOutbox']['responses'][200]['content']['application/json'];
+
 /** One message the development mail server received. */
 export type OutboxMessage = Schemas['OutboxMessage'];

@@ -39,17 +39,22 @@ describe('UsersService', () => {
     reissue.flush({});
   });
 
-  it('reads the user from an update answer whether or not it is wrapped', async () => {
-    const plain = firstValueFrom(users.update('usr_1', { role: 'developer' }));
-    const first = http.expectOne('/v1/users/usr_1');
-    expect(first.request.method).toBe('PATCH');
-    expect(first.request.body).toEqual({ role: 'developer' });
-    first.flush({ id: 'usr_1', role: 'developer' });
-    expect(await plain).toEqual({ id: 'usr_1', role: 'developer' });
-
-    const wrapped = firstValueFrom(users.update('usr_1', { status: 'disabled' }));
-    http.expectOne('/v1/users/usr_1').flush({ user: { id: 'usr_1', status: 'disabled' } });
-    expect(await wrapped).toEqual({ id: 'usr_1', status: 'disabled' });
+  it('answers the updated user with the keys a role change moved', async () => {
+    const update = firstValueFrom(users.update('usr_1', { role: 'viewer' }));
+    const request = http.expectOne('/v1/users/usr_1');
+    expect(request.request.method).toBe('PATCH');
+    expect(request.request.body).toEqual({ role: 'viewer' });
+    const moved = {
+      id: 'key_rig',
+      name: 'Rig',
+      prefix: 'iso_live_',
+      lastFour: 'a1b2',
+      role: 'tuning' as const,
+      effectiveRoleBefore: 'tuning' as const,
+      effectiveRoleAfter: null,
+    };
+    request.flush({ id: 'usr_1', role: 'viewer', keys: [moved] });
+    expect(await update).toEqual({ id: 'usr_1', role: 'viewer', keys: [moved] });
   });
 
   it('unwraps the outbox messages', async () => {

@@ -2,7 +2,15 @@ import { HttpClient, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { EMPTY, Observable, expand, map, reduce } from 'rxjs';
 import { ListPage } from '../keys/key.model';
-import { ConsoleUser, InvitationResult, InviteRequest, OutboxMessage, UserChanges } from './user.model';
+import {
+  ConsoleUser,
+  InvitationResult,
+  InviteRequest,
+  OutboxList,
+  OutboxMessage,
+  UserChanges,
+  UserUpdateResult,
+} from './user.model';
 
 @Injectable({ providedIn: 'root' })
 export class UsersService {
@@ -35,17 +43,11 @@ export class UsersService {
     return this.http.post<InvitationResult>(`/v1/users/${encodeURIComponent(id)}/invitations`, {});
   }
 
-  update(id: string, changes: UserChanges): Observable<ConsoleUser> {
-    return this.http
-      .patch<ConsoleUser | { user: ConsoleUser }>(`/v1/users/${encodeURIComponent(id)}`, changes)
-      .pipe(map(unwrapUser));
+  update(id: string, changes: UserChanges): Observable<UserUpdateResult> {
+    return this.http.patch<UserUpdateResult>(`/v1/users/${encodeURIComponent(id)}`, changes);
   }
 
   outbox(): Observable<OutboxMessage[]> {
-    return this.http.get<{ data: OutboxMessage[] }>('/v1/outbox').pipe(map((body) => body.data));
+    return this.http.get<OutboxList>('/v1/outbox').pipe(map((body) => body.data));
   }
-}
-
-function unwrapUser(body: ConsoleUser | { user: ConsoleUser }): ConsoleUser {
-  return 'user' in body ? body.user : body;
 }

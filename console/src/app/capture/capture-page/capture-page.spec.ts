@@ -6,6 +6,8 @@ import { MatButtonHarness } from '@angular/material/button/testing';
 import { MatDialogHarness } from '@angular/material/dialog/testing';
 import { provideRouter } from '@angular/router';
 import { afterEach, vi } from 'vitest';
+import type { Measurement } from '../../rooms/room-measurements/measurement.model';
+import { demoImpulseResponse, demoMeasurement } from '../../../testing/fixtures';
 import { AudioCapture } from '../audio-capture';
 import { CapturePage } from './capture-page';
 
@@ -20,23 +22,29 @@ const ROOM = {
 
 const CAUTION = 'The sweep peaks at −20.0 dBFS: start with the monitors turned down.';
 
-/** What the API answers for a stored take: the analysis of the recorded sweep, with a small waterfall. */
-function storedTake(channel: string) {
-  return {
+const analysis = demoImpulseResponse();
+
+/**
+ * What the API answers for a stored take: the analysis of the recorded sweep (its loudspeaker arriving
+ * 5.01 ms after the loopback), with a small waterfall.
+ */
+function storedTake(channel: string): Measurement {
+  return demoMeasurement({
     id: `meas_${channel}`,
     roomId: 'room_1',
     channel,
-    micPosition: 'MLP',
     kind: 'impulseResponse',
+    source: { type: 'wav', fileKind: 'sweepRecording' },
     result: {
-      arrival: { arrivalMs: 12.5 },
-      level: { peakDbfs: -18.2, peakToNoiseDb: 64.1 },
-      decay: { edtS: 0.21, t20S: 0.25, t30S: 0.26 },
-      timing: { arrivalFromReferenceMs: 5.01 },
-      frequencyResponse: {
-        frequenciesHz: [100, 1000, 10000],
-        magnitudeDb: [-3, 0, -2],
-        smoothingOctaves: 0.0833,
+      ...analysis,
+      timing: {
+        referenceArrivalSample: 96,
+        referenceArrivalMs: 2,
+        referencePeakSample: 97,
+        arrivalFromReferenceSamples: 240,
+        arrivalFromReferenceMs: 5.01,
+        peakFromReferenceSamples: 241,
+        peakFromReferenceMs: 5.03,
       },
       waterfall: {
         window: { name: 'rectangular start, half-Hann end', lengthMs: 500, taperMs: 100 },
@@ -49,9 +57,8 @@ function storedTake(channel: string) {
         binWidthOctaves: 3.3,
         resolutionHz: 2,
       },
-      warnings: [],
     },
-  };
+  });
 }
 
 /** A stand-in for the open input: two input channels, levels for the meter, takes that come back at once. */

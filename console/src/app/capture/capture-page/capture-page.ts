@@ -51,7 +51,7 @@ interface CaptureRow {
   output: number;
   status: RowStatus;
   message: string;
-  analysis: (ImpulseResponseAnalysis & { timing?: { arrivalFromReferenceMs: number } }) | null;
+  analysis: ImpulseResponseAnalysis | null;
   measurementId: string | null;
 }
 
@@ -354,7 +354,7 @@ export class CapturePage {
           );
           this.updateRow(target.channel, {
             status: 'done',
-            analysis: result.analysis as unknown as CaptureRow['analysis'],
+            analysis: result.analysis,
             measurementId: result.stored?.id ?? null,
             message: result.stored
               ? 'Stored as a measurement of this channel.'
@@ -378,6 +378,6 @@ export class CapturePage {
     const fromReference = analysis.timing?.arrivalFromReferenceMs;
     return fromReference !== undefined
       ? `${formatQuantity(fromReference, 'ms', 2)} after the loopback`
-      : formatQuantity(analysis.arrival?.arrivalMs, 'ms', 2);
+      : formatQuantity(analysis.arrival.arrivalMs, 'ms', 2);
   }
 }

@@ -17,14 +17,24 @@ import { PlaygroundCredentials } from '../../playground/playground-credentials.s
 import type { CreatedKey } from '../key.model';
 import { KeyCreateDialog } from './key-create-dialog';
 
-const created = {
+const created: CreatedKey = {
   id: 'key_1',
   name: 'Sweep rig',
   role: 'calculate',
+  kind: 'live',
   secret: 'iso_live_0123456789abcdefghijklmnopqrstuvwxyzABCDEFG',
   prefix: 'iso_live_012',
   lastFour: 'DEFG',
-} as unknown as CreatedKey;
+  ownerId: 'usr_1',
+  createdById: 'usr_1',
+  rateLimitPerMinute: null,
+  status: 'active',
+  expiresAt: null,
+  revokedAt: null,
+  lastUsedAt: null,
+  createdAt: '2026-03-01T09:00:00.000Z',
+  updatedAt: '2026-03-01T09:00:00.000Z',
+};
 
 describe('KeyCreateDialog', () => {
   let http: HttpTestingController;

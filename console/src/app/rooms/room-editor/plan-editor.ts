@@ -15,6 +15,7 @@ import {
   speakerMark,
   type SpeakerShape,
 } from '../../../../../shared/geometry/speaker-marks';
+import type { components } from '../../../../../shared/contract/api-types';
 import { formatQuantity } from '../../format/format';
 import { topViewSummary } from '../top-view';
 import { labelBox, placeLabels, type LabelPlace } from './plan-labels';
@@ -37,12 +38,11 @@ export interface PlanSpeaker {
   y: number;
 }
 
-export interface PlanSpeakerGeometry {
-  id: string;
-  distanceM: number;
-  azimuthDeg: number;
-  withinTolerance: boolean | null;
-}
+/** What the plan shows of a loudspeaker's geometry (the contract's `SpeakerGeometry`, as the room answers it). */
+export type PlanSpeakerGeometry = Pick<
+  components['schemas']['SpeakerGeometry'],
+  'id' | 'distanceM' | 'azimuthDeg' | 'withinTolerance'
+>;
 
 /** A loudspeaker moved on the plan: its row in the table and its new floor position in metres. */
 export interface PlanMove {

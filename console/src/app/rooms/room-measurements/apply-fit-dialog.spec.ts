@@ -2,11 +2,19 @@ import { TestBed } from '@angular/core/testing';
 import { MatButtonHarness } from '@angular/material/button/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
 import { openDialog } from '../../../testing/dialogs';
+import { demoChannels, demoTuning } from '../../../testing/fixtures';
 import type { Tuning } from '../../tunings/tuning.model';
 import { ApplyFitChoice, ApplyFitData, ApplyFitDialog } from './apply-fit-dialog';
 
 function tuning(id: string, name: string, channels: string[]): Tuning {
-  return { id, name, latestVersion: 2, channels: channels.map((c) => ({ id: c })) } as unknown as Tuning;
+  const [channel] = demoChannels();
+  return demoTuning({
+    id,
+    name,
+    version: 2,
+    latestVersion: 2,
+    channels: channels.map((c) => ({ ...channel, id: c })),
+  });
 }
 
 const data: ApplyFitData = {

@@ -23,6 +23,9 @@ function measurement(partial: Partial<Measurement> & Pick<Measurement, 'id' | 'k
     notes: null,
     source: { type: 'json' },
     summary: {},
+    stage: 'before',
+    tuningId: null,
+    tuningVersion: null,
     createdAt: '2026-03-14T10:00:00.000Z',
     ...partial,
   };

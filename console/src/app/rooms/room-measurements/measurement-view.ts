@@ -20,6 +20,7 @@ import type {
   RoomMode,
   TargetPoint,
 } from './measurement.model';
+import type { ProcessorLimits } from '../../tunings/tuning.model';
 
 /** The API's caps on an upload and on a fitted response, from the one limits module the contract is checked against. */
 export { MAX_UPLOAD_BYTES };
@@ -138,12 +139,8 @@ export function uploadProblems(draft: UploadDraft, channels: readonly string[]):
   return problems;
 }
 
-/** The processor limits a room may store. */
-export interface RoomLimits {
-  eqBandsPerChannel?: number;
-  eqMaxBoostDb?: number;
-  eqMaxCutDb?: number;
-}
+/** The processor limits a room may store that the fit reads. */
+export type RoomLimits = Pick<ProcessorLimits, 'eqBandsPerChannel' | 'eqMaxBoostDb' | 'eqMaxCutDb'>;
 
 /**
  * The `POST /v1/eq/fit` body for a measured response in a room: the room's band count and cut limit,

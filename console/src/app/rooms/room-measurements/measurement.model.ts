@@ -1,152 +1,66 @@
-import type { DecayPlotData } from '../../ui/decay-plot/decay-scale';
+import type { components, operations } from '../../../../../shared/contract/api-types';
+
+type Schemas = components['schemas'];
 
 /** The kinds of stored measurement the API knows. */
-export type MeasurementKind = 'impulseResponse' | 'frequencyResponse' | 'spl';
+export type MeasurementKind = Schemas['Measurement']['kind'];
 
 /** A few numbers per measurement for lists; which ones depends on the kind. */
-export interface MeasurementSummary {
-  arrivalMs?: number;
-  peakDbfs?: number;
-  energyDb?: number;
-  edtS?: number | null;
-  t20S?: number | null;
-  t30S?: number | null;
-  points?: number;
-  fromHz?: number;
-  toHz?: number;
-  splDb?: number;
-  weighting?: string;
-}
-
-export interface MagnitudeResponse {
-  frequenciesHz: number[];
-  magnitudeDb: number[];
-  phaseDeg?: number[];
-}
-
-export interface DecayTimes {
-  edtS: number | null;
-  t20S: number | null;
-  t30S: number | null;
-}
-
-export interface BandDecay extends DecayTimes {
-  centreHz: number;
-  nominalHz: number;
-}
-
-export interface RoomMode {
-  nx: number;
-  ny: number;
-  nz: number;
-  frequencyHz: number;
-  kind: 'axial' | 'tangential' | 'oblique';
-}
-
-/** The analysis the API stores for an uploaded impulse response. */
-export interface ImpulseResponseAnalysis {
-  sampleRateHz: number;
-  durationS: number;
-  arrival: { arrivalMs: number; peakMs: number; thresholdDb: number };
-  level: {
-    peakDbfs: number;
-    rmsDbfs: number;
-    energyDb: number;
-    noiseFloorDbfs: number;
-    peakToNoiseDb: number;
-  };
-  frequencyResponse: MagnitudeResponse & { smoothingOctaves: number };
-  decay: DecayTimes & { impulseToNoiseDb: number; truncationMs: number; bands: BandDecay[] };
-  room?: {
-    volumeM3: number;
-    speedOfSoundMps: number;
-    schroederFrequencyHz: number | null;
-    modesUpToHz: number;
-    modes: RoomMode[];
-  };
-  warnings: Array<{ code: string; message: string }>;
-  waterfall?: DecayPlotData;
-  spectrogram?: DecayPlotData;
-}
+export type MeasurementSummary = Schemas['Measurement']['summary'];
 
 /** A stored measurement as the API returns it; lists leave out `result`. */
-export interface Measurement {
-  id: string;
-  roomId: string;
-  channel: string;
-  micPosition: string;
-  kind: MeasurementKind;
-  name: string | null;
-  notes: string | null;
-  source: { type: 'wav' | 'text' | 'json'; fileName?: string; sampleRateHz?: number; durationS?: number };
-  summary: MeasurementSummary;
-  result?: Record<string, unknown>;
-  createdAt: string;
+export type Measurement = Schemas['Measurement'];
+
+/**
+ * The analysis the API stores for an uploaded impulse response (without the uploaded file's details), with
+ * the deconvolution, distortion and loopback timing of a recorded sweep when it was one.
+ */
+export type ImpulseResponseAnalysis = Schemas['MeasuredImpulseResponse'];
+
+export type DecayTimes = Schemas['DecayTimes'];
+
+/** Decay times in one octave band. */
+export type BandDecay = ImpulseResponseAnalysis['decay']['bands'][number];
+
+export type RoomMode = NonNullable<ImpulseResponseAnalysis['room']>['modes'][number];
+
+/**
+ * A measurement's impulse-response analysis, or null when it is of another kind or was read from a list
+ * (lists leave out `result`). `arrival` is required of an impulse response's result and of no other kind's.
+ */
+export function impulseResponseOf(m: Measurement | null | undefined): ImpulseResponseAnalysis | null {
+  const result = m?.kind === 'impulseResponse' ? m.result : undefined;
+  return result && 'arrival' in result ? result : null;
 }
 
 /** `GET /v1/rooms/{roomId}/measurements/average?channel=`. */
-export interface AverageResponse {
-  channel: string;
-  measurementIds: string[];
-  micPositions: string[];
-  frequenciesHz: number[];
-  magnitudeDb: number[];
-}
+export type AverageResponse =
+  operations['averageMeasurements']['responses'][200]['content']['application/json'];
 
 /** The two kinds of stored response a channel's average can be made of. */
-export type ResponseKind = 'impulseResponse' | 'frequencyResponse';
+export type ResponseKind = NonNullable<operations['averageMeasurements']['parameters']['query']['kind']>;
 
-/** WAV-only fields of a measurement upload. */
-export interface UploadOptions {
-  /** 0-based channel of a multichannel file. */
-  fileChannel?: number;
-  /** 0-based channel holding the loopback of the test signal (timing reference). */
-  referenceFileChannel?: number;
-  smoothingOctaves?: number;
-  /** Multipart fields asking for decay plots (`decayFormFields`). */
-  decayFields?: Array<[string, string]>;
-  name?: string;
-  notes?: string;
-}
+/**
+ * WAV-only fields of a measurement upload the room page offers, and the multipart fields asking for decay
+ * plots as `decayFormFields` writes them (field name and text value, already checked against the contract's
+ * bounds by `decayRequestProblems`).
+ */
+export type UploadOptions = Pick<
+  Schemas['MeasurementUpload'],
+  'fileChannel' | 'referenceFileChannel' | 'smoothingOctaves' | 'name' | 'notes'
+> & { decayFields?: Array<[string, string]> };
 
 /** A target point: level in dB at a frequency. */
-export interface TargetPoint {
-  frequencyHz: number;
-  gainDb: number;
-}
+export type TargetPoint = Schemas['TargetPoint'];
 
 /** `GET /v1/target-curves` item. */
-export interface StoredTargetCurve {
-  id: string;
-  name: string;
-  notes: string | null;
-  points: TargetPoint[];
-}
+export type StoredTargetCurve = Schemas['StoredTargetCurve'];
 
-/** The fit's target: flat, or one of the caller's stored curves by name. */
-export type FitTarget = { kind: 'flat' } | { kind: 'stored'; name: string };
+/**
+ * A fit of one measured response as the room page sends it: always with the room's rate, the measured
+ * response (never `positions`) and a target.
+ */
+export type EqFitRequest = Schemas['EqFitRequest'] &
+  Required<Pick<Schemas['EqFitRequest'], 'sampleRateHz' | 'measured' | 'target'>>;
 
-export interface EqFitRequest {
-  sampleRateHz: number;
-  measured: { frequenciesHz: number[]; magnitudeDb: number[] };
-  target: FitTarget;
-  maxBands: number;
-  maxBoostDb: number;
-  maxCutDb: number;
-  fromHz?: number;
-  toHz?: number;
-  /** The room's volume and measured reverberation time, for the transition frequency the fit starts below. */
-  room?: { volumeM3: number; reverberationTimeS?: number };
-}
-
-export interface EqFitResult {
-  sampleRateHz: number;
-  bands: Array<{ type: 'peaking'; frequencyHz: number; gainDb: number; q: number }>;
-  predicted: { frequenciesHz: number[]; magnitudeDb: number[] };
-  residualRmsDb: { before: number; after: number };
-  targetOffsetDb: number;
-  fromHz: number;
-  toHz: number;
-  warnings: Array<{ code: string; message: string; channel?: string }>;
-  cautions: Array<{ code: string; message: string }>;
-}
+export type EqFitResult = Schemas['EqFitResult'];

@@ -7,44 +7,28 @@ import { MatButtonHarness } from '@angular/material/button/testing';
 import { MatDialogHarness } from '@angular/material/dialog/testing';
 import { MatSnackBarHarness } from '@angular/material/snack-bar/testing';
 import { provideRouter } from '@angular/router';
-import { analyzeImpulseResponse } from '../../../../../shared/analysis/analyze-impulse-response';
-import { noisyDecay } from '../../../../../shared/analysis/test-signals';
 import { fmtBody, pcm16Body, riffFile } from '../../../../../shared/analysis/wav-test-files';
 import { fitParametricEq } from '../../../../../shared/eq-fit/fit-parametric-eq';
 import { stage3MeasuredResponses } from '../../../../../seeds/demo-stage3-measurements';
-import { ROOM_ID, demoRoom, demoTuning, page } from '../../../testing/fixtures';
+import {
+  ROOM_ID,
+  demoImpulseResponse,
+  demoMeasurement,
+  demoRoom,
+  demoTargetCurve,
+  demoTuning,
+  page,
+} from '../../../testing/fixtures';
 import { clickNow, requested } from '../../../testing/requests';
 import { signInAs } from '../../../testing/session';
 import type { Room } from '../room.model';
-import type {
-  AverageResponse,
-  EqFitRequest,
-  EqFitResult,
-  Measurement,
-  StoredTargetCurve,
-} from './measurement.model';
+import type { AverageResponse, EqFitRequest, EqFitResult, Measurement } from './measurement.model';
 import { RoomMeasurements } from './room-measurements';
 
 const BASE = `/v1/rooms/${ROOM_ID}/measurements`;
 const responses = stage3MeasuredResponses();
 
-/** A synthetic impulse response of the left side surround (2.80 m away, invented T60 0.30 s), analysed as the API does. */
-function surroundAnalysis() {
-  const fs = 48000;
-  const arrival = Math.round((2.8 / 343.2) * fs);
-  const samples = noisyDecay({
-    sampleRateHz: fs,
-    durationS: 1,
-    t60S: 0.3,
-    startSample: arrival,
-    startRms: 0.05,
-    noiseDb: -75,
-    seed: 3,
-  });
-  samples[arrival] += 0.7;
-  return analyzeImpulseResponse(samples, fs, { room: demoRoom().dimensions });
-}
-const analysis = surroundAnalysis();
+const analysis = demoImpulseResponse();
 
 function measurement(
   id: string,
@@ -53,14 +37,11 @@ function measurement(
   kind: Measurement['kind'],
   minutesAfterNine: number,
 ): Measurement {
-  return {
+  return demoMeasurement({
     id,
-    roomId: ROOM_ID,
     channel,
     micPosition,
     kind,
-    name: null,
-    notes: null,
     source: kind === 'impulseResponse' ? { type: 'wav', fileName: `${channel}.wav` } : { type: 'text' },
     summary:
       kind === 'spl'
@@ -69,7 +50,7 @@ function measurement(
           ? { arrivalMs: analysis.arrival.arrivalMs, t30S: analysis.decay.t30S }
           : { points: 120, fromHz: 20, toHz: 20000 },
     createdAt: `2026-03-02T09:${String(minutesAfterNine).padStart(2, '0')}:00.000Z`,
-  };
+  });
 }
 
 const surround = measurement('mea_ir', 'M+090', 'MLP', 'impulseResponse', 30);
@@ -78,16 +59,7 @@ const leftBeside = measurement('mea_l2', 'M+030', 'MLP left 0.5 m', 'frequencyRe
 const centreSpl = measurement('mea_spl', 'M+000', 'MLP', 'spl', 5);
 const list = [centreSpl, leftAtMlp, leftBeside, surround];
 
-const warmCurve: StoredTargetCurve = {
-  id: 'tc_warm',
-  name: 'Warm small room',
-  notes: null,
-  points: [
-    { frequencyHz: 20, gainDb: 3 },
-    { frequencyHz: 200, gainDb: 0 },
-    { frequencyHz: 20000, gainDb: -3 },
-  ],
-};
+const warmCurve = demoTargetCurve();
 
 /** What `POST /v1/eq/fit` answers: the shared fit the API runs, with the stored target resolved. */
 function fitAnswer(body: EqFitRequest): EqFitResult {
@@ -96,7 +68,7 @@ function fitAnswer(body: EqFitRequest): EqFitResult {
       ? { kind: 'points' as const, points: warmCurve.points }
       : { kind: 'flat' as const };
   const result = fitParametricEq({ ...body, target });
-  return { ...result, cautions: [] } as unknown as EqFitResult;
+  return { sampleRateHz: body.sampleRateHz, ...result, cautions: [] };
 }
 
 describe('RoomMeasurements', () => {
@@ -196,7 +168,7 @@ describe('RoomMeasurements', () => {
     // An SPL reading has no response to plot.
     expect(rows[0].querySelector('button.channel-button')).toBeNull();
 
-    const detail = { ...surround, result: analysis as unknown as Measurement['result'] };
+    const detail = { ...surround, result: analysis };
     const body = await answerPlot(detail, surroundAverage());
     expect(rows[3].getAttribute('class')).toContain('is-selected');
     // The fit gets the room's volume and the measured T30, the room's band count and cut, no boost.
@@ -224,10 +196,7 @@ describe('RoomMeasurements', () => {
 
   it('averages a channel measured at two positions and fits it without a decay time', async () => {
     await mount();
-    await answerPlot(
-      { ...surround, result: analysis as unknown as Measurement['result'] },
-      surroundAverage(),
-    );
+    await answerPlot({ ...surround, result: analysis }, surroundAverage());
     await clickNow(host().querySelector('[aria-label="Show M+030 at MLP"]'), detect);
     const body = await answerPlot({ ...leftAtMlp, result: responses['M+030'] }, leftAverage());
     expect(text()).toContain('Response of M+030');

@@ -49,7 +49,7 @@ import {
   uploadFieldErrors,
   uploadProblems,
 } from './measurement-view';
-import { ImpulseResponseAnalysis, Measurement, ResponseKind } from './measurement.model';
+import { ImpulseResponseAnalysis, Measurement, ResponseKind, impulseResponseOf } from './measurement.model';
 import { MeasurementsService } from './measurements.service';
 import { ApplyFitChoice, ApplyFitData, ApplyFitDialog } from './apply-fit-dialog';
 import { RoomsService } from '../rooms.service';
@@ -151,9 +151,7 @@ export class RoomMeasurements {
   protected readonly analysis = computed((): ImpulseResponseAnalysis | null => {
     if (!this.detailResource.hasValue()) return null;
     const detail = this.detailResource.value();
-    return detail?.kind === 'impulseResponse' && detail.id === this.selectedId()
-      ? (detail.result as unknown as ImpulseResponseAnalysis)
-      : null;
+    return detail?.id === this.selectedId() ? impulseResponseOf(detail) : null;
   });
 
   /** Response kinds the selected channel has; with both, the panel asks which to average. */

@@ -1,3 +1,4 @@
+import type { components } from '../../../../../shared/contract/api-types';
 import { LIMITS } from '../../../../../shared/limits';
 import { formatQuantity } from '../../format/format';
 import { formatFrequency, frequencyTickLabel } from '../chart/frequency-ticks';
@@ -6,14 +7,7 @@ import { formatFrequency, frequencyTickLabel } from '../chart/frequency-ticks';
  * Decay over frequency as the API answers it (`DecayPlot` in the contract): `levelDb[slice][bin]` in dB re
  * the plot's top, at `timesMs` after the arrival and log-spaced `frequenciesHz`.
  */
-export interface DecayPlotData {
-  window: { name: string; lengthMs: number; taperMs: number };
-  timesMs: number[];
-  frequenciesHz: number[];
-  levelDb: number[][];
-  binWidthOctaves: number;
-  resolutionHz: number;
-}
+export type DecayPlotData = components['schemas']['DecayPlot'];
 
 export type Rgb = readonly [number, number, number];
 

@@ -1,6 +1,10 @@
 import { Component, signal } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
+import { demoImpulseResponse } from '../../../testing/fixtures';
 import { ImpulseResponseFacts, type ImpulseResponseFactsSource } from './ir-facts';
+
+/** A whole analysis as the API answers it; the specs set the numbers they read. */
+const base = demoImpulseResponse();
 
 @Component({
   selector: 'iso-ir-facts-host',
@@ -9,9 +13,9 @@ import { ImpulseResponseFacts, type ImpulseResponseFactsSource } from './ir-fact
 })
 class Host {
   readonly analysis = signal<ImpulseResponseFactsSource>({
-    arrival: { arrivalMs: 8.1458 },
-    level: { peakDbfs: -6.02, peakToNoiseDb: 71.26 },
-    decay: { edtS: 0.291, t20S: 0.3, t30S: null },
+    arrival: { ...base.arrival, arrivalMs: 8.1458 },
+    level: { ...base.level, peakDbfs: -6.02, peakToNoiseDb: 71.26 },
+    decay: { ...base.decay, edtS: 0.291, t20S: 0.3, t30S: null },
   });
 }
 
@@ -42,8 +46,16 @@ describe('ImpulseResponseFacts', () => {
     const fixture = TestBed.createComponent(Host);
     fixture.componentInstance.analysis.update((a) => ({
       ...a,
-      timing: { arrivalFromReferenceMs: 5.0113 },
-      room: { schroederFrequencyHz: 164.4 },
+      timing: {
+        referenceArrivalSample: 96,
+        referenceArrivalMs: 2,
+        referencePeakSample: 97,
+        arrivalFromReferenceSamples: 241,
+        arrivalFromReferenceMs: 5.0113,
+        peakFromReferenceSamples: 242,
+        peakFromReferenceMs: 5.0321,
+      },
+      room: { ...base.room!, schroederFrequencyHz: 164.4 },
     }));
     await fixture.whenStable();
     const rows = facts(fixture.nativeElement);

@@ -1,15 +1,15 @@
 import { ChangeDetectionStrategy, Component, input } from '@angular/core';
 import { formatQuantity } from '../../format/format';
+import type { ImpulseResponseAnalysis } from '../../rooms/room-measurements/measurement.model';
 
-/** The numbers of an impulse-response (or deconvolved sweep) analysis this list shows. */
-export interface ImpulseResponseFactsSource {
-  arrival: { arrivalMs: number };
-  level: { peakDbfs: number; peakToNoiseDb: number };
-  decay: { edtS: number | null; t20S: number | null; t30S: number | null };
-  room?: { schroederFrequencyHz: number | null };
-  /** With a loopback channel: the arrival counted from the loopback's. */
-  timing?: { arrivalFromReferenceMs: number };
-}
+/**
+ * The parts of an impulse-response (or deconvolved sweep) analysis this list shows; with a loopback channel,
+ * `timing` counts the arrival from the loopback's.
+ */
+export type ImpulseResponseFactsSource = Pick<
+  ImpulseResponseAnalysis,
+  'arrival' | 'level' | 'decay' | 'room' | 'timing'
+>;
 
 /**
  * The facts of one impulse response at a glance: arrival (and, with a loopback, the arrival after it),

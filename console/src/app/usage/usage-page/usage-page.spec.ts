@@ -89,10 +89,13 @@ describe('UsagePage', () => {
 
   function answer(request: TestRequest, data: UsageRow[], withLimits: UsageLimits = limits) {
     const params = request.request.params;
+    const groupBy = params.get('groupBy');
+    // The page asks for hourly or daily rows only; anything else would be a grouping it cannot draw.
+    if (groupBy !== 'hour' && groupBy !== 'day') throw new Error(`usage asked with groupBy ${groupBy}`);
     const body: UsageResponse = {
       from: params.get('from')!,
       to: params.get('to')!,
-      groupBy: params.get('groupBy')!,
+      groupBy,
       limits: withLimits,
       data,
     };

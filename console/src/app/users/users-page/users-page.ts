@@ -13,7 +13,7 @@ import { MatTableModule } from '@angular/material/table';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import { catchError, filter, of } from 'rxjs';
 import { UserRole, roleLabel } from '../../auth/roles';
-import { keyEffectsSummary, type KeyRoleEffect } from '../key-effects';
+import { keyEffectsSummary } from '../key-effects';
 import { SessionService } from '../../auth/session.service';
 import { formatDateTime, formatRelative } from '../../format/format';
 import { errorMessage } from '../../problem/http-problem';
@@ -183,7 +183,7 @@ export class UsersPage {
   private apply(user: ConsoleUser, changes: UserChanges, done: string): void {
     this.users.update(user.id, changes).subscribe({
       next: (updated) => {
-        const { keys, ...changed } = updated as ConsoleUser & { keys?: KeyRoleEffect[] };
+        const { keys, ...changed } = updated;
         this.replace({ ...user, ...changed });
         const effects = keyEffectsSummary(keys);
         this.snackBar.open(effects ? `${done} ${effects}` : done, effects ? 'Dismiss' : undefined, {
