@@ -175,6 +175,10 @@ describe('GET /v1/rooms/{roomId}/report', () => {
     const res = await as(ctx.keys.tuning).get(`/v1/rooms/${reportRoomId}/report`);
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toMatch(/^text\/html/);
+    // A document's policy: its own inline styles apply, no script runs, nothing loads, nobody frames it.
+    expect(res.headers['content-security-policy']).toMatch(/style-src 'unsafe-inline'/);
+    expect(res.headers['content-security-policy']).toMatch(/default-src 'none'.*frame-ancestors 'none'/);
+    expect(res.headers['content-security-policy']).not.toMatch(/script-src/);
     expect(res.text).toContain('<svg');
     expect(res.text).toContain('No tuning is stored for this room yet.');
     // Every stored string is escaped: no markup from a room name reaches the page.

@@ -150,10 +150,14 @@ it('explains what the browser needs, meters the input and measures one channel w
   await dialog.getByText(/peaks at -20\.0 dBFS/).waitFor();
   expect(await dialog.textContent()).toMatch(/M\+030 on output 1/);
   await screenshot(page, 'capture-confirm');
-  const answer = page.waitForResponse(
-    (r) => r.request().method() === 'POST' && /\/measurements$|\/analysis\/sweep$/.test(r.url()) && r.ok(),
-    { timeout: 60_000 },
-  );
+  // The body is read as soon as the answer arrives: the browser keeps an answer sent with
+  // Cache-Control: no-store (every API answer) only briefly.
+  const answer = page
+    .waitForResponse(
+      (r) => r.request().method() === 'POST' && /\/measurements$|\/analysis\/sweep$/.test(r.url()) && r.ok(),
+      { timeout: 60_000 },
+    )
+    .then((r) => r.json() as Promise<unknown>);
   // Start just after the loopback's sweep has passed: the next one is then about 7 s away, inside the take.
   // By CSS, not by role: the open dialog hides the page behind it from the accessibility tree.
   const loopbackMeter = page.locator('[data-testid="input-meters"] [role="meter"]').nth(1);
@@ -168,7 +172,7 @@ it('explains what the browser needs, meters the input and measures one channel w
   await until((db) => db > -30);
   await until((db) => db < -60);
   await dialog.getByTestId('confirm-action').click();
-  const body = (await (await answer).json()) as {
+  const body = (await answer) as {
     id?: string;
     result?: Record<string, unknown>;
   } & Record<string, unknown>;
