@@ -423,11 +423,25 @@ async function main(): Promise<void> {
     const [echo, calculation, chain] = [byKey('B'), byKey('E'), byKey('C')];
     const rps = (target: Target, round: number) => target.rounds[round].requests.average;
     for (let round = 0; round < ROUNDS; round += 1) {
-      for (const target of targets) await measureRound(target);
+      // Each round's own p99 too (its latencies are the last ones recorded), to show how much it varies.
+      const p99s = new Map<Target, number>();
+      for (const target of targets) {
+        const from = target.latencies.length;
+        await measureRound(target);
+        p99s.set(
+          target,
+          percentile(
+            target.latencies.slice(from).sort((a, b) => a - b),
+            99,
+          ),
+        );
+      }
       ratios.push(rps(chain, round) / rps(calculation, round));
       echoRatios.push(rps(chain, round) / rps(echo, round));
+      const p99Ratio = (p99s.get(chain) as number) / (p99s.get(calculation) as number);
       process.stdout.write(
-        `  round ${round + 1}/${ROUNDS}: C/E ${ratios[round].toFixed(2)}, C/B ${echoRatios[round].toFixed(2)}\n`,
+        `  round ${round + 1}/${ROUNDS}: C/E ${ratios[round].toFixed(2)}, C/B ${echoRatios[round].toFixed(2)}, ` +
+          `C p99 ${p99Ratio.toFixed(2)} × E's\n`,
       );
     }
     const heavy = await heavyLoad(chain);

@@ -27,9 +27,21 @@ const DECIMALS = new Map(UNIT_DECIMALS);
 
 /** Decimals the answer shows for a property of this name, or undefined when it stays at full precision. */
 export function presentationDecimals(name: string): number | undefined {
-  const unit = UNIT_TOKEN.exec(name)?.[1];
-  return unit === undefined ? undefined : DECIMALS.get(unit);
+  // Answers use a few hundred property names, met again and again: worked out once each (a bounded
+  // cache, so that the names of a caller's own objects cannot grow it without end).
+  let decimals = decimalsByName.get(name);
+  if (decimals === undefined) {
+    const unit = UNIT_TOKEN.exec(name)?.[1];
+    decimals = unit === undefined ? NONE : (DECIMALS.get(unit) ?? NONE);
+    if (decimalsByName.size >= MAX_CACHED_NAMES) decimalsByName.clear();
+    decimalsByName.set(name, decimals);
+  }
+  return decimals === NONE ? undefined : decimals;
 }
+
+const NONE = -1;
+const MAX_CACHED_NAMES = 4096;
+const decimalsByName = new Map<string, number>();
 
 /**
  * `value` rounded half away from zero to `decimals`, without float noise (integer / 10^d is the double

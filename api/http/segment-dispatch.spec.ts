@@ -1,7 +1,7 @@
 import express, { Router, type RequestHandler } from 'express';
 import request from 'supertest';
 import { chain } from './chain';
-import { dispatchByFirstSegment, firstSegments } from './segment-dispatch';
+import { dispatchByFirstSegment, exactRoutes, firstSegments } from './segment-dispatch';
 
 /** Routers shaped like the resource routers: full paths, parameters, nested routers, one catch-all. */
 function routers(): Router[] {
@@ -25,7 +25,20 @@ function routers(): Router[] {
   shadow.get('/rooms/:roomId/report', say('second report'));
   const params = Router();
   params.get('/:anything/params', say('params'));
-  return [calculations, rooms, shadow, params];
+  // Routes that pass the request on, in every way a handler can.
+  const passing = Router();
+  passing.post('/pass', (_req, _res, next) => next());
+  passing.post('/fail', (_req, _res, next) => next(new Error('failed')));
+  passing.post('/throw', () => {
+    throw new Error('thrown');
+  });
+  passing.post('/skip', (_req, _res, next) => next('route'), say('never'));
+  passing.post('/leave', (_req, _res, next) => next('router'), say('never'));
+  passing.post('/two', (_req, _res, next) => next(), say('second handler'));
+  const nested = Router();
+  nested.post('/nested/static', say('nested'));
+  passing.use(nested);
+  return [calculations, rooms, shadow, params, passing];
 }
 
 function app(mount: RequestHandler): express.Express {
@@ -33,6 +46,9 @@ function app(mount: RequestHandler): express.Express {
   app.use('/v1', mount, (req, res) => {
     res.status(404).json({ what: 'none', path: req.path });
   });
+  app.use(((err: Error, _req, res, _next) => {
+    res.status(500).json({ error: err.message });
+  }) as express.ErrorRequestHandler);
   return app;
 }
 
@@ -62,8 +78,39 @@ describe('firstSegments', () => {
   });
 });
 
+describe('exactRoutes', () => {
+  const keys = (exact: ReturnType<typeof exactRoutes>) =>
+    [...exact].flatMap(([method, byPath]) => [...byPath.keys()].map((path) => `${method} ${path}`)).sort();
+
+  it('lists the plain-path routes that are the only layer answering their method and path', () => {
+    expect(keys(exactRoutes(routers()))).toEqual([
+      'GET /rooms',
+      'POST /delays',
+      'POST /eq/fit',
+      'POST /fail',
+      'POST /leave',
+      'POST /nested/static',
+      'POST /pass',
+      'POST /skip',
+      'POST /throw',
+      'POST /two',
+    ]);
+  });
+
+  it('leaves out a path that middleware or a second route also matches, and routers it cannot read', () => {
+    const first = Router();
+    first.post('/biquads', (_req, res) => res.end());
+    first.get('/levels', (_req, res) => res.end());
+    const second = Router();
+    second.use('/levels', (_req, _res, next) => next());
+    expect(keys(exactRoutes([first]))).toEqual(['GET /levels', 'POST /biquads']);
+    expect(keys(exactRoutes([first, second]))).toEqual(['POST /biquads']);
+    expect(exactRoutes([first, (() => undefined) as unknown as Router]).size).toBe(0);
+  });
+});
+
 describe('dispatchByFirstSegment', () => {
-  const cases: Array<[string, string]> = [
+  const cases: Array<['get' | 'post' | 'head' | 'options', string]> = [
     ['post', '/v1/biquads'],
     ['post', '/v1/BiQuads/'],
     ['post', '/v1/biquads?x=1'],
@@ -82,9 +129,20 @@ describe('dispatchByFirstSegment', () => {
     ['get', '/v1//rooms'],
     ['get', '/v1/nothing'],
     ['get', '/v1/biquads'],
+    ['post', '/v1/pass'],
+    ['post', '/v1/fail'],
+    ['post', '/v1/throw'],
+    ['post', '/v1/skip'],
+    ['post', '/v1/leave'],
+    ['post', '/v1/two'],
+    ['post', '/v1/Two?x=1'],
+    ['post', '/v1/nested/static'],
+    ['post', '/v1/nested/static/'],
+    ['head', '/v1/rooms'],
+    ['options', '/v1/delays'],
   ];
   it.each(cases)('answers %s %s as the same routers mounted one after another do', async (method, url) => {
-    const agent = (a: express.Express) => (method === 'post' ? request(a).post(url) : request(a).get(url));
+    const agent = (a: express.Express) => request(a)[method](url);
     const [expected, actual] = await Promise.all([agent(viaExpress), agent(viaDispatch)]);
     expect({ status: actual.status, body: actual.body as unknown }).toEqual({
       status: expected.status,

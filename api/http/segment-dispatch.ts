@@ -50,6 +50,71 @@ function firstSegmentOf(url: string): string {
   return url.slice(1, end);
 }
 
+/** The parts of a route layer (`router` package) read here. */
+interface RouteLayer {
+  route?: {
+    methods?: Record<string, boolean>;
+    _handlesMethod?(method: string): boolean;
+    dispatch: RouteDispatch;
+  };
+  match?(path: string): unknown;
+}
+type RouteDispatch = (req: Request, res: Response, done: NextFunction) => void;
+
+/** A path of plain segments only (no escapes, no empty segment, no trailing slash): routes are looked up by it as it is. */
+const PLAIN_PATH = /^(?:\/[A-Za-z0-9._~-]+)+$/;
+
+/**
+ * The routes a request can be handed to directly, by `METHOD /path` (lower-case path): each has a path
+ * of plain segments, is the only route of the routers (`chain`, in order) that answers that method and
+ * path, and no other layer of theirs matches the path. Express would find that route and nothing else, so
+ * the resource router's own dispatch (its layer-by-layer path matching and bookkeeping) is skipped. A
+ * router whose layers cannot be read rules out every path it could see.
+ */
+export function exactRoutes(routers: readonly Router[]): Map<string, Map<string, RouteDispatch>> {
+  const layers: RouteLayer[] = [];
+  // A router mounted at the root of another (`use(router)`) is its layers, in place.
+  const add = (router: unknown): boolean => {
+    const stack = (router as { stack?: unknown }).stack;
+    if (!Array.isArray(stack)) return false;
+    for (const layer of stack as Array<RouteLayer & RouterLayer>) {
+      if (
+        !layer.route &&
+        layer.slash === true &&
+        Array.isArray((layer.handle as { stack?: unknown }).stack)
+      ) {
+        if (!add(layer.handle)) return false;
+      } else {
+        layers.push(layer);
+      }
+    }
+    return true;
+  };
+  for (const router of routers) if (!add(router)) return new Map();
+  // By method, then by lower-case path.
+  const exact = new Map<string, Map<string, RouteDispatch>>();
+  for (const layer of layers) {
+    const route = layer.route;
+    const path: unknown = (route as { path?: unknown } | undefined)?.path;
+    if (!route || typeof path !== 'string' || !PLAIN_PATH.test(path)) continue;
+    for (const method of Object.keys(route.methods ?? {})) {
+      if (method === '_all') continue;
+      const verb = method.toUpperCase();
+      const answering = layers.filter((other) => {
+        if (typeof other.match !== 'function' || !other.match(path)) return false;
+        // Middleware (no route) that matches the path would run first: not a direct route.
+        return !other.route || other.route._handlesMethod?.(verb) !== false;
+      });
+      if (answering.length === 1 && answering[0] === layer) {
+        let byPath = exact.get(verb);
+        if (!byPath) exact.set(verb, (byPath = new Map()));
+        byPath.set(path.toLowerCase(), route.dispatch.bind(route));
+      }
+    }
+  }
+  return exact;
+}
+
 /**
  * Runs a list of routers as `router.use(a, b, c, …)` would, but hands each request only to the routers
  * that can answer its first path segment, in their order. Express tries every layer of every router in
@@ -57,6 +122,12 @@ function firstSegmentOf(url: string): string {
  * may answer any path (see `firstSegments`) is kept for every request, and a segment that is not plain
  * (escaped or unusual characters) goes through every router, so what answers a request never changes;
  * only routers that could not have matched are skipped. A request nobody answers reaches `next()`.
+ *
+ * A request whose method and plain path name exactly one route (see `exactRoutes`) goes straight to it:
+ * the route runs its handlers as it would under its router, and whatever it passes on (`next()`, an
+ * error) goes where the router would have sent it, since no other layer could have matched. HEAD,
+ * OPTIONS, trailing slashes and escaped paths take the routers' way. Routers are read once, here: add
+ * routes before calling this.
  */
 export function dispatchByFirstSegment(routers: Router[]): RequestHandler {
   const readable = routers.map((router) => ({ router, segments: firstSegments(router) }));
@@ -71,9 +142,23 @@ export function dispatchByFirstSegment(routers: Router[]): RequestHandler {
   const all = chain(...routers);
   const anyPath = readable.filter((r) => r.segments === null).map((r) => r.router);
   const noneMatch: RequestHandler = anyPath.length > 0 ? chain(...anyPath) : (_req, _res, next) => next();
+  const exact = exactRoutes(routers);
 
   return (req: Request, res: Response, next: NextFunction) => {
-    const segment = firstSegmentOf(req.url);
+    const { url } = req;
+    const query = url.indexOf('?');
+    const path = query === -1 ? url : url.slice(0, query);
+    const byPath = exact.get(req.method);
+    if (byPath && PLAIN_PATH.test(path)) {
+      const route = byPath.get(path) ?? byPath.get(path.toLowerCase());
+      if (route) {
+        req.params = {};
+        // 'route' and 'router' leave the route and its router alike: nothing else there answers.
+        route(req, res, (err?: unknown) => next(err === 'route' || err === 'router' ? undefined : err));
+        return;
+      }
+    }
+    const segment = firstSegmentOf(url);
     const handler = PLAIN_SEGMENT.test(segment) ? (table.get(segment.toLowerCase()) ?? noneMatch) : all;
     handler(req, res, next);
   };

@@ -103,7 +103,13 @@ export function createRateLimits(
  * Adds a request's units to a subject's count: the store counts one hit per `increment`, so a heavy
  * request of cost n calls it n times, one after the other (a Redis store answers in order).
  */
-async function charge(store: Store, subject: string, units: number): Promise<ClientRateLimitInfo> {
+function charge(store: Store, subject: string, units: number): Promise<ClientRateLimitInfo> {
+  // Most requests cost one unit: the store's own promise, without an async function around it.
+  if (units === 1) return Promise.resolve(store.increment(subject));
+  return chargeUnits(store, subject, units);
+}
+
+async function chargeUnits(store: Store, subject: string, units: number): Promise<ClientRateLimitInfo> {
   let info = await store.increment(subject);
   for (let i = 1; i < units; i += 1) info = await store.increment(subject);
   return info;
