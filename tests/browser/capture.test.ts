@@ -84,8 +84,45 @@ beforeAll(async () => {
   // analyses the take without storing it, and says so.
   browser.allowFailure('/v1/rooms/', 400);
   page = await browser.newPage();
+  // The page keeps the answers to its measurement uploads itself: the browser's DevTools buffer, which
+  // response.json() reads, may already have let a large answer go when the test asks for it.
+  await page.addInitScript(() => {
+    // Runs in the page (no DOM types here): its window is globalThis.
+    const scope = globalThis as unknown as {
+      measurementAnswers: unknown[];
+      fetch: typeof fetch;
+      location: { href: string };
+    };
+    const answers: unknown[] = [];
+    scope.measurementAnswers = answers;
+    const original = scope.fetch.bind(scope);
+    scope.fetch = async (input, init) => {
+      const response = await original(input, init);
+      const url = typeof input === 'string' ? input : input instanceof URL ? input.href : input.url;
+      const method = (init?.method ?? (input instanceof Request ? input.method : 'GET')).toUpperCase();
+      const path = new URL(url, scope.location.href).pathname;
+      if (method === 'POST' && response.ok && /\/measurements$|\/analysis\/sweep$/.test(path)) {
+        answers.push(await response.clone().json());
+      }
+      return response;
+    };
+  });
   await signIn(page, service.origin, 'dev@kestrel.example');
 });
+
+/** The next answer to a measurement upload the page receives (see the fetch wrapper above). */
+async function nextMeasurementAnswer(page: Page): Promise<unknown> {
+  // These functions run in the page, so each names the page's list itself.
+  const seen = await page.evaluate(
+    () => (globalThis as unknown as { measurementAnswers: unknown[] }).measurementAnswers.length,
+  );
+  const handle = await page.waitForFunction(
+    (count) => (globalThis as unknown as { measurementAnswers: unknown[] }).measurementAnswers[count],
+    seen,
+    { timeout: 60_000, polling: 100 },
+  );
+  return handle.jsonValue();
+}
 
 afterAll(async () => {
   await browser?.close();
@@ -150,14 +187,7 @@ it('explains what the browser needs, meters the input and measures one channel w
   await dialog.getByText(/peaks at -20\.0 dBFS/).waitFor();
   expect(await dialog.textContent()).toMatch(/M\+030 on output 1/);
   await screenshot(page, 'capture-confirm');
-  // The body is read as soon as the answer arrives: the browser keeps an answer sent with
-  // Cache-Control: no-store (every API answer) only briefly.
-  const answer = page
-    .waitForResponse(
-      (r) => r.request().method() === 'POST' && /\/measurements$|\/analysis\/sweep$/.test(r.url()) && r.ok(),
-      { timeout: 60_000 },
-    )
-    .then((r) => r.json() as Promise<unknown>);
+  const answer = nextMeasurementAnswer(page);
   // Start just after the loopback's sweep has passed: the next one is then about 7 s away, inside the take.
   // By CSS, not by role: the open dialog hides the page behind it from the accessibility tree.
   const loopbackMeter = page.locator('[data-testid="input-meters"] [role="meter"]').nth(1);
