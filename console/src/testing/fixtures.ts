@@ -19,27 +19,26 @@ import { findLayout } from '../../../shared/layouts';
 export const ROOM_ID = 'room_stage3';
 export const PROFILE_ID = 'prof_generic8';
 
-/** Stage 3 as `GET /v1/rooms/{roomId}` answers it, its geometry worked out as the API does (roomGeometry). */
-export function demoRoom(overrides: Partial<Room> = {}): Room {
-  const layout = findLayout(STAGE3_ROOM.layout);
-  if (!layout) throw new Error(`no layout ${STAGE3_ROOM.layout}`);
+/** The stored parts of a room, as a room is created. */
+type RoomParts = Pick<
+  Room,
+  'id' | 'name' | 'layout' | 'dimensions' | 'listener' | 'loudspeakers' | 'limits' | 'sampleRateHz'
+>;
+
+/** A room as `GET /v1/rooms/{roomId}` answers it: its layout's name and its geometry worked out as the API does (roomGeometry). */
+export function answeredRoom(parts: RoomParts, overrides: Partial<Room> = {}): Room {
+  const layout = findLayout(parts.layout);
+  if (!layout) throw new Error(`no layout ${parts.layout}`);
   const geometry = roomGeometry({
     layout: layout.id,
-    dimensions: STAGE3_ROOM.dimensions,
-    listener: STAGE3_ROOM.listener,
-    loudspeakers: STAGE3_ROOM.loudspeakers,
+    dimensions: parts.dimensions,
+    listener: parts.listener,
+    loudspeakers: parts.loudspeakers,
   });
   return {
-    id: ROOM_ID,
     ownerId: 'usr_1',
-    name: STAGE3_ROOM.name,
-    layout: layout.id,
+    ...parts,
     layoutName: layout.name,
-    dimensions: STAGE3_ROOM.dimensions,
-    listener: STAGE3_ROOM.listener,
-    loudspeakers: STAGE3_ROOM.loudspeakers,
-    limits: STAGE3_ROOM.limits,
-    sampleRateHz: STAGE3_ROOM.sampleRateHz,
     notes: null,
     profileId: null,
     // As it reaches the console: JSON (the computed ranges are read-only tuples in TypeScript).
@@ -54,6 +53,23 @@ export function demoRoom(overrides: Partial<Room> = {}): Room {
     updatedAt: '2026-03-02T09:00:00.000Z',
     ...overrides,
   };
+}
+
+/** Stage 3 as `GET /v1/rooms/{roomId}` answers it. */
+export function demoRoom(overrides: Partial<Room> = {}): Room {
+  return answeredRoom(
+    {
+      id: ROOM_ID,
+      name: STAGE3_ROOM.name,
+      layout: STAGE3_ROOM.layout,
+      dimensions: STAGE3_ROOM.dimensions,
+      listener: STAGE3_ROOM.listener,
+      loudspeakers: STAGE3_ROOM.loudspeakers,
+      limits: STAGE3_ROOM.limits,
+      sampleRateHz: STAGE3_ROOM.sampleRateHz,
+    },
+    overrides,
+  );
 }
 
 /** The demo processor profile as `GET /v1/processor-profiles/{profileId}` answers it. */

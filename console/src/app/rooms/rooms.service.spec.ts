@@ -46,7 +46,13 @@ describe('RoomsService', () => {
   });
 
   it('creates with POST and updates with PATCH, sending the body as given', () => {
-    const body = { name: 'Stage 9', layoutId: '0+2+0' } as unknown as RoomCreate;
+    const body: RoomCreate = {
+      name: 'Stage 9',
+      layout: '0+2+0',
+      dimensions: { widthM: 4, lengthM: 5, heightM: 2.6 },
+      listener: { x: 2, y: 2.5, z: 1.2 },
+      loudspeakers: [],
+    };
     rooms.create(body).subscribe();
     const create = http.expectOne('/v1/rooms');
     expect(create.request.method).toBe('POST');

@@ -1,4 +1,4 @@
-import { exportSummary, ROUNDING_NOTICE_DB, type TuningExport } from './export-summary';
+import { exportSummary, ROUNDING_NOTICE_DB, type ExportSummaryInput } from './export-summary';
 
 interface ChannelPart {
   id: string;
@@ -10,10 +10,10 @@ interface ChannelPart {
   atHz: number | null;
 }
 
-/** The parts of an export the summary reads; the rest of the contract's shape does not matter here. */
-function exportOf(profileName: string | null, channels: ChannelPart[]): TuningExport {
+/** The parts of an export the summary reads. */
+function exportOf(profileName: string | null, channels: ChannelPart[]): ExportSummaryInput {
   return {
-    header: { profile: profileName === null ? null : { name: profileName }, cautions: [] },
+    header: { profile: profileName === null ? null : { name: profileName } },
     channels: channels.map((c) => ({
       id: c.id,
       delayMs: c.delayMs,
@@ -22,7 +22,7 @@ function exportOf(profileName: string | null, channels: ChannelPart[]): TuningEx
       eq: Array.from({ length: c.bands }, () => ({})),
       eqRounding: { maxDeviationDb: c.maxDeviationDb, atHz: c.atHz },
     })),
-  } as unknown as TuningExport;
+  };
 }
 
 const left = { id: 'M+030', delayMs: 1.5625, delaySamples: 75, trimDb: -1.5, bands: 3 };

@@ -30,8 +30,20 @@ export interface ExportSummary {
   notableCount: number;
 }
 
+type ExportChannel = TuningExport['channels'][number];
+
+/** The parts of an export the summary reads, in the contract's types: any `TuningExport` is one. */
+export interface ExportSummaryInput {
+  header: { profile: Pick<NonNullable<TuningExport['header']['profile']>, 'name'> | null };
+  channels: ReadonlyArray<
+    Pick<ExportChannel, 'id' | 'delayMs' | 'delaySamples' | 'trimDb' | 'eqRounding'> & {
+      eq: readonly unknown[];
+    }
+  >;
+}
+
 /** What the export's rounding cost, per channel and in one sentence. */
-export function exportSummary(exported: TuningExport): ExportSummary {
+export function exportSummary(exported: ExportSummaryInput): ExportSummary {
   const rows = exported.channels.map((channel): ExportRow => {
     const { maxDeviationDb, atHz } = channel.eqRounding;
     return {

@@ -18,7 +18,7 @@ describe('TuningsService', () => {
   afterEach(() => http.verify());
 
   it('creates a tuning under its room', () => {
-    const body = { name: 'First', channels: [] } as unknown as TuningCreate;
+    const body: TuningCreate = { name: 'First', channels: [] };
     tunings.create('room_1', body).subscribe();
     const request = http.expectOne('/v1/rooms/room_1/tunings');
     expect(request.request.method).toBe('POST');

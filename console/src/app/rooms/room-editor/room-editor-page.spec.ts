@@ -3,11 +3,12 @@ import { HttpTestingController, provideHttpClientTesting } from '@angular/common
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { Router, provideRouter } from '@angular/router';
 import { LAYOUTS } from '../../../../../shared/layouts';
+import { answeredRoom } from '../../../testing/fixtures';
 import type { Room } from '../room.model';
 import { PLAN_STEP_M } from './plan-moves';
 import { RoomEditorPage } from './room-editor-page';
 
-const stored: Room = {
+const stored: Room = answeredRoom({
   id: 'room_1',
   name: 'Suite B',
   layout: 'bs2051-b',
@@ -19,9 +20,8 @@ const stored: Room = {
     { id: 'M-030', x: 3, y: 1.041, z: 1.2 },
   ],
   sampleRateHz: 48000,
-  profileId: null,
   limits: { delayMaxMs: 50 },
-} as unknown as Room;
+});
 
 describe('RoomEditorPage', () => {
   let http: HttpTestingController;

@@ -24,9 +24,10 @@ function user(id: string, email: string, overrides: Partial<ConsoleUser> = {}): 
     role: 'developer',
     status: 'active',
     createdAt: '2026-03-01T08:00:00Z',
+    updatedAt: '2026-03-01T08:00:00Z',
     lastSignInAt: null,
     ...overrides,
-  } as ConsoleUser;
+  };
 }
 
 const me = user('usr_1', 'admin@example.test', { role: 'admin', name: 'Ada Admin' });
