@@ -106,6 +106,9 @@ describe('exactRoutes', () => {
     expect(keys(exactRoutes([first]))).toEqual(['GET /levels', 'POST /biquads']);
     expect(keys(exactRoutes([first, second]))).toEqual(['POST /biquads']);
     expect(exactRoutes([first, (() => undefined) as unknown as Router]).size).toBe(0);
+    const caseSensitive = Router({ caseSensitive: true });
+    caseSensitive.post('/Fit', (_req, res) => res.end());
+    expect(exactRoutes([first, caseSensitive]).size).toBe(0);
   });
 });
 

@@ -69,14 +69,20 @@ const PLAIN_PATH = /^(?:\/[A-Za-z0-9._~-]+)+$/;
  * of plain segments, is the only route of the routers (`chain`, in order) that answers that method and
  * path, and no other layer of theirs matches the path. Express would find that route and nothing else, so
  * the resource router's own dispatch (its layer-by-layer path matching and bookkeeping) is skipped. A
- * router whose layers cannot be read rules out every path it could see.
+ * router whose layers cannot be read, or that matches case or trailing slashes strictly, rules out every
+ * path.
  */
 export function exactRoutes(routers: readonly Router[]): Map<string, Map<string, RouteDispatch>> {
   const layers: RouteLayer[] = [];
   // A router mounted at the root of another (`use(router)`) is its layers, in place.
   const add = (router: unknown): boolean => {
-    const stack = (router as { stack?: unknown }).stack;
-    if (!Array.isArray(stack)) return false;
+    const { stack, caseSensitive, strict } = router as {
+      stack?: unknown;
+      caseSensitive?: boolean;
+      strict?: boolean;
+    };
+    // Paths are looked up regardless of case and without a trailing slash, as a default router matches them.
+    if (!Array.isArray(stack) || caseSensitive === true || strict === true) return false;
     for (const layer of stack as Array<RouteLayer & RouterLayer>) {
       if (
         !layer.route &&
