@@ -155,8 +155,9 @@ export function dispatchByFirstSegment(routers: Router[]): RequestHandler {
     const query = url.indexOf('?');
     const path = query === -1 ? url : url.slice(0, query);
     const byPath = exact.get(req.method);
-    if (byPath && PLAIN_PATH.test(path)) {
-      const route = byPath.get(path) ?? byPath.get(path.toLowerCase());
+    if (byPath) {
+      // A path equal to a key is plain (keys are); only the look-up regardless of case needs the check.
+      const route = byPath.get(path) ?? (PLAIN_PATH.test(path) ? byPath.get(path.toLowerCase()) : undefined);
       if (route) {
         req.params = {};
         // 'route' and 'router' leave the route and its router alike: nothing else there answers.
