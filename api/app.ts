@@ -4,6 +4,7 @@ import express, { type Express } from 'express';
 import helmet from 'helmet';
 import { authenticate } from './auth/authenticate';
 import { chain } from './http/chain';
+import { mountDirectly } from './http/direct-mount';
 import { refuseNulInUrl } from './http/nul-guard';
 import { fixedSecurityHeaders, securityHeaders } from './http/security-headers';
 import { requestId } from './http/request-id';
@@ -22,7 +23,15 @@ import type { Services } from './services';
 /** JSON bodies above this size get 413; 128 channels with measured responses fit well inside it. */
 const JSON_BODY_LIMIT = '2mb';
 
-export function createApp(services: Services): Express {
+export interface AppOptions {
+  /**
+   * Whether `/v1/…` requests skip the app router's walk (`mountDirectly`); on by default. Off only in
+   * the spec that checks both ways answer alike.
+   */
+  directApi?: boolean;
+}
+
+export function createApp(services: Services, options: AppOptions = {}): Express {
   const { config } = services;
   const app = express();
   app.disable('x-powered-by');
@@ -52,31 +61,28 @@ export function createApp(services: Services): Express {
     }),
   );
   // With the JSON body parser as one layer: every request passes them all.
-  app.use(
-    chain(
-      requestId,
-      refuseNulInUrl,
-      securityHeaders(pageHeaders),
-      express.json({ limit: JSON_BODY_LIMIT, strict: true }),
-    ),
+  const everyRequest = chain(
+    requestId,
+    refuseNulInUrl,
+    securityHeaders(pageHeaders),
+    express.json({ limit: JSON_BODY_LIMIT, strict: true }),
   );
+  app.use(everyRequest);
 
   // The API first and as one layer: its requests pass no other router's layers, and its stages run as
   // plain calls (see `chain`), in this order; `v1Router` picks the resource routers by path segment.
-  app.use(
-    '/v1',
-    chain(
-      authenticate(services.keys, services.sessionPrincipal),
-      // Counted in this process, or in Redis shared by every instance (services.shared).
-      createRateLimits(services, {
-        key: services.shared.rateLimitStore('key'),
-        user: services.shared.rateLimitStore('user'),
-      }),
-      services.usage.middleware,
-      v1Router(services),
-      notFoundHandler,
-    ),
+  const api = chain(
+    authenticate(services.keys, services.sessionPrincipal),
+    // Counted in this process, or in Redis shared by every instance (services.shared).
+    createRateLimits(services, {
+      key: services.shared.rateLimitStore('key'),
+      user: services.shared.rateLimitStore('user'),
+    }),
+    services.usage.middleware,
+    v1Router(services),
+    notFoundHandler,
   );
+  app.use('/v1', api);
 
   app.use(healthRouter(services));
   app.use(docsRouter(getContract().document));
@@ -84,12 +90,30 @@ export function createApp(services: Services): Express {
 
   serveConsole(app, config.consoleDir);
   app.use(notFoundHandler);
-  app.use(
-    problemHandler(
-      services.logger,
-      (err) => storageProblem(err) ?? (isRedisFailure(err) ? sharedStateProblem() : null),
-    ),
+  const problems = problemHandler(
+    services.logger,
+    (err) => storageProblem(err) ?? (isRedisFailure(err) ? sharedStateProblem() : null),
   );
+  app.use(problems);
+
+  // `/v1/…` reaches the same stages without the app router's walk (see `mountDirectly`).
+  if (options.directApi !== false) {
+    mountDirectly(app, {
+      path: '/v1',
+      before: everyRequest,
+      mounted: api,
+      errors: problems,
+      // As Express's final handler: an error once the answer has begun can only end the connection.
+      lastResort: (err, req, res) => {
+        services.logger.error(
+          { err, requestId: res.getHeader('Request-Id'), path: req.path },
+          'error after the answer began',
+        );
+        if (res.headersSent) req.socket.destroy();
+        else res.status(500).end();
+      },
+    });
+  }
   return app;
 }
 
