@@ -39,7 +39,7 @@ const STAGES: Array<[string, RegExp]> = [
   ['JSON body parsing', /body-parser|raw-body|iconv-lite|type-is|media-typer|content-type/],
   [
     'express routing',
-    /\/router\/|express\/lib\/|path-to-regexp|finalhandler|\/depd\/|api\/http\/(chain|segment-dispatch)/,
+    /\/router\/|express\/lib\/|path-to-regexp|finalhandler|\/depd\/|api\/http\/(chain|segment-dispatch|direct-mount)/,
   ],
   ['security headers (helmet)', /\/helmet\/|api\/http\/security-headers/],
   ['request id, NUL guard, problems', /api\/http\//],

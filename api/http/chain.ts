@@ -9,7 +9,24 @@ import type { NextFunction, Request, RequestHandler, Response } from 'express';
  */
 export function chain(...handlers: RequestHandler[]): RequestHandler {
   if (handlers.length === 1) return handlers[0];
-  return (req: Request, res: Response, done: NextFunction) => new ChainRun(handlers, req, res, done).next();
+  return (req: Request, res: Response, done: NextFunction) =>
+    new ChainRun(handlers, false, req, res, done).next();
+}
+
+/**
+ * A route's handlers run as its `dispatch` runs them (router/lib/route.js): `next('route')` leaves the
+ * route, an error skips the handlers left (a route of plain handlers has no error handler), and the
+ * route is in `req.route`. Built once from the handlers for one method, it spares the route's layer
+ * walk and its closures per request.
+ */
+export function routeRunner(
+  route: object,
+  handlers: RequestHandler[],
+): (req: Request, res: Response, done: NextFunction) => void {
+  return (req, res, done) => {
+    req.route = route;
+    new ChainRun(handlers, true, req, res, done).next();
+  };
 }
 
 /**
@@ -23,6 +40,8 @@ class ChainRun {
 
   constructor(
     private readonly handlers: RequestHandler[],
+    /** A route's handlers: `next('route')` leaves them, rather than going on with the next one. */
+    private readonly asRoute: boolean,
     private readonly req: Request,
     private readonly res: Response,
     private readonly done: NextFunction,
@@ -31,14 +50,24 @@ class ChainRun {
   }
 
   private step(err: unknown): void {
-    // As in a router: `next('route')` goes on with the next handler, `next('router')` leaves.
+    // As in a router: `next('route')` goes on with the next handler, `next('router')` leaves. In a
+    // route, `next('route')` leaves the route.
+    if (err === 'route' && this.asRoute) {
+      this.done();
+      return;
+    }
     if (err !== undefined && err !== null && err !== false && err !== 'route') {
       this.done(err);
       return;
     }
     const at = this.index;
+    if (at === this.handlers.length) {
+      this.done(); // a route's last handler called next()
+      return;
+    }
     this.index += 1;
-    const last = at === this.handlers.length - 1;
+    // In a chain the last handler passes straight on; a route's goes through `step`, for 'route'.
+    const last = !this.asRoute && at === this.handlers.length - 1;
     run(this.handlers[at], this.req, this.res, last ? this.done : this.next);
   }
 }

@@ -1,4 +1,4 @@
-import express, { Router, type RequestHandler } from 'express';
+import express, { Router, type ErrorRequestHandler, type RequestHandler } from 'express';
 import request from 'supertest';
 import { chain } from './chain';
 import { dispatchByFirstSegment, exactRoutes, firstSegments } from './segment-dispatch';
@@ -8,7 +8,13 @@ function routers(): Router[] {
   const say =
     (what: string): RequestHandler =>
     (req, res) => {
-      res.json({ what, params: req.params, baseUrl: req.baseUrl, path: req.path });
+      res.json({
+        what,
+        params: req.params,
+        baseUrl: req.baseUrl,
+        path: req.path,
+        route: (req.route as { path?: string }).path,
+      });
     };
   const calculations = Router();
   calculations.post('/delays', say('delays'));
@@ -35,6 +41,18 @@ function routers(): Router[] {
   passing.post('/skip', (_req, _res, next) => next('route'), say('never'));
   passing.post('/leave', (_req, _res, next) => next('router'), say('never'));
   passing.post('/two', (_req, _res, next) => next(), say('second handler'));
+  passing.post('/last-passes', say('never'));
+  passing.post(
+    '/last-passes',
+    (_req, _res, next) => next(),
+    (_req, _res, next) => next('route'),
+  );
+  // A route with its own error handler: run by its own dispatch.
+  const recover: ErrorRequestHandler = (err: Error, req, res, _next) => {
+    res.json({ recovered: err.message, route: (req.route as { path?: string }).path });
+  };
+  const fail: RequestHandler = (_req, _res, next) => next(new Error('recoverable'));
+  passing.post('/recover', fail, recover);
   const nested = Router();
   nested.post('/nested/static', say('nested'));
   passing.use(nested);
@@ -91,6 +109,7 @@ describe('exactRoutes', () => {
       'POST /leave',
       'POST /nested/static',
       'POST /pass',
+      'POST /recover',
       'POST /skip',
       'POST /throw',
       'POST /two',
@@ -138,6 +157,8 @@ describe('dispatchByFirstSegment', () => {
     ['post', '/v1/skip'],
     ['post', '/v1/leave'],
     ['post', '/v1/two'],
+    ['post', '/v1/last-passes'],
+    ['post', '/v1/recover'],
     ['post', '/v1/Two?x=1'],
     ['post', '/v1/nested/static'],
     ['post', '/v1/nested/static/'],

@@ -1,5 +1,5 @@
 import type { NextFunction, Request, RequestHandler, Response, Router } from 'express';
-import { chain } from './chain';
+import { chain, routeRunner } from './chain';
 
 /** A plain path segment: what a route's first segment is when it holds no parameter or pattern. */
 const PLAIN_SEGMENT = /^[A-Za-z0-9._~-]*$/;
@@ -52,14 +52,31 @@ function firstSegmentOf(url: string): string {
 
 /** The parts of a route layer (`router` package) read here. */
 interface RouteLayer {
-  route?: {
-    methods?: Record<string, boolean>;
-    _handlesMethod?(method: string): boolean;
-    dispatch: RouteDispatch;
-  };
+  route?: Route;
   match?(path: string): unknown;
 }
+interface Route {
+  methods?: Record<string, boolean>;
+  _handlesMethod?(method: string): boolean;
+  dispatch: RouteDispatch;
+  /** One layer per handler, with the method it answers (none: every method). */
+  stack?: Array<{ method?: string; handle?: unknown }>;
+}
 type RouteDispatch = (req: Request, res: Response, done: NextFunction) => void;
+
+/**
+ * How a route runs a request of one method: its handlers for that method, resolved once (`routeRunner`),
+ * or its own `dispatch` when it holds something else (an error handler, a layer this cannot read).
+ */
+function runnerFor(route: Route, method: string): RouteDispatch {
+  const handlers: RequestHandler[] = [];
+  for (const layer of route.stack ?? []) {
+    if (layer.method !== undefined && layer.method !== method) continue;
+    if (typeof layer.handle !== 'function' || layer.handle.length > 3) return route.dispatch.bind(route);
+    handlers.push(layer.handle as RequestHandler);
+  }
+  return handlers.length > 0 ? routeRunner(route, handlers) : route.dispatch.bind(route);
+}
 
 /** A path of plain segments only (no escapes, no empty segment, no trailing slash): routes are looked up by it as it is. */
 const PLAIN_PATH = /^(?:\/[A-Za-z0-9._~-]+)+$/;
@@ -114,7 +131,7 @@ export function exactRoutes(routers: readonly Router[]): Map<string, Map<string,
       if (answering.length === 1 && answering[0] === layer) {
         let byPath = exact.get(verb);
         if (!byPath) exact.set(verb, (byPath = new Map()));
-        byPath.set(path.toLowerCase(), route.dispatch.bind(route));
+        byPath.set(path.toLowerCase(), runnerFor(route, method));
       }
     }
   }
