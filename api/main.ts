@@ -1,4 +1,5 @@
 import { createApp } from './app';
+import { createServer, listen } from './http/server';
 import { ConfigError, loadConfig, sqliteStorage } from './config';
 import { describeStorageFailure } from './db/storage-errors';
 import { gracefulShutdown } from './lifecycle/graceful-shutdown';
@@ -12,7 +13,7 @@ async function main(): Promise<void> {
   // Instances starting together on one PostgreSQL database: one seeds, the others find it filled.
   if (config.seedDemoData) await services.db.exclusively(() => loadDemoData(services));
   const app = createApp(services);
-  const server = app.listen(config.port, (error?: Error) => {
+  const server = listen(createServer(app), config.port, undefined, (error?: Error) => {
     if (error) {
       services.logger.error({ err: error }, `cannot listen on port ${config.port}`);
       process.exit(1);

@@ -3,6 +3,7 @@ import type { AddressInfo } from 'node:net';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { createApp } from '../../api/app';
+import { createServer, listen } from '../../api/http/server';
 import { generateKeySecret, hashKeySecret } from '../../api/auth/key-secret';
 import { loadConfig } from '../../api/config';
 import { openDatabase } from '../../api/db/database';
@@ -68,7 +69,9 @@ async function main(): Promise<void> {
       { transaction },
     );
   });
-  const server = createApp(services).listen(0, '127.0.0.1', () => {
+  // The server as `npm start` serves it (api/main.ts).
+  const server = listen(createServer(createApp(services)), 0, '127.0.0.1', (error) => {
+    if (error) throw error;
     serveUntilStopped(
       (server.address() as AddressInfo).port,
       { Authorization: `Bearer ${secret}` },
