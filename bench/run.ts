@@ -1,10 +1,12 @@
 /**
  * `npm run bench`: what the full request chain costs. autocannon sends the same JSON body (one peaking
  * filter) to (A) a bare node:http echo, (B) a bare Express 5 echo, (E) bare Express 5 doing the same
- * calculation as POST /v1/biquads (its JSON parser, the same pure function, res.json) and (C) POST
- * /v1/biquads through the whole service, each server in its own process. They take turns, round after
+ * calculation as POST /v1/biquads (its JSON parser, the same pure function, res.json), (F) E on the
+ * service's HTTP server (api/http/server.ts) and (C) POST /v1/biquads through the whole service, each
+ * server in its own process. They take turns, round after
  * round, so that a change in what else runs on the machine hits all alike. The chain's target is against
- * E (C and E do the same calculation, so C/E is what the chain costs); C/B is printed beside it. Each
+ * E (C and E do the same calculation, so C/E is what the chain costs); C/B is printed beside it, and
+ * C/F, what the chain alone costs once both run on the service's server. Each
  * ratio is the median of the rounds' ratios.
  * Prints req/s, p50 and p99; then (D) the p99 of /v1/biquads on C while eight heavy requests run; then
  * runs the measurement-analysis benchmark when present, and writes bench/results/latest.json.
@@ -57,10 +59,12 @@ const BODY = JSON.stringify({
 });
 
 interface Scenario {
-  key: 'A' | 'B' | 'E' | 'C';
+  key: 'A' | 'B' | 'E' | 'F' | 'C';
   name: string;
   script: string;
   path: string;
+  /** Environment for the target's process. */
+  env?: Record<string, string>;
 }
 
 const SCENARIOS: Scenario[] = [
@@ -71,6 +75,15 @@ const SCENARIOS: Scenario[] = [
     name: 'Express 5 doing the same calculation (designFilterSet), no chain',
     script: 'express-calc.ts',
     path: '/v1/biquads',
+  },
+  {
+    // How much of C's lead over E is the service's server (requests and answers of one shape) rather
+    // than the chain: E on that same server.
+    key: 'F',
+    name: "Express 5 doing the same calculation, no chain, on the service's HTTP server (api/http/server.ts)",
+    script: 'express-calc.ts',
+    path: '/v1/biquads',
+    env: { BENCH_SERVICE_SERVER: '1' },
   },
   {
     key: 'C',
@@ -160,6 +173,7 @@ async function start(scenario: Scenario, launcher: TargetLauncher): Promise<Targ
       ...(profileDir && scenario.key === 'C' ? ['--cpu-prof', '--cpu-prof-dir', profileDir] : []),
     ],
     stdio: ['ignore', 'inherit', 'inherit', 'ipc'],
+    env: { ...process.env, ...scenario.env },
   });
   const ready = await nextMessage<ReadyMessage>(child, 'ready');
   return { scenario, child, ready, latencies: [], rounds: [], cpuMs: 0, warmupCompleted: 0 };
@@ -419,8 +433,9 @@ async function main(): Promise<void> {
       target.warmupCompleted = (await load(target, WARMUP_S, null)).requests.total;
     const ratios: number[] = [];
     const echoRatios: number[] = [];
+    const serverRatios: number[] = [];
     const byKey = (key: Scenario['key']) => targets.find((t) => t.scenario.key === key) as Target;
-    const [echo, calculation, chain] = [byKey('B'), byKey('E'), byKey('C')];
+    const [echo, calculation, onServer, chain] = [byKey('B'), byKey('E'), byKey('F'), byKey('C')];
     const rps = (target: Target, round: number) => target.rounds[round].requests.average;
     for (let round = 0; round < ROUNDS; round += 1) {
       // Each round's own p99 too (its latencies are the last ones recorded), to show how much it varies.
@@ -438,6 +453,7 @@ async function main(): Promise<void> {
       }
       ratios.push(rps(chain, round) / rps(calculation, round));
       echoRatios.push(rps(chain, round) / rps(echo, round));
+      serverRatios.push(rps(chain, round) / rps(onServer, round));
       const p99Ratio = (p99s.get(chain) as number) / (p99s.get(calculation) as number);
       process.stdout.write(
         `  round ${round + 1}/${ROUNDS}: C/E ${ratios[round].toFixed(2)}, C/B ${echoRatios[round].toFixed(2)}, ` +
@@ -449,7 +465,14 @@ async function main(): Promise<void> {
     for (const target of targets) results.push(await finish(target));
     await report(
       results,
-      { ratio: median(ratios), ratios, echoRatio: median(echoRatios), echoRatios },
+      {
+        ratio: median(ratios),
+        ratios,
+        echoRatio: median(echoRatios),
+        echoRatios,
+        serverRatio: median(serverRatios),
+        serverRatios,
+      },
       heavy,
     );
   } finally {
@@ -464,10 +487,13 @@ interface Ratios {
   /** C/B: the full chain against bare Express echoing the body (no calculation). */
   echoRatio: number;
   echoRatios: number[];
+  /** C/F: the full chain against bare Express on the service's HTTP server (what the chain alone costs). */
+  serverRatio: number;
+  serverRatios: number[];
 }
 
 async function report(results: ScenarioResult[], ratioSet: Ratios, heavy: LoadWindowResult[]): Promise<void> {
-  const { ratio, ratios, echoRatio, echoRatios } = ratioSet;
+  const { ratio, ratios, echoRatio, echoRatios, serverRatio, serverRatios } = ratioSet;
   console.log('');
   for (const result of results) {
     console.log(
@@ -483,7 +509,7 @@ async function report(results: ScenarioResult[], ratioSet: Ratios, heavy: LoadWi
     }
   }
   const pick = (key: Scenario['key']) => results.find((r) => r.key === key) as ScenarioResult;
-  const [echo, express, chain] = [pick('B'), pick('E'), pick('C')];
+  const [echo, express, onServer, chain] = [pick('B'), pick('E'), pick('F'), pick('C')];
   const cpuRatio = express.serverCpuUsPerRequest / chain.serverCpuUsPerRequest;
   const failures = chain.errors + chain.timeouts + chain.non2xx;
   const p99Ratio = chain.p99Ms / express.p99Ms;
@@ -525,7 +551,10 @@ async function report(results: ScenarioResult[], ratioSet: Ratios, heavy: LoadWi
         .filter((w) => w.key !== 'idle')
         .map((w) => `${w.key} ${ms(w.probeP99Ms)}`)
         .join(', ')} (target ≤ ${HEAVY_TARGET_P99_MS} ms)\n` +
-      `Against the echo (no calculation): C/B = ${echoRatio.toFixed(2)}, C p99 = ${(chain.p99Ms / echo.p99Ms).toFixed(2)} × B's`,
+      `Against the echo (no calculation): C/B = ${echoRatio.toFixed(2)}, C p99 = ${(chain.p99Ms / echo.p99Ms).toFixed(2)} × B's\n` +
+      `Against E on the service's server (F; the chain's own cost): C/F = ${serverRatio.toFixed(2)}, ` +
+      `C p99 = ${(chain.p99Ms / onServer.p99Ms).toFixed(2)} × F's, by server CPU F/C = ` +
+      `${(onServer.serverCpuUsPerRequest / chain.serverCpuUsPerRequest).toFixed(2)}`,
   );
   for (const [name, check] of Object.entries(checks)) {
     console.log(`  ${check.passed ? 'ok  ' : 'MISS'} ${name}`);
@@ -560,6 +589,9 @@ async function report(results: ScenarioResult[], ratioSet: Ratios, heavy: LoadWi
     ratioChainToExpressEcho: echoRatio,
     ratioChainToExpressEchoByRound: echoRatios,
     p99RatioChainToExpressEcho: chain.p99Ms / echo.p99Ms,
+    ratioChainToExpressOnServiceServer: serverRatio,
+    ratioChainToExpressOnServiceServerByRound: serverRatios,
+    p99RatioChainToExpressOnServiceServer: chain.p99Ms / onServer.p99Ms,
     heavyLoad: heavy,
     checks,
     analysis,
