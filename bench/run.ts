@@ -3,11 +3,10 @@
  * filter) to (A) a bare node:http echo, (B) a bare Express 5 echo, (E) bare Express 5 doing the same
  * calculation as POST /v1/biquads (its JSON parser, the same pure function, res.json), (F) E on the
  * service's HTTP server (api/http/server.ts) and (C) POST /v1/biquads through the whole service, each
- * server in its own process. They take turns, round after
- * round, so that a change in what else runs on the machine hits all alike. The chain's target is against
- * E (C and E do the same calculation, so C/E is what the chain costs); C/B is printed beside it, and
- * C/F, what the chain alone costs once both run on the service's server. Each
- * ratio is the median of the rounds' ratios.
+ * server in its own process. They take turns, round after round, so that a change in what else runs on
+ * the machine hits all alike. The chain's target is against E (C and E do the same calculation, so C/E
+ * is what the chain costs); C/B is printed beside it, and C/F, what the chain alone costs once both run
+ * on the service's server. Each ratio is the median of the rounds' ratios.
  * Prints req/s, p50 and p99; then (D) the p99 of /v1/biquads on C while eight heavy requests run; then
  * runs the measurement-analysis benchmark when present, and writes bench/results/latest.json.
  *
